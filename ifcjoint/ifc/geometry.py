@@ -1,0 +1,476 @@
+"""Analytic reading of IFC body geometry: placements, profiles and extrusions.
+
+Everything here works in the model's own length unit; the reader scales to mm once. Bodies
+that are not extrusions (Breps, tessellations...) are left to :mod:`ifcjoint.ifc.mesh`.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+import numpy as np
+import shapely
+
+SOLID_REP_IDS = ("Body", "Model", "", None)
+AXIS_REP_IDS = ("Axis", "Box", "FootPrint", "Annotation", "Profile", "Clearance", "Reference")
+
+
+class NeedsMesh(Exception):
+    """The body cannot be read analytically; tessellate it instead."""
+
+
+# --- placements --------------------------------------------------------------------------
+
+
+def axis2placement(p) -> np.ndarray:
+    """4x4 matrix of an IfcAxis2Placement2D/3D (model units)."""
+    m = np.eye(4)
+    if p is None:
+        return m
+    loc = p.Location.Coordinates if p.Location is not None else (0.0, 0.0, 0.0)
+    m[: len(loc), 3] = loc
+    if p.is_a("IfcAxis2Placement3D"):
+        z = np.array(p.Axis.DirectionRatios, dtype=float) if p.Axis else np.array([0.0, 0, 1])
+        x = (
+            np.array(p.RefDirection.DirectionRatios, dtype=float)
+            if p.RefDirection
+            else np.array([1.0, 0, 0])
+        )
+        z = z / np.linalg.norm(z)
+        x = x - x.dot(z) * z
+        if np.linalg.norm(x) < 1e-9:  # RefDirection parallel to Axis: pick any perpendicular
+            x = np.cross(z, [0, 1.0, 0]) if abs(z[1]) < 0.9 else np.cross(z, [1.0, 0, 0])
+        x = x / np.linalg.norm(x)
+        y = np.cross(z, x)
+        m[:3, 0], m[:3, 1], m[:3, 2] = x, y, z
+    elif p.is_a("IfcAxis2Placement2D"):
+        x = (
+            np.array(p.RefDirection.DirectionRatios[:2], dtype=float)
+            if p.RefDirection
+            else np.array([1.0, 0])
+        )
+        x = x / np.linalg.norm(x)
+        m[:2, 0] = x
+        m[:2, 1] = (-x[1], x[0])
+    return m
+
+
+def cartesian_operator(op) -> np.ndarray:
+    """4x4 matrix of an IfcCartesianTransformationOperator (2D or 3D, uniform or not)."""
+    m = np.eye(4)
+    if op is None:
+        return m
+    o = op.LocalOrigin.Coordinates
+    m[: len(o), 3] = o
+    dim = 3 if op.is_a("IfcCartesianTransformationOperator3D") else 2
+    a1 = np.array(op.Axis1.DirectionRatios, dtype=float) if op.Axis1 else None
+    a2 = np.array(op.Axis2.DirectionRatios, dtype=float) if op.Axis2 else None
+    if dim == 3:
+        a3 = np.array(op.Axis3.DirectionRatios, dtype=float) if op.Axis3 else np.array([0, 0, 1.0])
+        a3 = a3 / np.linalg.norm(a3)
+        x = a1 if a1 is not None else np.array([1.0, 0, 0])
+        x = x - x.dot(a3) * a3
+        x = x / np.linalg.norm(x)
+        y = np.cross(a3, x)
+        if a2 is not None and a2.dot(y) < 0:  # mirrored
+            y = -y
+        axes = [x, y, a3]
+    else:
+        x = a1[:2] if a1 is not None else np.array([1.0, 0])
+        x = x / np.linalg.norm(x)
+        y = np.array([-x[1], x[0]])
+        axes = [np.r_[x, 0], np.r_[y, 0], np.array([0, 0, 1.0])]
+    scale = op.Scale if op.Scale is not None else 1.0
+    scales = [scale, scale, scale]
+    for i, attr in ((1, "Scale2"), (2, "Scale3")):
+        if hasattr(op, attr) and getattr(op, attr) is not None:
+            scales[i] = getattr(op, attr)
+    for i in range(3):
+        m[:3, i] = axes[i] * scales[i]
+    return m
+
+
+class PlacementCache:
+    """World matrices of object placements, each placement computed once.
+
+    Resolves ``IfcLocalPlacement`` chains (``PlacementRelTo``) with Axis/RefDirection. Grid
+    placements raise :class:`NeedsMesh` (the tessellator resolves them).
+    """
+
+    def __init__(self) -> None:
+        self._cache: dict[int, np.ndarray] = {}
+
+    def matrix(self, placement) -> np.ndarray:
+        if placement is None:
+            return np.eye(4)
+        pid = placement.id()
+        hit = self._cache.get(pid)
+        if hit is not None:
+            return hit
+        if not placement.is_a("IfcLocalPlacement"):
+            raise NeedsMesh(f"{placement.is_a()} placement")
+        chain = []
+        p = placement
+        seen = set()
+        while p is not None and p.id() not in self._cache:
+            if not p.is_a("IfcLocalPlacement"):
+                raise NeedsMesh(f"{p.is_a()} placement")
+            if p.id() in seen:
+                raise NeedsMesh("cyclic placement")
+            seen.add(p.id())
+            chain.append(p)
+            p = p.PlacementRelTo
+        m = self._cache[p.id()] if p is not None else np.eye(4)
+        for q in reversed(chain):
+            m = m @ axis2placement(q.RelativePlacement)
+            self._cache[q.id()] = m
+        return m
+
+
+# --- profiles ----------------------------------------------------------------------------
+
+
+@dataclass(slots=True)
+class ProfileInfo:
+    """What a profile tells: its 2D box in profile coordinates and its dimensions."""
+
+    ifc_type: str
+    name: str
+    xmin: float
+    xmax: float
+    ymin: float
+    ymax: float
+    area: float | None = None  # net area when known (for the fill ratio)
+    h: float | None = None
+    b: float | None = None
+    tw: float | None = None
+    tf: float | None = None
+    r: float | None = None
+    hollow: bool = False
+    extra: dict = field(default_factory=dict)
+
+    @property
+    def fill(self) -> float | None:
+        box = (self.xmax - self.xmin) * (self.ymax - self.ymin)
+        if self.area is None or box <= 0:
+            return None
+        return self.area / box
+
+
+def _pos2d(profile) -> np.ndarray:
+    pos = getattr(profile, "Position", None)
+    m = np.eye(3)
+    if pos is None:
+        return m
+    m4 = axis2placement(pos)
+    m[:2, :2] = m4[:2, :2]
+    m[:2, 2] = m4[:2, 3]
+    return m
+
+
+def _box_of(points: np.ndarray, m: np.ndarray) -> tuple[float, float, float, float]:
+    p = points @ m[:2, :2].T + m[:2, 2]
+    return float(p[:, 0].min()), float(p[:, 0].max()), float(p[:, 1].min()), float(p[:, 1].max())
+
+
+def curve_points(curve) -> np.ndarray:
+    """2D points of a bounded curve good enough for a box and an area (arcs sampled)."""
+    t = curve.is_a()
+    if t == "IfcPolyline":
+        return np.array([p.Coordinates[:2] for p in curve.Points], dtype=float)
+    if t == "IfcIndexedPolyCurve":
+        pts = np.array(curve.Points.CoordList, dtype=float)[:, :2]
+        return pts
+    if t in ("IfcCompositeCurve", "IfcCompositeCurveOnSurface"):
+        out = []
+        for seg in curve.Segments:
+            out.append(curve_points(seg.ParentCurve))
+        return np.vstack(out) if out else np.zeros((0, 2))
+    if t == "IfcTrimmedCurve":
+        basis = curve.BasisCurve
+        pts = [
+            tr.Coordinates[:2]
+            for tr in list(curve.Trim1) + list(curve.Trim2)
+            if hasattr(tr, "Coordinates") and tr.is_a("IfcCartesianPoint")
+        ]
+        if basis.is_a("IfcCircle") and len(pts) == 2:
+            return _arc_points(basis, np.array(pts[0]), np.array(pts[1]), curve.SenseAgreement)
+        if pts:
+            return np.array(pts, dtype=float)
+        return curve_points(basis)
+    if t == "IfcCircle":
+        m = axis2placement(curve.Position)
+        ang = np.linspace(0, 2 * math.pi, 33)[:-1]
+        pts = np.c_[np.cos(ang), np.sin(ang)] * curve.Radius
+        return pts @ m[:2, :2].T + m[:2, 3]
+    if t == "IfcEllipse":
+        m = axis2placement(curve.Position)
+        ang = np.linspace(0, 2 * math.pi, 33)[:-1]
+        pts = np.c_[np.cos(ang) * curve.SemiAxis1, np.sin(ang) * curve.SemiAxis2]
+        return pts @ m[:2, :2].T + m[:2, 3]
+    raise NeedsMesh(f"curve {t}")
+
+
+def _arc_points(circle, p0: np.ndarray, p1: np.ndarray, sense: bool) -> np.ndarray:
+    m = axis2placement(circle.Position)
+    c = m[:2, 3]
+    a0 = math.atan2(*(p0 - c)[::-1])
+    a1 = math.atan2(*(p1 - c)[::-1])
+    if sense:
+        if a1 <= a0:
+            a1 += 2 * math.pi
+    elif a1 >= a0:
+        a1 -= 2 * math.pi
+    ang = np.linspace(a0, a1, 9)
+    return c + circle.Radius * np.c_[np.cos(ang), np.sin(ang)]
+
+
+def profile_info(profile) -> ProfileInfo:
+    """Box, area and dimensions of an IFC profile definition (model units)."""
+    t = profile.is_a()
+    name = (getattr(profile, "ProfileName", None) or "").strip()
+    m = _pos2d(profile)
+
+    def sym(sx: float, sy: float, **kw) -> ProfileInfo:
+        c = np.array([[-sx / 2, -sy / 2], [sx / 2, sy / 2], [-sx / 2, sy / 2], [sx / 2, -sy / 2]])
+        return ProfileInfo(t, name, *_box_of(c, m), **kw)
+
+    if t == "IfcIShapeProfileDef":
+        b, h = profile.OverallWidth, profile.OverallDepth
+        tw, tf = profile.WebThickness, profile.FlangeThickness
+        r = profile.FilletRadius or 0.0
+        area = 2 * b * tf + (h - 2 * tf) * tw + (4 - math.pi) * r * r
+        return sym(b, h, area=area, h=h, b=b, tw=tw, tf=tf, r=r)
+    if t == "IfcAsymmetricIShapeProfileDef":
+        h = profile.OverallDepth
+        bt = profile.TopFlangeWidth or profile.BottomFlangeWidth
+        bb = profile.BottomFlangeWidth
+        b = max(bt, bb)
+        tw, tfb = profile.WebThickness, profile.BottomFlangeThickness
+        tft = profile.TopFlangeThickness or tfb
+        area = bb * tfb + bt * tft + (h - tfb - tft) * tw
+        return sym(b, h, area=area, h=h, b=b, tw=tw, tf=max(tfb, tft),
+                   extra={"b_top": bt, "b_bottom": bb, "tf_top": tft, "tf_bottom": tfb})
+    if t in ("IfcRectangleProfileDef", "IfcRoundedRectangleProfileDef"):
+        return sym(profile.XDim, profile.YDim, area=profile.XDim * profile.YDim,
+                   h=profile.YDim, b=profile.XDim)
+    if t == "IfcRectangleHollowProfileDef":
+        w, h, tw = profile.XDim, profile.YDim, profile.WallThickness
+        return sym(w, h, area=w * h - (w - 2 * tw) * (h - 2 * tw), h=h, b=w, tw=tw, tf=tw,
+                   hollow=True)
+    if t == "IfcCircleProfileDef":
+        d = 2 * profile.Radius
+        return sym(d, d, area=math.pi * profile.Radius**2, h=d, b=d)
+    if t == "IfcCircleHollowProfileDef":
+        r, tw = profile.Radius, profile.WallThickness
+        return sym(2 * r, 2 * r, area=math.pi * (r * r - (r - tw) ** 2), h=2 * r, b=2 * r,
+                   tw=tw, hollow=True)
+    if t in ("IfcLShapeProfileDef", "IfcUShapeProfileDef", "IfcCShapeProfileDef",
+             "IfcZShapeProfileDef", "IfcTShapeProfileDef"):
+        h = profile.Depth
+        b = getattr(profile, "Width", None) or getattr(profile, "FlangeWidth", None) or h
+        tw = getattr(profile, "WebThickness", None) or getattr(profile, "Thickness", None)
+        tf = getattr(profile, "FlangeThickness", None) or getattr(profile, "Thickness", None) or tw
+        area = (b * (tf or 0) + h * (tw or 0)) if tw else None
+        info = sym(b, h, area=area, h=h, b=b, tw=tw, tf=tf)
+        if t == "IfcLShapeProfileDef":
+            # The L's corner sits at the origin side; IFC centres its bounding box.
+            pass
+        return info
+    if t == "IfcEllipseProfileDef":
+        a, bb = profile.SemiAxis1, profile.SemiAxis2
+        return sym(2 * a, 2 * bb, area=math.pi * a * bb, h=2 * bb, b=2 * a)
+    if t in ("IfcArbitraryClosedProfileDef", "IfcArbitraryProfileDefWithVoids"):
+        outer = curve_points(profile.OuterCurve)
+        if len(outer) < 3:
+            raise NeedsMesh("degenerate outer curve")
+        poly = shapely.Polygon(outer)
+        if not poly.is_valid:
+            poly = shapely.make_valid(poly)
+        area = poly.area
+        for inner in getattr(profile, "InnerCurves", None) or ():
+            try:
+                area -= shapely.Polygon(curve_points(inner)).area
+            except Exception:  # noqa: BLE001 - a bad void only spoils the area
+                pass
+        x0, x1, y0, y1 = _box_of(outer, m)
+        return ProfileInfo(t, name, x0, x1, y0, y1, area=area, h=y1 - y0, b=x1 - x0,
+                           extra={"outline": outer})
+    if t == "IfcDerivedProfileDef":
+        parent = profile_info(profile.ParentProfile)
+        op = cartesian_operator(profile.Operator)
+        c = np.array([[parent.xmin, parent.ymin], [parent.xmax, parent.ymax],
+                      [parent.xmin, parent.ymax], [parent.xmax, parent.ymin]])
+        mm = np.eye(3)
+        mm[:2, :2], mm[:2, 2] = op[:2, :2], op[:2, 3]
+        x0, x1, y0, y1 = _box_of(c, mm)
+        d = np.array(op[:2, :2])
+        swapped = abs(d[0, 1]) > abs(d[0, 0])
+        return ProfileInfo(t, name or parent.name, x0, x1, y0, y1, area=parent.area,
+                           h=parent.b if swapped else parent.h,
+                           b=parent.h if swapped else parent.b,
+                           tw=parent.tw, tf=parent.tf, r=parent.r, hollow=parent.hollow,
+                           extra={"parent": parent.ifc_type, "rotated": swapped})
+    if t == "IfcCompositeProfileDef":
+        parts = [profile_info(p) for p in profile.Profiles]
+        return ProfileInfo(t, name, min(p.xmin for p in parts), max(p.xmax for p in parts),
+                           min(p.ymin for p in parts), max(p.ymax for p in parts),
+                           area=sum((p.area or 0) for p in parts) or None)
+    raise NeedsMesh(f"profile {t}")
+
+
+# --- solids ------------------------------------------------------------------------------
+
+
+@dataclass(slots=True)
+class SolidBox:
+    """An item of a body as an oriented box in world (model units).
+
+    ``frame`` columns are the box axes (x, y: profile axes; z: extrusion), not unit when the
+    mapping scales; ``lo``/``hi`` are extents along each axis in that frame.
+    """
+
+    origin: np.ndarray
+    axes: np.ndarray  # 3x3, columns unit vectors
+    lo: np.ndarray
+    hi: np.ndarray
+    profile: ProfileInfo | None
+    kind: str  # extrusion | cylinder | block | disk
+
+    @property
+    def size(self) -> np.ndarray:
+        return self.hi - self.lo
+
+    @property
+    def volume(self) -> float:
+        s = self.size
+        fill = self.profile.fill if self.profile and self.profile.fill else 1.0
+        return float(s[0] * s[1] * s[2] * fill)
+
+    def corners(self) -> np.ndarray:
+        pts = []
+        for i in (self.lo[0], self.hi[0]):
+            for j in (self.lo[1], self.hi[1]):
+                for k in (self.lo[2], self.hi[2]):
+                    pts.append(self.origin + self.axes @ np.array([i, j, k]))
+        return np.array(pts)
+
+    def center(self) -> np.ndarray:
+        return self.origin + self.axes @ ((self.lo + self.hi) / 2)
+
+
+def _frame_from(m: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Origin, unit axes and per-axis scale of a 4x4 matrix."""
+    a = m[:3, :3].copy()
+    s = np.linalg.norm(a, axis=0)
+    s[s == 0] = 1.0
+    return m[:3, 3].copy(), a / s, s
+
+
+def _extrusion_box(item, m: np.ndarray) -> SolidBox:
+    pos = m @ axis2placement(item.Position)
+    prof = profile_info(item.SweptArea)
+    d = np.array(item.ExtrudedDirection.DirectionRatios, dtype=float)
+    d = d / np.linalg.norm(d)
+    origin, axes, s = _frame_from(pos)
+    dir_w = axes @ (d * s)
+    depth = item.Depth * float(np.linalg.norm(dir_w))
+    dir_w = dir_w / np.linalg.norm(dir_w)
+    # Box frame: profile x, profile y, extrusion direction (oblique extrusions: the box is
+    # slightly conservative, enough for locating parts).
+    ax = np.column_stack([axes[:, 0], axes[:, 1], dir_w])
+    lo = np.array([prof.xmin * s[0], prof.ymin * s[1], 0.0])
+    hi = np.array([prof.xmax * s[0], prof.ymax * s[1], depth])
+    return SolidBox(origin, ax, lo, hi, prof, "extrusion")
+
+
+def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
+    t = item.is_a()
+    if t == "IfcMappedItem":
+        src = item.MappingSource
+        mm = m @ cartesian_operator(item.MappingTarget) @ axis2placement(src.MappingOrigin)
+        for sub in src.MappedRepresentation.Items:
+            _walk(sub, mm, out)
+    elif t in ("IfcExtrudedAreaSolid", "IfcExtrudedAreaSolidTapered"):
+        out.append(_extrusion_box(item, m))
+    elif t in ("IfcBooleanClippingResult", "IfcBooleanResult"):
+        if item.Operator == "UNION":
+            _walk(item.FirstOperand, m, out)
+            _walk(item.SecondOperand, m, out)
+        else:
+            _walk(item.FirstOperand, m, out)
+    elif t == "IfcCsgSolid":
+        _walk(item.TreeRootExpression, m, out)
+    elif t == "IfcRightCircularCylinder":
+        origin, axes, s = _frame_from(m @ axis2placement(item.Position))
+        r = item.Radius
+        out.append(SolidBox(origin, axes, np.array([-r, -r, 0.0]) * s,
+                            np.array([r, r, item.Height]) * s, None, "cylinder"))
+    elif t == "IfcBlock":
+        origin, axes, s = _frame_from(m @ axis2placement(item.Position))
+        out.append(SolidBox(origin, axes, np.zeros(3),
+                            np.array([item.XLength, item.YLength, item.ZLength]) * s, None,
+                            "block"))
+    elif t == "IfcSweptDiskSolid" and item.Directrix.is_a("IfcPolyline"):
+        pts = np.array([p.Coordinates for p in item.Directrix.Points], dtype=float)
+        if pts.shape[1] == 2:
+            pts = np.c_[pts, np.zeros(len(pts))]
+        pts = (m[:3, :3] @ pts.T).T + m[:3, 3]
+        z = pts[-1] - pts[0]
+        length = float(np.linalg.norm(z))
+        if length == 0:
+            raise NeedsMesh("zero-length directrix")
+        z /= length
+        x = np.cross(z, [0, 0, 1.0]) if abs(z[2]) < 0.9 else np.cross(z, [1.0, 0, 0])
+        x /= np.linalg.norm(x)
+        y = np.cross(z, x)
+        r = item.Radius
+        out.append(SolidBox(pts[0], np.column_stack([x, y, z]), np.array([-r, -r, 0]),
+                            np.array([r, r, length]), None, "disk"))
+    elif t in ("IfcHalfSpaceSolid", "IfcPolygonalBoundedHalfSpace", "IfcBoxedHalfSpace"):
+        return
+    else:
+        raise NeedsMesh(t)
+
+
+def body_items(element):
+    """Items of the element's body representation (or of its type's), or None."""
+    rep = element.Representation
+    reps = list(rep.Representations) if rep is not None else []
+    if not reps:
+        # Some exporters put the body only on the type (RepresentationMaps).
+        for rel in getattr(element, "IsTypedBy", None) or getattr(element, "IsDefinedBy", ()):
+            typ = getattr(rel, "RelatingType", None)
+            if typ is not None and getattr(typ, "RepresentationMaps", None):
+                return [("type", rm) for rm in typ.RepresentationMaps]
+        return None
+    chosen = [r for r in reps if (r.RepresentationIdentifier or "") in ("Body", "Model")]
+    if not chosen:
+        chosen = [r for r in reps if r.RepresentationIdentifier not in AXIS_REP_IDS]
+    if not chosen:
+        return None
+    return [("items", it) for r in chosen[:1] for it in r.Items]
+
+
+def solid_boxes(element, world: np.ndarray) -> list[SolidBox]:
+    """Oriented boxes of the element's body items in world (model units).
+
+    Raises:
+        NeedsMesh: some item is not an extrusion-like solid.
+    """
+    items = body_items(element)
+    if not items:
+        raise NeedsMesh("no body representation")
+    out: list[SolidBox] = []
+    for kind, it in items:
+        if kind == "type":
+            mm = world @ axis2placement(it.MappingOrigin)
+            for sub in it.MappedRepresentation.Items:
+                _walk(sub, mm, out)
+        else:
+            _walk(it, world, out)
+    if not out:
+        raise NeedsMesh("no solid items")
+    return out
+

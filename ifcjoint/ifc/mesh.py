@@ -1,0 +1,101 @@
+"""Fallback for bodies that are not extrusions: tessellate with ``ifcopenshell.geom``.
+
+The principal axes come from the area-weighted second moments of the surface triangles:
+for a prismatic member the largest spread is along its length, the next across its depth
+(an I section's flanges put most surface far from its strong axis), the least across its width.
+"""
+
+from __future__ import annotations
+
+import multiprocessing
+from collections.abc import Iterable
+from dataclasses import dataclass
+
+import ifcopenshell
+import ifcopenshell.geom
+import numpy as np
+
+
+@dataclass(slots=True)
+class MeshBox:
+    """Principal frame and extents of a tessellated body (world, mm)."""
+
+    center: np.ndarray  # centre of the box
+    axes: np.ndarray  # 3x3, columns: largest, middle, smallest spread
+    size: np.ndarray  # extents along the axes
+    volume: float
+    depth_hint: np.ndarray | None = None
+
+
+def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float):
+    """Yield ``(element, verts_mm, faces)`` for the elements, in world coordinates.
+
+    Elements the kernel cannot process are yielded with ``verts`` None and the error text.
+    """
+    elements = list(elements)
+    if not elements:
+        return
+    settings = ifcopenshell.geom.settings()
+    settings.set("use-world-coords", True)
+    done = set()
+    threads = max(1, min(4, multiprocessing.cpu_count()))
+    try:
+        it = ifcopenshell.geom.iterator(settings, model, threads, include=elements)
+        ok = it.initialize()
+    except Exception:  # noqa: BLE001 - fall back to one element at a time
+        ok = False
+    if ok:
+        while True:
+            shape = it.get()
+            el = model.by_id(shape.id)
+            v = np.asarray(shape.geometry.verts, dtype=float).reshape(-1, 3) * 1000.0
+            f = np.asarray(shape.geometry.faces, dtype=int).reshape(-1, 3)
+            done.add(el.id())
+            yield el, v, f, None
+            if not it.next():
+                break
+    for el in elements:
+        if el.id() in done:
+            continue
+        try:
+            shape = ifcopenshell.geom.create_shape(settings, el)
+            v = np.asarray(shape.geometry.verts, dtype=float).reshape(-1, 3) * 1000.0
+            f = np.asarray(shape.geometry.faces, dtype=int).reshape(-1, 3)
+            if len(f) == 0:
+                yield el, None, None, "body has no triangles"
+            else:
+                yield el, v, f, None
+        except Exception as exc:  # noqa: BLE001 - the kernel raises many kinds
+            yield el, None, None, f"geometry kernel could not process the body: {exc}"
+
+
+def principal_box(verts: np.ndarray, faces: np.ndarray) -> MeshBox:
+    """Principal axes and extents of a closed triangle mesh.
+
+    Axes from the area-weighted second moments of the surface (about its area centroid);
+    extents from the vertices projected on those axes.
+    """
+    tri = verts[faces]
+    a, b, c = tri[:, 0], tri[:, 1], tri[:, 2]
+    cross = np.cross(b - a, c - a)
+    area = 0.5 * np.linalg.norm(cross, axis=1)
+    total = area.sum()
+    if total <= 0:
+        raise ValueError("degenerate mesh")
+    cent = (a + b + c) / 3
+    mean = (cent * area[:, None]).sum(0) / total
+    # Second moment of each triangle about `mean`: A/12 (sum vi vi^T + s s^T), s = a+b+c.
+    ra, rb, rc = a - mean, b - mean, c - mean
+    s = ra + rb + rc
+    cov = np.einsum("n,ni,nj->ij", area / 12.0, ra, ra)
+    cov += np.einsum("n,ni,nj->ij", area / 12.0, rb, rb)
+    cov += np.einsum("n,ni,nj->ij", area / 12.0, rc, rc)
+    cov += np.einsum("n,ni,nj->ij", area / 12.0, s, s)
+    w, vecs = np.linalg.eigh(cov)
+    order = np.argsort(w)[::-1]
+    axes = vecs[:, order]
+    proj = (verts - mean) @ axes
+    lo, hi = proj.min(0), proj.max(0)
+    center = mean + axes @ ((lo + hi) / 2)
+    volume = abs(float(np.einsum("ij,ij->i", a, np.cross(b, c)).sum()) / 6.0)
+    return MeshBox(center=center, axes=axes, size=hi - lo, volume=volume)
