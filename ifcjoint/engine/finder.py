@@ -189,9 +189,9 @@ def find_joints(
                 major, lat_ok_major & gap_ok_major, lat_ok_minor & gap_ok_minor
             )
             gap = np.where(major, gap_major, gap_minor)
-            # Column base: the beam's centreline lies within half its depth of the column foot.
+            # Column base: the beam's underside is within the tolerance of the column foot.
             hb_end = beam_half_h[ei]
-            at_base = ok & (loc[:, 2] < hb_end - st.tolerance)
+            at_base = ok & (loc[:, 2] <= hb_end + st.tolerance)
             # Column cap: beam end above the column top, inside its footprint.
             # (the end may overhang the cap: also test a point set back along the beam)
             back = loc - a * (reach + np.maximum(hb, hh))[:, None]
@@ -411,6 +411,9 @@ class _Zone:
     half_l: float
     back: float  # how far back along the beam the zone reaches
     front: float  # how far into the column
+    beam_end: np.ndarray  # the beam's end point
+    margin: float  # how far beyond the beam depth the zone reaches
+    face_reach: float  # the distance segment stops this far past the column face
 
 
 def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
@@ -437,27 +440,49 @@ def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
                 half_l=max(beam.width, col.width) / 2 + st.part_margin / 2,
                 back=st.part_margin,
                 front=col_extent + st.tolerance,
+                beam_end=np.asarray(j["point"], dtype=float) - t * j["gap"],
+                margin=st.part_margin,
+                face_reach=st.tolerance,
             )
         )
     return zones
 
 
 def _in_zone(z: _Zone, p: np.ndarray) -> tuple[bool, float]:
+    """Whether a point lies in the joint's zone, and how far it is from the joint's axis.
+
+    The distance is measured to the beam's centreline segment running from ``back`` behind
+    the beam end to the column face, ignoring height within the beam depth: a part
+    beside the beam's web is closer to its own joint than to a joint around the corner.
+    """
     d = p - z.origin
     a, b, c = d.dot(z.t), d.dot(z.n), d.dot(z.lat)
     inside = (-z.back <= a <= z.front) and abs(b) <= z.half_n and abs(c) <= z.half_l
-    return inside, float(math.sqrt(min(a, 0) ** 2 * 4 + max(a, 0) ** 2 + b * b + c * c))
+    a_out = max(-z.back - a, 0.0, a - z.face_reach)
+    b_out = max(abs(b) - (z.half_n - z.margin), 0.0)
+    return inside, float(math.sqrt(a_out * a_out + b_out * b_out + c * c))
 
 
-def _plate_role(z: _Zone, p: Plate, col: Member, col_frames: _Frames, ci: int) -> str:
+def _plate_role(z: _Zone, p: Plate, col_frames: _Frames, ci: int, reach: float) -> str:
+    """What a plate near a joint is, from its orientation and position.
+
+    Stiffener (normal along the column, inside its section) and web plate (parallel to the
+    web, inside the section) are ``column_plate``; a plate square to the beam at its end is an
+    ``end_plate``; a plate beside the beam web is a ``fin_plate``.
+    """
     nrm = np.array(p.normal)
     c = np.array(p.center)
-    loc = col_frames.local(np.array([ci]), c[None, :])[0]
-    inside_col = abs(loc[0]) < col_frames.half_b[ci] - 1 and abs(loc[1]) < col_frames.half_h[ci] - 1
-    if inside_col:
+    idx = np.array([ci])
+    loc = col_frames.local(idx, c[None, :])[0]
+    inside = (abs(loc[0]) < col_frames.half_b[ci] - 1) and (abs(loc[1]) < col_frames.half_h[ci] - 1)
+    along_col = abs(nrm.dot(col_frames.w[ci])) > 0.9
+    if inside and along_col:
         return "column_plate"
-    if abs(nrm.dot(z.t)) > 0.9:
+    at_end = abs((c - z.beam_end).dot(z.t)) <= p.thickness / 2 + reach
+    if abs(nrm.dot(z.t)) > 0.9 and at_end:
         return "end_plate"
+    if inside and abs(nrm.dot(col_frames.u[ci])) > 0.9:
+        return "column_plate"
     if abs(nrm.dot(z.lat)) > 0.9:
         return "fin_plate"
     return "other_plate"
@@ -551,8 +576,8 @@ def _attach_parts(
             continue
         # A plate inside the column section (stiffener, web plate) serves every joint there.
         roles = {
-            k: _plate_role(zone_by_k[k], p, joint_by_k[k]["column"], col_frames,
-                           joint_by_k[k]["col_idx"])
+            k: _plate_role(zone_by_k[k], p, col_frames, joint_by_k[k]["col_idx"],
+                           st.tolerance + st.end_plate_allowance)
             for k in ks
         }
         shared = [k for k in ks if roles[k] == "column_plate"]
