@@ -69,6 +69,8 @@ class Options:
     bays_y: int = 2
     storeys: int = 2
     demo_details: bool = True  # the hand-planned joint mix; False = uniform (benchmark)
+    beams_to_axis: bool = False  # beam bodies drawn to the column centrelines (overlapping)
+    split_columns: bool = False  # one column piece per storey, spliced 600 mm above floor
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -305,6 +307,7 @@ class Frame:
         self.parts_by_column: dict[str, list] = {}
         self.counter = 0
         self.rel_index = 0
+        self.upper_cols: dict = {}
         w = self.w
         f = w.f
         rot = math.radians(opt.rotation_deg)
@@ -400,8 +403,12 @@ class Frame:
             item = w.extrusion(w.i_profile(section), length, pos)
             el.Representation = w.maybe_mapped([item], "SweptSolid")
 
-    def beam(self, key: str, section: str, p0, p1, top_z_offset: float = 0.0, name=None):
-        """A horizontal beam from p0 to p1 (centre points of its end faces, top-of-steel z)."""
+    def beam(self, key: str, section: str, p0, p1, ext=(0.0, 0.0), name=None):
+        """A horizontal beam from p0 to p1 (centre points of its end faces, top-of-steel z).
+
+        ``ext`` lengthens the body past p0 / p1 (a beam drawn to the column axis); the returned
+        frame and length stay those of the physical beam between p0 and p1.
+        """
         w = self.w
         p0, p1 = np.asarray(p0, float), np.asarray(p1, float)
         h = SECTIONS[section][0]
@@ -413,8 +420,8 @@ class Frame:
         m = frame_matrix((p0[0], p0[1], p0[2] - ze), d, (0, 0, 1))
         el.ObjectPlacement = w.placement(m, st.ObjectPlacement)
         # Body: extrude along local X; section centre h/2 below the placement.
-        pos = frame_matrix((0, 0, -h / 2), (0, 1, 0), (1, 0, 0))
-        self.member_body(el, section, length, pos)
+        pos = frame_matrix((-ext[0], 0, -h / 2), (0, 1, 0), (1, 0, 0))
+        self.member_body(el, section, length + ext[0] + ext[1], pos)
         self.contain(el, p0[2] - h)
         self.assign_material(el, "S355J2" if section != "IPE 200" else "S275JR")
         world = np.eye(4)
@@ -618,7 +625,8 @@ class Frame:
             "column": column.GlobalId,
             "axis": axis,
             "kind": spec.kind,
-            "first_guess": spec.first_guess,
+            "first_guess": ("unknown" if (self.opt.beams_to_axis and spec.kind == "welded"
+                                          and axis == "major") else spec.first_guess),
             "plates": sorted(plates),
             "bolts": sorted(bolts),
             "welds": sorted(welds),
@@ -649,7 +657,14 @@ class Frame:
         cols = {}
         for i in range(opt.bays_x + 1):
             for j in range(opt.bays_y + 1):
-                cols[(i, j)] = self.column(i, j, 0.0, top)
+                if opt.split_columns and len(self.levels) > 1:
+                    cut = self.levels[0] + 600.0
+                    lower = self.column(i, j, 0.0, cut)
+                    upper = self.column(i, j, cut, top)
+                    cols[(i, j)] = lower
+                    self.upper_cols[(i, j)] = upper
+                else:
+                    cols[(i, j)] = self.column(i, j, 0.0, top)
         if opt.detail_parts:
             self.column_bases(cols)
         plan = self.plan()
@@ -662,7 +677,7 @@ class Frame:
                     key = f"X/{li}/{j}/{i}"
                     specs = plan.get(key, (extended(h), extended(h)))
                     if specs == "splice":
-                        self.spliced_beam(key, cols, i, j, z, section)
+                        self.spliced_beam(key, self.upper_cols or cols, i, j, z, section)
                         continue
                     s_start, s_end = specs
                     x0 = i * self.dx + hc / 2 + (s_start.tp + s_start.plate_gap
@@ -672,8 +687,11 @@ class Frame:
                                                        if s_end.with_plate and s_end.kind
                                                        .endswith("end_plate") else 0.0)
                     y = j * self.dy
-                    info = self.beam(key, section, (x0, y, z), (x1, y, z))
-                    c0, c1 = cols[(i, j)][0], cols[(i + 1, j)][0]
+                    ext = ((x0 - i * self.dx, (i + 1) * self.dx - x1) if opt.beams_to_axis
+                           else (0.0, 0.0))
+                    info = self.beam(key, section, (x0, y, z), (x1, y, z), ext=ext)
+                    cset = self.upper_cols if (li > 0 and self.upper_cols) else cols
+                    c0, c1 = cset[(i, j)][0], cset[(i + 1, j)][0]
                     self.joint(s_start, info, "start", c0, None, "major", section, z,
                                key + "/s")
                     self.joint(s_end, info, "end", c1, None, "major", section, z, key + "/e")
@@ -808,7 +826,8 @@ class Frame:
         x0 = i * self.dx + hc / 2 + spec.tp
         info = self.beam("cantilever", "IPE 200", (x0, j * self.dy, zc),
                          (x0 + 1500.0, j * self.dy, zc), name="Canopy cantilever")
-        self.joint(spec, info, "start", cols[(i, j)][0], None, "major", "IPE 200", zc,
+        self.joint(spec, info, "start", (self.upper_cols or cols)[(i, j)][0], None, "major",
+                   "IPE 200", zc,
                    "cantilever/s")
         self.other_end(info, "end", "free_end")
         # Ground tie IPE 200 between A1 and A2 at the column feet (top of steel at +200).

@@ -478,7 +478,10 @@ def _plate_role(z: _Zone, p: Plate, col_frames: _Frames, ci: int, reach: float) 
     along_col = abs(nrm.dot(col_frames.w[ci])) > 0.9
     if inside and along_col:
         return "column_plate"
-    at_end = abs((c - z.beam_end).dot(z.t)) <= p.thickness / 2 + reach
+    # At the beam's end, or at the column face when the beam is drawn into the column.
+    at_end = min(abs((c - z.beam_end).dot(z.t)), abs((c - z.origin).dot(z.t))) <= (
+        p.thickness / 2 + reach
+    )
     if abs(nrm.dot(z.t)) > 0.9 and at_end:
         return "end_plate"
     if inside and abs(nrm.dot(col_frames.u[ci])) > 0.9:
@@ -609,7 +612,7 @@ def _attach_parts(
             continue
         dist = {k: d for k, _, d in cands}
         k = min(ks, key=lambda kk: dist.get(kk, 0.0))
-        role = "bolt" if f.kind == "bolt" else "other_fastener"
+        role = {"bolt": "bolt", "weld": "weld"}.get(f.kind, "other_fastener")
         bolts_of[k].append(PartLink(guid=f.guid, source=source, role=role))
 
     out = {}

@@ -22,7 +22,7 @@ class PartLink:
 
     guid: str
     source: str  # realizing | assembly | connects | geometry
-    role: str  # end_plate | fin_plate | column_plate | other_plate | bolt | other_fastener
+    role: str  # end_plate | fin_plate | column_plate | other_plate | bolt | weld | other_fastener
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -46,7 +46,7 @@ class Joint:
             ``unknown``), refined by the anatomy step.
         archetype_reason: why, in words.
         plates: plates attached, with the reason.
-        bolts: fasteners attached, with the reason.
+        bolts: fasteners attached (bolts, welds, others: see each link's role), with the reason.
         findings: detailing findings (filled by the anatomy/detailing step).
     """
 

@@ -148,6 +148,7 @@ class ProfileInfo:
     tf: float | None = None
     r: float | None = None
     hollow: bool = False
+    depth_axis: str = "y"  # profile axis along the section depth (IFC puts I depths on y)
     extra: dict = field(default_factory=dict)
 
     @property
@@ -226,6 +227,24 @@ def _arc_points(circle, p0: np.ndarray, p1: np.ndarray, sense: bool) -> np.ndarr
     return c + circle.Radius * np.c_[np.cos(ang), np.sin(ang)]
 
 
+def _second_moments(pts: np.ndarray) -> tuple[float, float]:
+    """Second moments of area (about the centroid) of a closed polygon: (Ixx, Iyy).
+
+    Ixx = integral of y^2 dA, Iyy = integral of x^2 dA (shoelace formulas).
+    """
+    x, y = pts[:, 0], pts[:, 1]
+    xn, yn = np.roll(x, -1), np.roll(y, -1)
+    cr = x * yn - xn * y
+    a = cr.sum() / 2
+    if abs(a) < 1e-12:
+        return 0.0, 0.0
+    cx = ((x + xn) * cr).sum() / (6 * a)
+    cy = ((y + yn) * cr).sum() / (6 * a)
+    ixx = ((y * y + y * yn + yn * yn) * cr).sum() / 12 - a * cy * cy
+    iyy = ((x * x + x * xn + xn * xn) * cr).sum() / 12 - a * cx * cx
+    return abs(float(ixx)), abs(float(iyy))
+
+
 def profile_info(profile) -> ProfileInfo:
     """Box, area and dimensions of an IFC profile definition (model units)."""
     t = profile.is_a()
@@ -295,8 +314,14 @@ def profile_info(profile) -> ProfileInfo:
             except Exception:  # noqa: BLE001 - a bad void only spoils the area
                 pass
         x0, x1, y0, y1 = _box_of(outer, m)
-        return ProfileInfo(t, name, x0, x1, y0, y1, area=area, h=y1 - y0, b=x1 - x0,
-                           extra={"outline": outer})
+        # Exporters draw I sections lying on their side too: the depth is the direction
+        # along which the area is spread most (larger second moment).
+        pts = outer @ m[:2, :2].T
+        ixx, iyy = _second_moments(pts)
+        depth_axis = "x" if iyy > 1.2 * ixx else "y"
+        h, b = (x1 - x0, y1 - y0) if depth_axis == "x" else (y1 - y0, x1 - x0)
+        return ProfileInfo(t, name, x0, x1, y0, y1, area=area, h=h, b=b,
+                           depth_axis=depth_axis, extra={"outline": outer})
     if t == "IfcDerivedProfileDef":
         parent = profile_info(profile.ParentProfile)
         op = cartesian_operator(profile.Operator)
@@ -307,10 +332,12 @@ def profile_info(profile) -> ProfileInfo:
         x0, x1, y0, y1 = _box_of(c, mm)
         d = np.array(op[:2, :2])
         swapped = abs(d[0, 1]) > abs(d[0, 0])
+        axis = parent.depth_axis
+        if swapped:
+            axis = "x" if axis == "y" else "y"
         return ProfileInfo(t, name or parent.name, x0, x1, y0, y1, area=parent.area,
-                           h=parent.b if swapped else parent.h,
-                           b=parent.h if swapped else parent.b,
-                           tw=parent.tw, tf=parent.tf, r=parent.r, hollow=parent.hollow,
+                           h=parent.h, b=parent.b, tw=parent.tw, tf=parent.tf, r=parent.r,
+                           hollow=parent.hollow, depth_axis=axis,
                            extra={"parent": parent.ifc_type, "rotated": swapped})
     if t == "IfcCompositeProfileDef":
         parts = [profile_info(p) for p in profile.Profiles]

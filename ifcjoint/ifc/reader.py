@@ -292,14 +292,15 @@ class _Reader:
         a = main.origin + main.axes @ np.array([cx, cy, main.lo[2]])
         b = main.origin + main.axes @ np.array([cx, cy, main.hi[2]])
         s = self.s
+        di, wi = (0, 1) if prof is not None and prof.depth_axis == "x" else (1, 0)
         self._add_member(
             el,
             start=a * s,
             end=b * s,
-            depth_dir=main.axes[:, 1],
-            width_dir=main.axes[:, 0],
-            depth=size[1] * s,
-            width=size[0] * s,
+            depth_dir=main.axes[:, di],
+            width_dir=main.axes[:, wi],
+            depth=size[di] * s,
+            width=size[wi] * s,
             tw=prof.tw * s if prof and prof.tw else None,
             tf=prof.tf * s if prof and prof.tf else None,
             profile_name=prof.name if prof else "",

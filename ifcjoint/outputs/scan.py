@@ -50,7 +50,9 @@ def scan_to_dict(result: ScanResult) -> dict:
                 "archetype": j.archetype,
                 "archetype_reason": j.archetype_reason,
                 "plates": [p.guid for p in j.plates],
-                "bolts": [b.guid for b in j.bolts],
+                "bolts": [b.guid for b in j.bolts if b.role == "bolt"],
+                "welds": [b.guid for b in j.bolts if b.role == "weld"],
+                "other_fasteners": [b.guid for b in j.bolts if b.role == "other_fastener"],
                 "parts": [
                     {"guid": p.guid, "role": p.role, "source": p.source}
                     for p in (*j.plates, *j.bolts)
@@ -138,7 +140,8 @@ def scan_dataframe(result: ScanResult) -> pd.DataFrame:
                 "n_plates": len(j.plates),
                 "n_bolts": sum(1 for b in j.bolts if b.role == "bolt"),
                 "plates": " ".join(p.guid for p in j.plates),
-                "bolts": " ".join(b.guid for b in j.bolts),
+                "bolts": " ".join(b.guid for b in j.bolts if b.role == "bolt"),
+                "welds": " ".join(b.guid for b in j.bolts if b.role == "weld"),
                 "gap_mm": round(j.gap, 1),
                 "x_mm": round(j.point[0], 1),
                 "y_mm": round(j.point[1], 1),
@@ -147,7 +150,7 @@ def scan_dataframe(result: ScanResult) -> pd.DataFrame:
         )
     cols = [
         "joint_id", "label", "storey", "beam_guid", "beam_end", "column_guid", "axis", "side",
-        "partner", "archetype", "archetype_reason", "n_plates", "n_bolts", "plates", "bolts",
+        "partner", "archetype", "archetype_reason", "n_plates", "n_bolts", "plates", "bolts", "welds",
         "gap_mm", "x_mm", "y_mm", "z_mm",
     ]
     return pd.DataFrame(rows, columns=cols)
@@ -157,7 +160,7 @@ def write_scan_csv(result: ScanResult, path: str | Path) -> None:
     """Write one CSV row per joint (atomically); model text is made formula-safe."""
     df = scan_dataframe(result)
     for c in df.columns:
-        if df[c].dtype == object:
+        if not pd.api.types.is_numeric_dtype(df[c]):
             df[c] = df[c].map(safe_cell)
     _atomic_write(path, df.to_csv(index=False))
 

@@ -10,15 +10,6 @@ import numpy as np
 from ifcjoint.engine.results import ScanResult
 
 
-def _end_of(result: ScanResult, beam: str, truth_point_mm, unit_scale_truth: float = 1.0):
-    """Which end ('start'/'end') of the scanned beam lies at the truth end point."""
-    m = next(x for x in result.model.members if x.guid == beam)
-    # The truth is in the frame's storey coordinates before plan rotation; compare lengths
-    # instead: the end whose distance to the other end's... use both candidates' z and the
-    # distance to the beam's far end, which rotation and offset preserve.
-    return m
-
-
 @dataclass
 class Comparison:
     missing: list = field(default_factory=list)  # truth joints not found
@@ -91,7 +82,7 @@ def compare(result: ScanResult, truth: dict) -> Comparison:
             cmp.wrong_axis.append(t["key"])
         plates = sorted(p.guid for p in j.plates)
         bolts = sorted(b.guid for b in j.bolts if b.role == "bolt")
-        welds = sorted(b.guid for b in j.bolts if b.role != "bolt")
+        welds = sorted(b.guid for b in j.bolts if b.role == "weld")
         if plates != t["plates"] or bolts != t["bolts"] or welds != t["welds"]:
             cmp.wrong_parts.append(
                 (t["key"], {"plates": (len(plates), len(t["plates"])),

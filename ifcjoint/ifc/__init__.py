@@ -1,0 +1,1 @@
+"""Everything that touches ifcopenshell: opening models, reading geometry, (later) writing."""

@@ -1,0 +1,1 @@
+"""Renderers of the one result object: text summary, JSON, CSV (later BCF, HTML)."""

@@ -1,0 +1,63 @@
+"""Shared fixtures: bundled demo models, generated variants, the shared IFC corpus."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+ROOT = Path(__file__).resolve().parents[1]
+SAMPLES = ROOT / "sample_models"
+SHARED = ROOT.parent / "shared"
+CORPUS = SHARED / "ifc-corpus"
+
+
+@pytest.fixture(scope="session")
+def samples() -> Path:
+    return SAMPLES
+
+
+def load_truth(name: str) -> dict:
+    return json.loads((SAMPLES / f"{name}.truth.json").read_text())
+
+
+@pytest.fixture(scope="session")
+def build_variant(tmp_path_factory):
+    """Build (once per session) a generated model variant; returns (path, truth)."""
+    from sample_models.generate import Options, build
+
+    cache: dict = {}
+
+    def make(**kw):
+        key = tuple(sorted(kw.items()))
+        if key not in cache:
+            d = tmp_path_factory.mktemp("variant")
+            path = d / "model.ifc"
+            truth = build(Options(**kw), path)
+            cache[key] = (path, truth)
+        return cache[key]
+
+    return make
+
+
+@pytest.fixture(scope="session")
+def scan_cached():
+    """Scan a path once per session."""
+    from ifcjoint.scanner import scan
+
+    cache: dict = {}
+
+    def run(path, **kw):
+        key = (str(path), tuple(sorted(kw.items())))
+        if key not in cache:
+            cache[key] = scan(path, **kw)
+        return cache[key]
+
+    return run
+
+
+def corpus_files() -> list[Path]:
+    if not CORPUS.is_dir():
+        return []
+    return sorted(p for p in CORPUS.iterdir() if p.suffix.lower() in (".ifc", ".ifczip"))

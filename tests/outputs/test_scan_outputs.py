@@ -1,0 +1,42 @@
+"""Renderers: CSV cells from the model cannot run as spreadsheet formulas; writes are atomic."""
+
+from __future__ import annotations
+
+import pandas as pd
+
+from ifcjoint.engine.finder import find_joints
+from ifcjoint.engine.model import Member, ModelContents
+from ifcjoint.outputs.scan import safe_cell, scan_to_dict, write_scan_csv, write_scan_json
+
+
+def _result(storey: str):
+    col = Member(guid="C", ifc_class="IfcColumn", name="c", kind="column", start=(0, 0, 0),
+                 end=(0, 0, 8000), depth_dir=(1.0, 0, 0), width_dir=(0, -1.0, 0), depth=260,
+                 width=260, steel="steel", storey=storey)
+    beam = Member(guid="B", ifc_class="IfcBeam", name="b", kind="beam", start=(150, 0, 3800),
+                  end=(6000, 0, 3800), depth_dir=(0, 0, 1.0), width_dir=(0, 1.0, 0), depth=400,
+                  width=180, steel="steel", storey=storey)
+    m = ModelContents(path="mem", schema="TEST", length_unit_to_mm=1.0, members=(col, beam))
+    return find_joints(m)
+
+
+def test_formula_like_model_text_is_neutralised_in_csv(tmp_path):
+    r = _result('=HYPERLINK("http://x")')
+    p = tmp_path / "o.csv"
+    write_scan_csv(r, p)
+    df = pd.read_csv(p)
+    assert df.loc[0, "storey"].startswith("'=")
+    assert df.loc[0, "label"].startswith("'=")
+    assert safe_cell("+1") == "'+1" and safe_cell("@a") == "'@a" and safe_cell("ok") == "ok"
+    assert safe_cell(-3.5) == -3.5  # numbers stay numbers
+
+
+def test_json_has_tool_model_and_joint_fields(tmp_path):
+    r = _result("Level 1")
+    d = scan_to_dict(r)
+    assert d["tool"]["name"] == "ifcjoint"
+    j = d["joints"][0]
+    assert (j["beam"], j["beam_end"], j["column"], j["axis"]) == ("B", "start", "C", "major")
+    p = tmp_path / "sub" / "o.json"
+    write_scan_json(r, p)
+    assert p.exists() and not list(p.parent.glob(".*tmp"))
