@@ -308,6 +308,7 @@ class Frame:
         self.counter = 0
         self.rel_index = 0
         self.upper_cols: dict = {}
+        self.material_members: dict[str, list] = {}
         w = self.w
         f = w.f
         rot = math.radians(opt.rotation_deg)
@@ -387,8 +388,13 @@ class Frame:
         return col, np.array([x, y, z0]), np.array([x, y, z1])
 
     def assign_material(self, el, name: str):
-        ifcopenshell.api.material.assign_material(self.w.f, products=[el], type="IfcMaterial",
-                                                  material=self.w.material(name))
+        self.material_members.setdefault(name, []).append(el)
+
+    def flush_materials(self):
+        for name, els in self.material_members.items():
+            ifcopenshell.api.material.assign_material(self.w.f, products=els,
+                                                      type="IfcMaterial",
+                                                      material=self.w.material(name))
 
     def member_body(self, el, section: str, length: float, pos: np.ndarray):
         """Body of a member: its local Z (after `pos`) is the member axis."""
@@ -696,13 +702,14 @@ class Frame:
                                key + "/s")
                     self.joint(s_end, info, "end", c1, None, "major", section, z, key + "/e")
         # Beams along Y meet column webs (minor axis), first level only, fin plates.
-        if opt.bays_y:
-            z = self.levels[0]
+        y_levels = [self.levels[0]] if opt.demo_details else self.levels
+        for li, z in enumerate(y_levels if opt.bays_y else []):
             section = "IPE 300"
             h = SECTIONS[section][0]
+            cset = self.upper_cols if (li > 0 and self.upper_cols) else cols
             for i in range(opt.bays_x + 1):
                 for j in range(opt.bays_y):
-                    key = f"Y/0/{i}/{j}"
+                    key = f"Y/{li}/{i}/{j}"
                     y0 = j * self.dy + bc / 2 + 10.0
                     y1 = (j + 1) * self.dy - bc / 2 - 10.0
                     x = i * self.dx
@@ -711,14 +718,15 @@ class Frame:
                     if not opt.detail_parts:
                         spec = JointSpec(kind="none", first_guess="incomplete",
                                          with_plate=False, with_bolts=False)
-                    self.joint(spec, info, "start", cols[(i, j)][0], None, "minor", section, z,
-                               key + "/s")
-                    self.joint(spec, info, "end", cols[(i, j + 1)][0], None, "minor", section,
+                    self.joint(spec, info, "start", cset[(i, j)][0], None, "minor", section,
+                               z, key + "/s")
+                    self.joint(spec, info, "end", cset[(i, j + 1)][0], None, "minor", section,
                                z, key + "/e")
         if opt.demo_details:
             self.extras(cols)
         self.pair_partners()
         self.finish_relations()
+        self.flush_materials()
 
     def pair_partners(self):
         """Joints on opposite faces of one column at one level are double-sided partners."""
@@ -894,6 +902,10 @@ class Frame:
 
     def write(self, path: Path) -> dict:
         f = self.w.f
+        # Relationships made by ifcopenshell.api carry random GlobalIds: make them stable.
+        for rel in f.by_type("IfcRelationship"):
+            if rel.is_a() in ("IfcRelAggregates", "IfcRelAssociatesMaterial"):
+                rel.GlobalId = gid(f"rel/{rel.is_a()}/{rel.id()}")
         for oh in f.by_type("IfcOwnerHistory"):
             oh.CreationDate = FIXED_TIME
             if oh.LastModifiedDate is not None:

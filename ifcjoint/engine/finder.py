@@ -258,15 +258,18 @@ def find_joints(
     attached = _attach_parts(model, joints_raw, cf, st)
 
     grid = _GridLabeller(model)
+    labels = grid.labels([j["beam"].storey for j in joints_raw],
+                         np.array([j["point"] for j in joints_raw]).reshape(-1, 3),
+                         [j["column"] for j in joints_raw])
     joints: list[Joint] = []
-    for j in joints_raw:
+    for j, label in zip(joints_raw, labels, strict=True):
         jid = joint_id(j["beam"].guid, j["beam_end"])
         plates, bolts = attached.get(j["k"], ((), ()))
         arche, why = _first_archetype(j, plates, bolts, model, st)
         joints.append(
             Joint(
                 id=jid,
-                label=grid.label(j["beam"].storey, j["point"], j["column"]),
+                label=label,
                 beam=j["beam"].guid,
                 beam_end=j["beam_end"],
                 column=j["column"].guid,
@@ -283,16 +286,14 @@ def find_joints(
                 storey=j["beam"].storey,
             )
         )
+    storey_of = {b.guid: b.storey for b in beams}
+    olabels = grid.labels([storey_of.get(o.beam, "") for o in others],
+                          np.array([o.point for o in others]).reshape(-1, 3),
+                          [None] * len(others))
     others = [
-        OtherBeamEnd(
-            beam=o.beam,
-            beam_end=o.beam_end,
-            kind=o.kind,
-            other=o.other,
-            point=o.point,
-            label=grid.label(_storey_of(beams, o.beam), np.array(o.point), None),
-        )
-        for o in others
+        OtherBeamEnd(beam=o.beam, beam_end=o.beam_end, kind=o.kind, other=o.other,
+                     point=o.point, label=lab)
+        for o, lab in zip(others, olabels, strict=True)
     ]
     others.sort(key=lambda o: (o.beam, o.beam_end))
     joints.sort(key=lambda j: (j.label, j.id))
@@ -300,13 +301,6 @@ def find_joints(
         progress("joints", nb, nb)
     return ScanResult(model=model, joints=tuple(joints), other_beam_ends=tuple(others),
                       settings=asdict(st))
-
-
-def _storey_of(beams: Sequence[Member], guid: str) -> str:
-    for b in beams:
-        if b.guid == guid:
-            return b.storey
-    return ""
 
 
 def _other(beam: Member, end: str, kind: str, other: str | None, pt: np.ndarray) -> OtherBeamEnd:
@@ -417,35 +411,60 @@ class _Zone:
 
 
 def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
+    """One zone per joint, computed for all joints at once."""
+    if not joints:
+        return []
+    s = np.array([j["beam"].start for j in joints], dtype=float)
+    e = np.array([j["beam"].end for j in joints], dtype=float)
+    at_end = np.array([j["beam_end"] == "end" for j in joints])
+    t = _unit(np.where(at_end[:, None], e - s, s - e))
+    n = np.array([j["beam"].depth_dir for j in joints], dtype=float)
+    n = _unit(n - (n * t).sum(1, keepdims=True) * t)
+    n = np.where(n[:, 2:3] < 0, -n, n)
+    lat = np.cross(t, n)
+    origin = np.array([j["point"] for j in joints], dtype=float)
+    gap = np.array([j["gap"] for j in joints], dtype=float)
+    beam_end = origin - t * gap[:, None]
     zones = []
-    for j in joints:
+    for i, j in enumerate(joints):
         beam: Member = j["beam"]
         col: Member = j["column"]
-        s, e = np.array(beam.start), np.array(beam.end)
-        t = _unit(e - s) if j["beam_end"] == "end" else _unit(s - e)
-        n = np.array(beam.depth_dir, dtype=float)
-        n = _unit(n - n.dot(t) * t)
-        if n[2] < 0:
-            n = -n
-        lat = np.cross(t, n)
-        col_extent = 2 * (col.depth / 2 if j["axis"] == "major" else col.width / 2)
+        col_extent = col.depth if j["axis"] == "major" else col.width
         zones.append(
             _Zone(
                 k=j["k"],
-                origin=np.asarray(j["point"], dtype=float),
-                t=t,
-                n=n,
-                lat=lat,
+                origin=origin[i],
+                t=t[i],
+                n=n[i],
+                lat=lat[i],
                 half_n=beam.depth / 2 + st.part_margin,
                 half_l=max(beam.width, col.width) / 2 + st.part_margin / 2,
                 back=st.part_margin,
                 front=col_extent + st.tolerance,
-                beam_end=np.asarray(j["point"], dtype=float) - t * j["gap"],
+                beam_end=beam_end[i],
                 margin=st.part_margin,
                 face_reach=st.tolerance,
             )
         )
     return zones
+
+
+def _zone_boxes(zones: list[_Zone]) -> np.ndarray:
+    """Plan bounding boxes of the zones (shapely boxes), vectorised over zones."""
+    o = np.array([z.origin for z in zones])
+    t = np.array([z.t for z in zones])
+    n = np.array([z.n for z in zones])
+    lat = np.array([z.lat for z in zones])
+    a = np.array([[-z.back, z.front] for z in zones])
+    b = np.array([[-z.half_n, z.half_n] for z in zones])
+    c = np.array([[-z.half_l, z.half_l] for z in zones])
+    corners = [
+        o + a[:, i, None] * t + b[:, jj, None] * n + c[:, kk, None] * lat
+        for i in (0, 1) for jj in (0, 1) for kk in (0, 1)
+    ]
+    cc = np.stack(corners, axis=1)
+    lo, hi = cc[:, :, :2].min(1), cc[:, :, :2].max(1)
+    return shapely.box(lo[:, 0], lo[:, 1], hi[:, 0], hi[:, 1])
 
 
 def _in_zone(z: _Zone, p: np.ndarray) -> tuple[bool, float]:
@@ -519,17 +538,11 @@ def _attach_parts(
     zones = _zones(joints, st)
     zone_by_k = {z.k: z for z in zones}
     joint_by_k = {j["k"]: j for j in joints}
-    # Plan boxes of the zones for the spatial index.
-    boxes = []
-    for z in zones:
-        corners = []
-        for a in (-z.back, z.front):
-            for b in (-z.half_n, z.half_n):
-                for c in (-z.half_l, z.half_l):
-                    corners.append(z.origin + a * z.t + b * z.n + c * z.lat)
-        cc = np.array(corners)
-        boxes.append(shapely.box(*cc[:, :2].min(0), *cc[:, :2].max(0)))
-    tree = shapely.STRtree(boxes)
+    tree = shapely.STRtree(_zone_boxes(zones))
+    by_member: dict[str, list[int]] = defaultdict(list)
+    for j in joints:
+        by_member[j["beam"].guid].append(j["k"])
+        by_member[j["column"].guid].append(j["k"])
 
     order = {"realizing": 0, "assembly": 1, "connects": 2}
     links: dict[str, list[tuple[str, set[str]]]] = defaultdict(list)
@@ -549,11 +562,13 @@ def _attach_parts(
     def by_relation(guid: str, cands: list[tuple[int, bool, float]]) -> tuple[list[int], str]:
         """Joints named by the part's relations, strongest relation first."""
         for source, members in links.get(guid, []):
-            both = [
-                j["k"]
-                for j in joints
-                if j["beam"].guid in members and j["column"].guid in members
-            ]
+            named_any = {k for m in members for k in by_member.get(m, ())}
+            both = sorted(
+                k
+                for k in named_any
+                if joint_by_k[k]["beam"].guid in members
+                and joint_by_k[k]["column"].guid in members
+            )
             if both and source in ("realizing", "connects"):
                 return both, source
             near = {k for k, inside, _ in cands if inside}
@@ -659,24 +674,39 @@ class _GridLabeller:
             self.p0 = np.array([a.p0 for a in self.axes])
             d = np.array([a.p1 for a in self.axes]) - self.p0
             self.d = _unit(d)
+            self.fam = np.array([a.family for a in self.axes])
+            self.tags = [a.tag for a in self.axes]
 
-    def label(self, storey: str, point: np.ndarray, column: Member | None) -> str:
-        p = np.asarray(point, dtype=float)
-        if column is not None:
-            # The column's axis at the joint height names the grid cell best.
-            s, e = np.array(column.start), np.array(column.end)
-            w = _unit(e - s)
-            p = s + w * (p - s).dot(w)
-        where = None
-        if self.axes:
-            rel = p[:2] - self.p0
-            dist = np.abs(rel[:, 0] * self.d[:, 1] - rel[:, 1] * self.d[:, 0])
-            tags: dict[str, tuple[float, str]] = {}
-            for ax, dd in zip(self.axes, dist, strict=True):
-                if dd <= self.snap and (ax.family not in tags or dd < tags[ax.family][0]):
-                    tags[ax.family] = (float(dd), ax.tag)
-            if len(tags) >= 2:
-                where = "/".join(tags[f][1] for f in sorted(tags))
-        if where is None:
-            where = f"({p[0]:.0f}, {p[1]:.0f}, {p[2]:.0f})"
-        return f"{storey} {where}".strip() if storey else where
+    def labels(self, storeys: Sequence[str], points: np.ndarray,
+               columns: Sequence[Member | None]) -> list[str]:
+        """Labels for many points at once (vectorised over points and grid lines)."""
+        p = np.asarray(points, dtype=float).reshape(-1, 3).copy()
+        has = np.array([c is not None for c in columns], dtype=bool)
+        if has.any():
+            cs = np.array([c.start if c is not None else (0, 0, 0) for c in columns], float)
+            ce = np.array([c.end if c is not None else (0, 0, 1) for c in columns], float)
+            w = _unit(ce - cs)
+            proj = cs + w * ((p - cs) * w).sum(1, keepdims=True)
+            p[has] = proj[has]
+        wheres: list[str | None] = [None] * len(p)
+        if self.axes and len(p):
+            rel = p[:, None, :2] - self.p0[None, :, :]
+            dist = np.abs(rel[..., 0] * self.d[None, :, 1] - rel[..., 1] * self.d[None, :, 0])
+            fam_tags = []
+            for fam in ("U", "V", "W"):
+                cols = np.flatnonzero(self.fam == fam)
+                if not len(cols):
+                    continue
+                dd = dist[:, cols]
+                best = dd.argmin(1)
+                ok = dd[np.arange(len(p)), best] <= self.snap
+                fam_tags.append((cols[best], ok))
+            for i in range(len(p)):
+                parts = [self.tags[idx[i]] for idx, ok in fam_tags if ok[i]]
+                if len(parts) >= 2:
+                    wheres[i] = "/".join(parts)
+        out = []
+        for i, st in enumerate(storeys):
+            where = wheres[i] or f"({p[i, 0]:.0f}, {p[i, 1]:.0f}, {p[i, 2]:.0f})"
+            out.append(f"{st} {where}".strip() if st else where)
+        return out

@@ -31,7 +31,14 @@ from ifcjoint.engine.model import (
     Unreadable,
 )
 from ifcjoint.errors import ModelError
-from ifcjoint.ifc.geometry import NeedsMesh, PlacementCache, SolidBox, solid_boxes
+from ifcjoint.ifc.geometry import (
+    NeedsMesh,
+    PlacementCache,
+    SolidBox,
+    att,
+    reset_caches,
+    solid_boxes,
+)
 from ifcjoint.ifc.mesh import principal_box, tessellate
 from ifcjoint.ifc.recognition import Rules, load_rules
 
@@ -134,30 +141,61 @@ def length_scale_to_mm(f: ifcopenshell.file, path: str, assume: str | None) -> t
 # --- text helpers ------------------------------------------------------------------------
 
 
-def _texts(el) -> dict[str, str]:
-    out = {}
-    for a in ("Name", "ObjectType", "Description", "Tag", "PredefinedType"):
-        v = getattr(el, a, None)
-        if v is not None:
-            out[a] = str(v)
-    try:
-        t = ifcopenshell.util.element.get_type(el)
-    except Exception:  # noqa: BLE001
-        t = None
-    if t is not None and t.Name:
-        out["TypeName"] = str(t.Name)
-    return out
+class _Lookups:
+    """Type names and materials of every element, read once from the relationships."""
+
+    def __init__(self, f: ifcopenshell.file) -> None:
+        self.type_name: dict[int, str] = {}
+        for rel in f.by_type("IfcRelDefinesByType"):
+            t = rel.RelatingType
+            if t is not None and t.Name:
+                for el in rel.RelatedObjects:
+                    self.type_name[el.id()] = str(t.Name)
+        self.material_of: dict[int, object] = {}
+        type_mat: dict[int, object] = {}
+        for rel in f.by_type("IfcRelAssociatesMaterial"):
+            for el in rel.RelatedObjects:
+                if el.is_a("IfcTypeObject"):
+                    type_mat[el.id()] = rel.RelatingMaterial
+                else:
+                    self.material_of[el.id()] = rel.RelatingMaterial
+        # Elements without their own material take their type's.
+        if type_mat:
+            for rel in f.by_type("IfcRelDefinesByType"):
+                m = type_mat.get(rel.RelatingType.id()) if rel.RelatingType else None
+                if m is not None:
+                    for el in rel.RelatedObjects:
+                        self.material_of.setdefault(el.id(), m)
+        self._text_cache: dict[int, tuple[str, str]] = {}
+
+    def texts(self, el) -> dict[str, str]:
+        out = {}
+        for a in ("Name", "ObjectType", "Description", "Tag", "PredefinedType"):
+            try:
+                v = att(el, a)
+            except (AttributeError, RuntimeError, ValueError):
+                continue
+            if v is not None:
+                out[a] = str(v)
+        tn = self.type_name.get(el.id())
+        if tn:
+            out["TypeName"] = tn
+        return out
+
+    def material(self, el) -> tuple[str, str]:
+        """Material name(s) and material-profile name(s) of an element, joined."""
+        mat = self.material_of.get(el.id())
+        if mat is None:
+            return "", ""
+        hit = self._text_cache.get(mat.id())
+        if hit is None:
+            hit = self._text_cache[mat.id()] = _material_text(mat)
+        return hit
 
 
-def _material_text(el) -> tuple[str, str]:
-    """Material name(s) and material profile name(s) of an element, joined."""
-    try:
-        mat = ifcopenshell.util.element.get_material(el, should_skip_usage=True)
-    except Exception:  # noqa: BLE001
-        mat = None
+def _material_text(mat) -> tuple[str, str]:
+    """Material name(s) and material profile name(s) of a material definition, joined."""
     names, profiles = [], []
-    if mat is None:
-        return "", ""
     stack = [mat]
     while stack:
         m = stack.pop()
@@ -215,6 +253,7 @@ class _Reader:
         self.unreadable: list[Unreadable] = []
         self.notes: list[str] = []
         self.storey = self._storey_map()
+        self.lookups = _Lookups(f)
         self.pending_mesh: list[tuple[object, str, dict]] = []  # (element, role, ctx)
 
     # storeys
@@ -313,8 +352,8 @@ class _Reader:
                     profile_name, profile_type, fill, source) -> None:
         axis = _unit(np.asarray(end) - np.asarray(start))
         kind = self.member_kind(el, axis)
-        mat, mat_profiles = _material_text(el)
-        texts = _texts(el)
+        mat, mat_profiles = self.lookups.material(el)
+        texts = self.lookups.texts(el)
         designation = " | ".join(
             x for x in (profile_name, mat_profiles, texts.get("Name"), texts.get("ObjectType"),
                         texts.get("TypeName"), texts.get("Description")) if x
@@ -380,7 +419,7 @@ class _Reader:
                         main.axes[:, v], size[u] / 2, size[v] / 2, size[n], "extrusion")
 
     def _add_plate(self, el, center, normal, u, v, hu, hv, t, source) -> None:
-        mat, _ = _material_text(el)
+        mat, _ = self.lookups.material(el)
         self.plates.append(
             Plate(
                 guid=el.GlobalId,
@@ -571,6 +610,14 @@ def read_model(
     rules = rules or load_rules()
     f, sha = open_model(path)
     scale, unit_source = length_scale_to_mm(f, str(path), assume_length_unit)
+    reset_caches(f)
+    try:
+        return _read(f, path, sha, scale, unit_source, rules, progress)
+    finally:
+        reset_caches(None)
+
+
+def _read(f, path, sha, scale, unit_source, rules, progress) -> ModelContents:
     r = _Reader(f, str(path), scale, rules)
 
     members = []
@@ -591,7 +638,7 @@ def read_model(
             if el.id() in seen or el.id() in plate_ids or el.is_a("IfcPlate"):
                 continue
             seen.add(el.id())
-            texts = _texts(el)
+            texts = r.lookups.texts(el)
             kind = rules.fastener_kind(el.is_a(), texts)
             if kind is not None:
                 fasteners.append((el, kind))
