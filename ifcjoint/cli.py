@@ -23,8 +23,11 @@ from ifcjoint.ifc.reader import LENGTH_UNITS
 
 EXIT_OK, EXIT_USAGE, EXIT_MODEL, EXIT_NO_STEEL, EXIT_INTERNAL = 0, 2, 3, 4, 5
 
-STAGE_NAMES = {"read": "reading elements", "tessellate": "tessellating bodies",
-               "joints": "finding joints"}
+STAGE_NAMES = {
+    "read": "reading elements",
+    "tessellate": "tessellating bodies",
+    "joints": "finding joints",
+}
 
 
 class _Bar:
@@ -43,8 +46,9 @@ class _Bar:
             self.close()
             self.stage = stage
             self.done = 0
-            self.bar = click.progressbar(length=total, label=STAGE_NAMES.get(stage, stage),
-                                         file=sys.stderr)
+            self.bar = click.progressbar(
+                length=total, label=STAGE_NAMES.get(stage, stage), file=sys.stderr
+            )
             self.bar.__enter__()
         if self.bar is not None and done > self.done:
             self.bar.update(done - self.done)
@@ -61,9 +65,11 @@ def _fail(code: int, msg: str) -> None:
     sys.exit(code)
 
 
-@click.group(context_settings={"help_option_names": ["-h", "--help"]},
-             epilog="Exit codes: 0 done, 2 usage error, 3 model unusable, 4 no steel members, "
-                    "5 internal error.")
+@click.group(
+    context_settings={"help_option_names": ["-h", "--help"]},
+    epilog="Exit codes: 0 done, 2 usage error, 3 model unusable, 4 no steel members, "
+    "5 internal error.",
+)
 @click.version_option(__version__, prog_name="ifcjoint")
 def main() -> None:
     """Scan IFC steel models for beam-to-column joints and check them."""
@@ -71,18 +77,41 @@ def main() -> None:
 
 @main.command()
 @click.argument("model", type=click.Path(dir_okay=False, path_type=str))
-@click.option("--json", "json_out", type=click.Path(dir_okay=False, writable=True),
-              help="Write the scan as JSON (schema in docs/scan-json.md).")
-@click.option("--csv", "csv_out", type=click.Path(dir_okay=False, writable=True),
-              help="Write one CSV row per joint.")
-@click.option("--tolerance", type=click.FloatRange(min=0, max=500), default=20.0,
-              show_default=True, help="How far (mm) a beam end may miss a column and still count.")
-@click.option("--length-unit", type=click.Choice(sorted(LENGTH_UNITS)), default=None,
-              help="Length unit to assume ONLY when the model declares none.")
-@click.option("--rules", "rules_file", type=click.Path(exists=True, dir_okay=False),
-              help="Extra element recognition rules (TOML, like ifcjoint/data/recognition.toml).")
+@click.option(
+    "--json",
+    "json_out",
+    type=click.Path(dir_okay=False, writable=True),
+    help="Write the scan as JSON (schema in docs/scan-json.md).",
+)
+@click.option(
+    "--csv",
+    "csv_out",
+    type=click.Path(dir_okay=False, writable=True),
+    help="Write one CSV row per joint.",
+)
+@click.option(
+    "--tolerance",
+    type=click.FloatRange(min=0, max=500),
+    default=20.0,
+    show_default=True,
+    help="How far (mm) a beam end may miss a column and still count.",
+)
+@click.option(
+    "--length-unit",
+    type=click.Choice(sorted(LENGTH_UNITS)),
+    default=None,
+    help="Length unit to assume ONLY when the model declares none.",
+)
+@click.option(
+    "--rules",
+    "rules_file",
+    type=click.Path(exists=True, dir_okay=False),
+    help="Extra element recognition rules (TOML, like ifcjoint/data/recognition.toml).",
+)
 @click.option("--brief", is_flag=True, help="Counts only; do not list every joint and beam end.")
-@click.option("--quiet", "-q", is_flag=True, help="Print nothing on stdout (outputs still written).")
+@click.option(
+    "--quiet", "-q", is_flag=True, help="Print nothing on stdout (outputs still written)."
+)
 @click.option("--debug", is_flag=True, help="Show a traceback on internal errors.")
 def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, quiet, debug):
     """Find every beam-to-column joint in MODEL (.ifc or .ifczip) and account for every beam end."""
@@ -91,8 +120,13 @@ def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, qu
 
     bar = _Bar(sys.stderr.isatty() and not quiet)
     try:
-        result = run_scan(model, settings=FinderSettings(tolerance=tolerance),
-                          assume_length_unit=length_unit, rules_file=rules_file, progress=bar)
+        result = run_scan(
+            model,
+            settings=FinderSettings(tolerance=tolerance),
+            assume_length_unit=length_unit,
+            rules_file=rules_file,
+            progress=bar,
+        )
     except ModelError as exc:
         bar.close()
         _fail(EXIT_MODEL, str(exc))
@@ -103,8 +137,11 @@ def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, qu
         bar.close()
         if debug:
             traceback.print_exc()
-        _fail(EXIT_INTERNAL, f"{model}: internal error while scanning ({type(exc).__name__}: "
-                             f"{exc}); rerun with --debug and please report it")
+        _fail(
+            EXIT_INTERNAL,
+            f"{model}: internal error while scanning ({type(exc).__name__}: "
+            f"{exc}); rerun with --debug and please report it",
+        )
     bar.close()
     try:
         if json_out:
@@ -115,8 +152,9 @@ def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, qu
         _fail(EXIT_USAGE, f"cannot write output: {exc}")
     if not quiet:
         write_scan_summary(result, sys.stdout, brief=brief)
-    candidates = [m for m in result.model.members
-                  if m.kind in ("beam", "column") and m.steel != "non_steel"]
+    candidates = [
+        m for m in result.model.members if m.kind in ("beam", "column") and m.steel != "non_steel"
+    ]
     if not candidates:
         c = result.model.counts
         _fail(

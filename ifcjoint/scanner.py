@@ -39,6 +39,5 @@ def scan(
         ifcjoint.errors.ConfigError: the rules file cannot be used.
     """
     rules = load_rules(rules_file)
-    model = read_model(path, assume_length_unit=assume_length_unit, rules=rules,
-                       progress=progress)
+    model = read_model(path, assume_length_unit=assume_length_unit, rules=rules, progress=progress)
     return find_joints(model, settings, progress=progress)

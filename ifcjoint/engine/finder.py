@@ -185,8 +185,10 @@ def find_joints(
             gap_ok_major = (gap_major <= reach) & (gap_major >= -(2 * hh + st.tolerance))
             gap_ok_minor = (gap_minor <= hb - htw + reach) & (gap_minor >= -(2 * hb))
             height_ok = (loc[:, 2] >= -st.tolerance) & (loc[:, 2] <= length + st.tolerance)
-            ok = flat & height_ok & np.where(
-                major, lat_ok_major & gap_ok_major, lat_ok_minor & gap_ok_minor
+            ok = (
+                flat
+                & height_ok
+                & np.where(major, lat_ok_major & gap_ok_major, lat_ok_minor & gap_ok_minor)
             )
             gap = np.where(major, gap_major, gap_minor)
             # Column base: the beam's underside is within the tolerance of the column foot.
@@ -258,9 +260,11 @@ def find_joints(
     attached = _attach_parts(model, joints_raw, cf, st)
 
     grid = _GridLabeller(model)
-    labels = grid.labels([j["beam"].storey for j in joints_raw],
-                         np.array([j["point"] for j in joints_raw]).reshape(-1, 3),
-                         [j["column"] for j in joints_raw])
+    labels = grid.labels(
+        [j["beam"].storey for j in joints_raw],
+        np.array([j["point"] for j in joints_raw]).reshape(-1, 3),
+        [j["column"] for j in joints_raw],
+    )
     joints: list[Joint] = []
     for j, label in zip(joints_raw, labels, strict=True):
         jid = joint_id(j["beam"].guid, j["beam_end"])
@@ -287,20 +291,24 @@ def find_joints(
             )
         )
     storey_of = {b.guid: b.storey for b in beams}
-    olabels = grid.labels([storey_of.get(o.beam, "") for o in others],
-                          np.array([o.point for o in others]).reshape(-1, 3),
-                          [None] * len(others))
+    olabels = grid.labels(
+        [storey_of.get(o.beam, "") for o in others],
+        np.array([o.point for o in others]).reshape(-1, 3),
+        [None] * len(others),
+    )
     others = [
-        OtherBeamEnd(beam=o.beam, beam_end=o.beam_end, kind=o.kind, other=o.other,
-                     point=o.point, label=lab)
+        OtherBeamEnd(
+            beam=o.beam, beam_end=o.beam_end, kind=o.kind, other=o.other, point=o.point, label=lab
+        )
         for o, lab in zip(others, olabels, strict=True)
     ]
     others.sort(key=lambda o: (o.beam, o.beam_end))
     joints.sort(key=lambda j: (j.label, j.id))
     if progress:
         progress("joints", nb, nb)
-    return ScanResult(model=model, joints=tuple(joints), other_beam_ends=tuple(others),
-                      settings=asdict(st))
+    return ScanResult(
+        model=model, joints=tuple(joints), other_beam_ends=tuple(others), settings=asdict(st)
+    )
 
 
 def _other(beam: Member, end: str, kind: str, other: str | None, pt: np.ndarray) -> OtherBeamEnd:
@@ -460,7 +468,9 @@ def _zone_boxes(zones: list[_Zone]) -> np.ndarray:
     c = np.array([[-z.half_l, z.half_l] for z in zones])
     corners = [
         o + a[:, i, None] * t + b[:, jj, None] * n + c[:, kk, None] * lat
-        for i in (0, 1) for jj in (0, 1) for kk in (0, 1)
+        for i in (0, 1)
+        for jj in (0, 1)
+        for kk in (0, 1)
     ]
     cc = np.stack(corners, axis=1)
     lo, hi = cc[:, :, :2].min(1), cc[:, :, :2].max(1)
@@ -521,7 +531,9 @@ def _bolt_through_plate(p: Plate, center: np.ndarray, axis: np.ndarray, length: 
     if abs(s) > length / 2 + p.thickness:
         return False
     hit = center + s * axis - c
-    return abs(hit.dot(np.array(p.u_dir))) <= p.half_u and abs(hit.dot(np.array(p.v_dir))) <= p.half_v
+    return (
+        abs(hit.dot(np.array(p.u_dir))) <= p.half_u and abs(hit.dot(np.array(p.v_dir))) <= p.half_v
+    )
 
 
 def _attach_parts(
@@ -566,8 +578,7 @@ def _attach_parts(
             both = sorted(
                 k
                 for k in named_any
-                if joint_by_k[k]["beam"].guid in members
-                and joint_by_k[k]["column"].guid in members
+                if joint_by_k[k]["beam"].guid in members and joint_by_k[k]["column"].guid in members
             )
             if both and source in ("realizing", "connects"):
                 return both, source
@@ -594,8 +605,13 @@ def _attach_parts(
             continue
         # A plate inside the column section (stiffener, web plate) serves every joint there.
         roles = {
-            k: _plate_role(zone_by_k[k], p, col_frames, joint_by_k[k]["col_idx"],
-                           st.tolerance + st.end_plate_allowance)
+            k: _plate_role(
+                zone_by_k[k],
+                p,
+                col_frames,
+                joint_by_k[k]["col_idx"],
+                st.tolerance + st.end_plate_allowance,
+            )
             for k in ks
         }
         shared = [k for k in ks if roles[k] == "column_plate"]
@@ -641,7 +657,10 @@ def _attach_parts(
 
 
 def _first_archetype(
-    j: dict, plates: tuple[PartLink, ...], bolts: tuple[PartLink, ...], model: ModelContents,
+    j: dict,
+    plates: tuple[PartLink, ...],
+    bolts: tuple[PartLink, ...],
+    model: ModelContents,
     st: FinderSettings,
 ) -> tuple[str, str]:
     """First guess of the joint type from the parts found; refined by the anatomy step."""
@@ -677,8 +696,9 @@ class _GridLabeller:
             self.fam = np.array([a.family for a in self.axes])
             self.tags = [a.tag for a in self.axes]
 
-    def labels(self, storeys: Sequence[str], points: np.ndarray,
-               columns: Sequence[Member | None]) -> list[str]:
+    def labels(
+        self, storeys: Sequence[str], points: np.ndarray, columns: Sequence[Member | None]
+    ) -> list[str]:
         """Labels for many points at once (vectorised over points and grid lines)."""
         p = np.asarray(points, dtype=float).reshape(-1, 3).copy()
         has = np.array([c is not None for c in columns], dtype=bool)

@@ -142,6 +142,7 @@ class PlacementCache:
         self._cache: dict[int, np.ndarray] = {}
 
     def matrix(self, placement) -> np.ndarray:
+        """World matrix (model units) of an object placement."""
         if placement is None:
             return np.eye(4)
         pid = placement.id()
@@ -193,6 +194,7 @@ class ProfileInfo:
 
     @property
     def fill(self) -> float | None:
+        """Net area over bounding-box area, when the area is known."""
         box = (self.xmax - self.xmin) * (self.ymax - self.ymin)
         if self.area is None or box <= 0:
             return None
@@ -312,24 +314,45 @@ def profile_info(profile) -> ProfileInfo:
         tw, tfb = att(profile, "WebThickness"), att(profile, "BottomFlangeThickness")
         tft = att(profile, "TopFlangeThickness") or tfb
         area = bb * tfb + bt * tft + (h - tfb - tft) * tw
-        return sym(b, h, area=area, h=h, b=b, tw=tw, tf=max(tfb, tft),
-                   extra={"b_top": bt, "b_bottom": bb, "tf_top": tft, "tf_bottom": tfb})
+        return sym(
+            b,
+            h,
+            area=area,
+            h=h,
+            b=b,
+            tw=tw,
+            tf=max(tfb, tft),
+            extra={"b_top": bt, "b_bottom": bb, "tf_top": tft, "tf_bottom": tfb},
+        )
     if t in ("IfcRectangleProfileDef", "IfcRoundedRectangleProfileDef"):
-        return sym(att(profile, "XDim"), att(profile, "YDim"), area=att(profile, "XDim") * att(profile, "YDim"),
-                   h=att(profile, "YDim"), b=att(profile, "XDim"))
+        xd, yd = att(profile, "XDim"), att(profile, "YDim")
+        return sym(xd, yd, area=xd * yd, h=yd, b=xd)
     if t == "IfcRectangleHollowProfileDef":
         w, h, tw = att(profile, "XDim"), att(profile, "YDim"), att(profile, "WallThickness")
-        return sym(w, h, area=w * h - (w - 2 * tw) * (h - 2 * tw), h=h, b=w, tw=tw, tf=tw,
-                   hollow=True)
+        return sym(
+            w, h, area=w * h - (w - 2 * tw) * (h - 2 * tw), h=h, b=w, tw=tw, tf=tw, hollow=True
+        )
     if t == "IfcCircleProfileDef":
         d = 2 * att(profile, "Radius")
-        return sym(d, d, area=math.pi * att(profile, "Radius")**2, h=d, b=d)
+        return sym(d, d, area=math.pi * att(profile, "Radius") ** 2, h=d, b=d)
     if t == "IfcCircleHollowProfileDef":
         r, tw = att(profile, "Radius"), att(profile, "WallThickness")
-        return sym(2 * r, 2 * r, area=math.pi * (r * r - (r - tw) ** 2), h=2 * r, b=2 * r,
-                   tw=tw, hollow=True)
-    if t in ("IfcLShapeProfileDef", "IfcUShapeProfileDef", "IfcCShapeProfileDef",
-             "IfcZShapeProfileDef", "IfcTShapeProfileDef"):
+        return sym(
+            2 * r,
+            2 * r,
+            area=math.pi * (r * r - (r - tw) ** 2),
+            h=2 * r,
+            b=2 * r,
+            tw=tw,
+            hollow=True,
+        )
+    if t in (
+        "IfcLShapeProfileDef",
+        "IfcUShapeProfileDef",
+        "IfcCShapeProfileDef",
+        "IfcZShapeProfileDef",
+        "IfcTShapeProfileDef",
+    ):
         h = att(profile, "Depth")
         b = getattr(profile, "Width", None) or getattr(profile, "FlangeWidth", None) or h
         tw = getattr(profile, "WebThickness", None) or getattr(profile, "Thickness", None)
@@ -363,13 +386,30 @@ def profile_info(profile) -> ProfileInfo:
         ixx, iyy = _second_moments(pts)
         depth_axis = "x" if iyy > 1.2 * ixx else "y"
         h, b = (x1 - x0, y1 - y0) if depth_axis == "x" else (y1 - y0, x1 - x0)
-        return ProfileInfo(t, name, x0, x1, y0, y1, area=area, h=h, b=b,
-                           depth_axis=depth_axis, extra={"outline": outer})
+        return ProfileInfo(
+            t,
+            name,
+            x0,
+            x1,
+            y0,
+            y1,
+            area=area,
+            h=h,
+            b=b,
+            depth_axis=depth_axis,
+            extra={"outline": outer},
+        )
     if t == "IfcDerivedProfileDef":
         parent = profile_info(att(profile, "ParentProfile"))
         op = cartesian_operator(att(profile, "Operator"))
-        c = np.array([[parent.xmin, parent.ymin], [parent.xmax, parent.ymax],
-                      [parent.xmin, parent.ymax], [parent.xmax, parent.ymin]])
+        c = np.array(
+            [
+                [parent.xmin, parent.ymin],
+                [parent.xmax, parent.ymax],
+                [parent.xmin, parent.ymax],
+                [parent.xmax, parent.ymin],
+            ]
+        )
         mm = np.eye(3)
         mm[:2, :2], mm[:2, 2] = op[:2, :2], op[:2, 3]
         x0, x1, y0, y1 = _box_of(c, mm)
@@ -378,15 +418,34 @@ def profile_info(profile) -> ProfileInfo:
         axis = parent.depth_axis
         if swapped:
             axis = "x" if axis == "y" else "y"
-        return ProfileInfo(t, name or parent.name, x0, x1, y0, y1, area=parent.area,
-                           h=parent.h, b=parent.b, tw=parent.tw, tf=parent.tf, r=parent.r,
-                           hollow=parent.hollow, depth_axis=axis,
-                           extra={"parent": parent.ifc_type, "rotated": swapped})
+        return ProfileInfo(
+            t,
+            name or parent.name,
+            x0,
+            x1,
+            y0,
+            y1,
+            area=parent.area,
+            h=parent.h,
+            b=parent.b,
+            tw=parent.tw,
+            tf=parent.tf,
+            r=parent.r,
+            hollow=parent.hollow,
+            depth_axis=axis,
+            extra={"parent": parent.ifc_type, "rotated": swapped},
+        )
     if t == "IfcCompositeProfileDef":
         parts = [profile_info(p) for p in att(profile, "Profiles")]
-        return ProfileInfo(t, name, min(p.xmin for p in parts), max(p.xmax for p in parts),
-                           min(p.ymin for p in parts), max(p.ymax for p in parts),
-                           area=sum((p.area or 0) for p in parts) or None)
+        return ProfileInfo(
+            t,
+            name,
+            min(p.xmin for p in parts),
+            max(p.xmax for p in parts),
+            min(p.ymin for p in parts),
+            max(p.ymax for p in parts),
+            area=sum((p.area or 0) for p in parts) or None,
+        )
     raise NeedsMesh(f"profile {t}")
 
 
@@ -410,15 +469,18 @@ class SolidBox:
 
     @property
     def size(self) -> np.ndarray:
+        """Extents along the box axes."""
         return self.hi - self.lo
 
     @property
     def volume(self) -> float:
+        """Box volume times the profile's fill ratio."""
         s = self.size
         fill = self.profile.fill if self.profile and self.profile.fill else 1.0
         return float(s[0] * s[1] * s[2] * fill)
 
     def corners(self) -> np.ndarray:
+        """The eight corners in world coordinates."""
         pts = []
         for i in (self.lo[0], self.hi[0]):
             for j in (self.lo[1], self.hi[1]):
@@ -427,6 +489,7 @@ class SolidBox:
         return np.array(pts)
 
     def center(self) -> np.ndarray:
+        """Centre of the box in world coordinates."""
         return self.origin + self.axes @ ((self.lo + self.hi) / 2)
 
 
@@ -490,13 +553,28 @@ def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
     elif t == "IfcRightCircularCylinder":
         origin, axes, s = _frame_from(m @ axis2placement(item.Position))
         r = item.Radius
-        out.append(SolidBox(origin, axes, np.array([-r, -r, 0.0]) * s,
-                            np.array([r, r, item.Height]) * s, None, "cylinder"))
+        out.append(
+            SolidBox(
+                origin,
+                axes,
+                np.array([-r, -r, 0.0]) * s,
+                np.array([r, r, item.Height]) * s,
+                None,
+                "cylinder",
+            )
+        )
     elif t == "IfcBlock":
         origin, axes, s = _frame_from(m @ axis2placement(item.Position))
-        out.append(SolidBox(origin, axes, np.zeros(3),
-                            np.array([item.XLength, item.YLength, item.ZLength]) * s, None,
-                            "block"))
+        out.append(
+            SolidBox(
+                origin,
+                axes,
+                np.zeros(3),
+                np.array([item.XLength, item.YLength, item.ZLength]) * s,
+                None,
+                "block",
+            )
+        )
     elif t == "IfcSweptDiskSolid" and item.Directrix.is_a("IfcPolyline"):
         pts = np.array([p.Coordinates for p in item.Directrix.Points], dtype=float)
         if pts.shape[1] == 2:
@@ -511,8 +589,16 @@ def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
         x /= np.linalg.norm(x)
         y = np.cross(z, x)
         r = item.Radius
-        out.append(SolidBox(pts[0], np.column_stack([x, y, z]), np.array([-r, -r, 0]),
-                            np.array([r, r, length]), None, "disk"))
+        out.append(
+            SolidBox(
+                pts[0],
+                np.column_stack([x, y, z]),
+                np.array([-r, -r, 0]),
+                np.array([r, r, length]),
+                None,
+                "disk",
+            )
+        )
     elif t in ("IfcHalfSpaceSolid", "IfcPolygonalBoundedHalfSpace", "IfcBoxedHalfSpace"):
         return
     else:
@@ -559,4 +645,3 @@ def solid_boxes(element, world: np.ndarray) -> list[SolidBox]:
     if not out:
         raise NeedsMesh("no solid items")
     return out
-

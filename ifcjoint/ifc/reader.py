@@ -83,25 +83,37 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str]:
                 with zipfile.ZipFile(p) as zf:
                     names = [n for n in zf.namelist() if n.lower().endswith(".ifc")]
                     if not names:
-                        raise ModelError(str(path), "zip archive holds no .ifc file",
-                                         "an ifczip with one .ifc inside")
+                        raise ModelError(
+                            str(path),
+                            "zip archive holds no .ifc file",
+                            "an ifczip with one .ifc inside",
+                        )
                     spf = Path(zf.extract(names[0], tmp))
                     raw = spf.read_bytes()
             except zipfile.BadZipFile as exc:
                 raise ModelError(str(path), f"damaged zip archive ({exc})") from exc
         head = _header(raw)
         if not head.lstrip().startswith("ISO-10303-21"):
-            raise ModelError(str(path), "not an IFC file (no ISO-10303-21 header)",
-                             "an IFC-SPF (.ifc) or .ifczip file")
+            raise ModelError(
+                str(path),
+                "not an IFC file (no ISO-10303-21 header)",
+                "an IFC-SPF (.ifc) or .ifczip file",
+            )
         m = re.search(r"FILE_SCHEMA\s*\(\s*\(\s*'([^']*)'", head, re.IGNORECASE)
         schema = (m.group(1) if m else "").upper()
         if not any(schema == s or schema.startswith(s + "_") for s in SUPPORTED_SCHEMAS):
-            raise ModelError(str(path), f"unsupported schema {schema or '(none given)'!r}",
-                             "IFC2X3, IFC4 or IFC4X3")
+            raise ModelError(
+                str(path),
+                f"unsupported schema {schema or '(none given)'!r}",
+                "IFC2X3, IFC4 or IFC4X3",
+            )
         tail = raw[-2048:].decode("latin-1", errors="replace")
         if "END-ISO-10303-21" not in tail:
-            raise ModelError(str(path), "file is truncated (no END-ISO-10303-21; at its end)",
-                             "a complete IFC file")
+            raise ModelError(
+                str(path),
+                "file is truncated (no END-ISO-10303-21; at its end)",
+                "a complete IFC file",
+            )
         try:
             f = ifcopenshell.open(str(spf), format=".ifc")
         except Exception as exc:  # noqa: BLE001 - the parser raises several kinds
@@ -273,9 +285,7 @@ class _Reader:
         return out
 
     def _fail(self, el, reason: str) -> None:
-        self.unreadable.append(
-            Unreadable(element=el.GlobalId, ifc_class=el.is_a(), reason=reason)
-        )
+        self.unreadable.append(Unreadable(element=el.GlobalId, ifc_class=el.is_a(), reason=reason))
 
     def _boxes(self, el) -> list[SolidBox] | None:
         """Analytic boxes in model units, or None when the body must be tessellated."""
@@ -348,15 +358,38 @@ class _Reader:
             source="extrusion",
         )
 
-    def _add_member(self, el, *, start, end, depth_dir, width_dir, depth, width, tw, tf,
-                    profile_name, profile_type, fill, source) -> None:
+    def _add_member(
+        self,
+        el,
+        *,
+        start,
+        end,
+        depth_dir,
+        width_dir,
+        depth,
+        width,
+        tw,
+        tf,
+        profile_name,
+        profile_type,
+        fill,
+        source,
+    ) -> None:
         axis = _unit(np.asarray(end) - np.asarray(start))
         kind = self.member_kind(el, axis)
         mat, mat_profiles = self.lookups.material(el)
         texts = self.lookups.texts(el)
         designation = " | ".join(
-            x for x in (profile_name, mat_profiles, texts.get("Name"), texts.get("ObjectType"),
-                        texts.get("TypeName"), texts.get("Description")) if x
+            x
+            for x in (
+                profile_name,
+                mat_profiles,
+                texts.get("Name"),
+                texts.get("ObjectType"),
+                texts.get("TypeName"),
+                texts.get("Description"),
+            )
+            if x
         )
         steel = self.rules.steel_state(mat, profile_type, designation)
         if steel == "unknown" and fill is not None and fill > 0.8:
@@ -415,8 +448,17 @@ class _Reader:
         size = main.size * self.s
         order = np.argsort(size)  # smallest = thickness
         n, u, v = order[0], order[2], order[1]
-        self._add_plate(el, main.center() * self.s, main.axes[:, n], main.axes[:, u],
-                        main.axes[:, v], size[u] / 2, size[v] / 2, size[n], "extrusion")
+        self._add_plate(
+            el,
+            main.center() * self.s,
+            main.axes[:, n],
+            main.axes[:, u],
+            main.axes[:, v],
+            size[u] / 2,
+            size[v] / 2,
+            size[n],
+            "extrusion",
+        )
 
     def _add_plate(self, el, center, normal, u, v, hu, hv, t, source) -> None:
         mat, _ = self.lookups.material(el)
@@ -439,8 +481,17 @@ class _Reader:
 
     def plate_from_mesh(self, el, v: np.ndarray, fcs: np.ndarray) -> None:
         box = principal_box(v, fcs)
-        self._add_plate(el, box.center, box.axes[:, 2], box.axes[:, 0], box.axes[:, 1],
-                        box.size[0] / 2, box.size[1] / 2, box.size[2], "mesh")
+        self._add_plate(
+            el,
+            box.center,
+            box.axes[:, 2],
+            box.axes[:, 0],
+            box.axes[:, 1],
+            box.size[0] / 2,
+            box.size[1] / 2,
+            box.size[2],
+            "mesh",
+        )
 
     # fasteners
     def read_fastener(self, el, kind: str) -> None:
@@ -459,8 +510,9 @@ class _Reader:
         lo, hi = float(t.min()), float(t.max())
         center = base + axis * (lo + hi) / 2
         dia = float(min(main.size[0], main.size[1]))
-        self._add_fastener(el, kind, center * self.s, axis, (hi - lo) * self.s, dia * self.s,
-                           "extrusion")
+        self._add_fastener(
+            el, kind, center * self.s, axis, (hi - lo) * self.s, dia * self.s, "extrusion"
+        )
 
     def _fastener_from_placement(self, el, kind: str) -> None:
         try:
@@ -475,8 +527,9 @@ class _Reader:
         dia = float(getattr(el, "NominalDiameter", None) or 0.0)
         axis = _unit(m[:3, 2])
         center = m[:3, 3] + axis * length / 2
-        self._add_fastener(el, kind, center * self.s, axis, length * self.s, dia * self.s,
-                           "placement")
+        self._add_fastener(
+            el, kind, center * self.s, axis, length * self.s, dia * self.s, "placement"
+        )
 
     def _add_fastener(self, el, kind, center, axis, length, dia, source) -> None:
         self.fasteners.append(
@@ -495,8 +548,7 @@ class _Reader:
 
     def fastener_from_mesh(self, el, v, fcs, kind: str) -> None:
         box = principal_box(v, fcs)
-        self._add_fastener(el, kind, box.center, box.axes[:, 0], box.size[0], box.size[1],
-                           "mesh")
+        self._add_fastener(el, kind, box.center, box.axes[:, 0], box.size[0], box.size[1], "mesh")
 
     def run_mesh(self, progress: Progress | None) -> None:
         if not self.pending_mesh:
@@ -536,13 +588,17 @@ def _links(f: ifcopenshell.file, member_ids: set[str], part_ids: set[str]) -> li
         if el.GlobalId in part_ids:
             return [el]
         if el.is_a("IfcElementAssembly"):
-            return [p for p in ifcopenshell.util.element.get_decomposition(el)
-                    if p.GlobalId in part_ids]
+            return [
+                p for p in ifcopenshell.util.element.get_decomposition(el) if p.GlobalId in part_ids
+            ]
         return []
 
     for rel in f.by_type("IfcRelConnectsWithRealizingElements"):
-        ms = {e.GlobalId for e in (rel.RelatingElement, rel.RelatedElement)
-              if e is not None and e.GlobalId in member_ids}
+        ms = {
+            e.GlobalId
+            for e in (rel.RelatingElement, rel.RelatedElement)
+            if e is not None and e.GlobalId in member_ids
+        }
         for r in rel.RealizingElements or ():
             for p in parts_of(r):
                 if ms:
@@ -584,8 +640,9 @@ def _grid_axes(f: ifcopenshell.file, placements: PlacementCache, s: float) -> li
                     xyz = list(pt.Coordinates) + [0.0] * (3 - len(pt.Coordinates))
                     w = m @ np.array([*xyz, 1.0])
                     pts.append((float(w[0] * s), float(w[1] * s)))
-                out.append(GridAxis(tag=str(ax.AxisTag or "?"), family=fam[0], p0=pts[0],
-                                    p1=pts[1]))
+                out.append(
+                    GridAxis(tag=str(ax.AxisTag or "?"), family=fam[0], p0=pts[0], p1=pts[1])
+                )
     return out
 
 

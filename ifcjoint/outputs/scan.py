@@ -149,9 +149,26 @@ def scan_dataframe(result: ScanResult) -> pd.DataFrame:
             }
         )
     cols = [
-        "joint_id", "label", "storey", "beam_guid", "beam_end", "column_guid", "axis", "side",
-        "partner", "archetype", "archetype_reason", "n_plates", "n_bolts", "plates", "bolts", "welds",
-        "gap_mm", "x_mm", "y_mm", "z_mm",
+        "joint_id",
+        "label",
+        "storey",
+        "beam_guid",
+        "beam_end",
+        "column_guid",
+        "axis",
+        "side",
+        "partner",
+        "archetype",
+        "archetype_reason",
+        "n_plates",
+        "n_bolts",
+        "plates",
+        "bolts",
+        "welds",
+        "gap_mm",
+        "x_mm",
+        "y_mm",
+        "z_mm",
     ]
     return pd.DataFrame(rows, columns=cols)
 
@@ -174,7 +191,8 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
     w(f"{TOOL_NAME} {__version__} scan of {m.path}\n")
     w(f"  schema {m.schema}; 1 length unit = {m.length_unit_to_mm:g} mm ({unit})\n")
     fk = ", ".join(
-        f"{k.removeprefix('fasteners_')} {v}" for k, v in sorted(c.items())
+        f"{k.removeprefix('fasteners_')} {v}"
+        for k, v in sorted(c.items())
         if k.startswith("fasteners_")
     )
     w(
@@ -205,8 +223,10 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
     )
     if not brief and js:
         w("\nJoints\n")
-        w(f"  {'label':<28} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<11} "
-          f"{'plates':>6} {'bolts':>5}  partner\n")
+        w(
+            f"  {'label':<28} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<11} "
+            f"{'plates':>6} {'bolts':>5}  partner\n"
+        )
         for j in js:
             nb = sum(1 for b in j.bolts if b.role == "bolt")
             w(
