@@ -71,6 +71,7 @@ class Options:
     demo_details: bool = True  # the hand-planned joint mix; False = uniform (benchmark)
     beams_to_axis: bool = False  # beam bodies drawn to the column centrelines (overlapping)
     split_columns: bool = False  # one column piece per storey, spliced 600 mm above floor
+    anonymous_fasteners: bool = False  # bolts named only "Part n": recognised by shape
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -484,6 +485,8 @@ class Frame:
                 "IfcFastener": f"Bolt {label}",
                 "IfcDiscreteAccessory": f"bolt {label}",
                 "IfcBuildingElementProxy": f"Bolt assembly {label}"}[cls]
+        if self.opt.anonymous_fasteners:
+            name = self.name("Part")
         el = w.root(cls, name, f"bolt/{key}")
         if cls == "IfcMechanicalFastener":
             el.NominalDiameter = w.L(d)

@@ -299,6 +299,21 @@ class _Reader:
             self.notes.append(f"{el.GlobalId}: analytic read failed ({exc}); tessellated")
             return None
 
+    def bolt_shaped(self, el) -> bool:
+        """An unrecognised element whose body is one extruded circle of a bolt's size."""
+        if el.is_a() not in self.rules.bolt_shape_classes:
+            return False
+        boxes = self._boxes(el)
+        if not boxes or len(boxes) > 3:
+            return False
+        main = max(boxes, key=lambda b: b.size[2])
+        prof = main.profile
+        if prof is None or prof.ifc_type not in ("IfcCircleProfileDef",
+                                                 "IfcCircleHollowProfileDef"):
+            return False
+        return self.rules.looks_like_bolt(el.is_a(), float(prof.b or 0) * self.s,
+                                          float(main.size[2]) * self.s)
+
     # members
     def member_kind(self, el, axis: np.ndarray) -> str:
         vert = abs(float(axis[2]))
@@ -701,6 +716,9 @@ def _read(f, path, sha, scale, unit_source, rules, progress) -> ModelContents:
                 fasteners.append((el, kind))
             elif rules.is_plate(el.is_a(), texts):
                 plates.append(el)
+            elif r.bolt_shaped(el):
+                fasteners.append((el, "bolt"))
+                r.notes.append(f"{el.GlobalId} ({el.is_a()}): taken as a bolt by its shape")
             else:
                 ignored[el.is_a()] += 1
 

@@ -43,6 +43,17 @@ class Rules:
     plate_classes: frozenset[str]
     plate_fields: tuple[str, ...]
     plate_pattern: re.Pattern[str] | None
+    bolt_shape_classes: frozenset[str] = frozenset()
+    bolt_shape_diameter: tuple[float, float] = (8.0, 48.0)
+    bolt_shape_length: tuple[float, float] = (15.0, 500.0)
+
+    def looks_like_bolt(self, ifc_class: str, diameter_mm: float, length_mm: float) -> bool:
+        """True when an unrecognised element's cylindrical body has a bolt's size."""
+        if ifc_class not in self.bolt_shape_classes:
+            return False
+        d0, d1 = self.bolt_shape_diameter
+        l0, l1 = self.bolt_shape_length
+        return d0 <= diameter_mm <= d1 and l0 <= length_mm <= l1 and length_mm > diameter_mm
 
     def steel_state(self, material: str, profile_type: str, profile_name: str) -> str:
         """``steel``, ``non_steel`` or ``unknown`` from material and profile text."""
@@ -124,6 +135,7 @@ def load_rules(extra: str | Path | None = None) -> Rules:
         for pat in _compile([r["pattern"]], where):
             rules.append(FastenerRule(frozenset(r["classes"]), tuple(r["fields"]), pat, r["kind"]))
     plate_pat = _compile([p["pattern"]], where)[0] if p.get("pattern") else None
+    shape = f.get("bolt_shape", {})
     return Rules(
         member_as_column=frozenset(m.get("member_as_column", [])),
         member_as_beam=frozenset(m.get("member_as_beam", [])),
@@ -139,4 +151,7 @@ def load_rules(extra: str | Path | None = None) -> Rules:
         plate_classes=frozenset(p.get("classes", [])),
         plate_fields=tuple(p.get("fields", [])),
         plate_pattern=plate_pat,
+        bolt_shape_classes=frozenset(shape.get("classes", [])),
+        bolt_shape_diameter=tuple(shape.get("diameter_mm", (8.0, 48.0))),
+        bolt_shape_length=tuple(shape.get("length_mm", (15.0, 500.0))),
     )

@@ -141,3 +141,19 @@ def test_version_and_help():
     r = run("scan", "--help")
     assert r.exit_code == 0 and "--json" in r.output
     assert "Exit codes" in run("--help").output
+
+
+def test_progress_bar_draws_on_stderr_only_when_enabled(capsys):
+    from ifcjoint.cli import _Bar
+
+    bar = _Bar(enabled=True)
+    for stage in ("read", "joints"):
+        for i in range(0, 101, 25):
+            bar(stage, i, 100)
+    bar.close()
+    out = capsys.readouterr()
+    assert out.out == "" and "finding joints" in out.err
+    off = _Bar(enabled=False)
+    off("read", 5, 10)
+    off.close()
+    assert capsys.readouterr().err == ""

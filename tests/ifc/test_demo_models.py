@@ -40,6 +40,7 @@ VARIANTS = [
     dict(fastener_class="IfcFastener"),
     dict(fastener_class="IfcDiscreteAccessory"),
     dict(fastener_class="IfcBuildingElementProxy"),
+    dict(fastener_class="IfcBuildingElementProxy", anonymous_fasteners=True),
     dict(nested_parts=False),
     dict(beams_to_axis=True),
     dict(split_columns=True),
