@@ -57,18 +57,50 @@ def reset_caches(owner) -> None:
     _A2P_OWNER[0] = owner
 
 
-def axis2placement(p) -> np.ndarray:
-    """4x4 matrix of an IfcAxis2Placement2D/3D (model units), cached per entity."""
+Aff = tuple  # (ox, oy, oz, xx, xy, xz, yx, yy, yz, zx, zy, zz): origin and axis columns
+
+IDENTITY: Aff = (0.0, 0.0, 0.0, 1.0, 0.0, 0.0, 0.0, 1.0, 0.0, 0.0, 0.0, 1.0)
+
+
+def aff_compose(a: Aff, b: Aff) -> Aff:
+    """a after b: the affine map x -> a(b(x)), in plain floats (faster than numpy at 3x3)."""
+    ox, oy, oz, ax0, ax1, ax2, ay0, ay1, ay2, az0, az1, az2 = a
+    bo0, bo1, bo2 = b[0], b[1], b[2]
+    out = [ox + ax0 * bo0 + ay0 * bo1 + az0 * bo2,
+           oy + ax1 * bo0 + ay1 * bo1 + az1 * bo2,
+           oz + ax2 * bo0 + ay2 * bo1 + az2 * bo2]
+    for k in (3, 6, 9):
+        c0, c1, c2 = b[k], b[k + 1], b[k + 2]
+        out.append(ax0 * c0 + ay0 * c1 + az0 * c2)
+        out.append(ax1 * c0 + ay1 * c1 + az1 * c2)
+        out.append(ax2 * c0 + ay2 * c1 + az2 * c2)
+    return tuple(out)
+
+
+def aff_to_np(a: Aff) -> np.ndarray:
+    """4x4 numpy matrix of an affine tuple."""
+    m = np.eye(4)
+    m[:3, 3] = a[0:3]
+    m[:3, 0], m[:3, 1], m[:3, 2] = a[3:6], a[6:9], a[9:12]
+    return m
+
+
+def np_to_aff(m: np.ndarray) -> Aff:
+    """Affine tuple of a 4x4 numpy matrix."""
+    return tuple(float(x) for x in (*m[:3, 3], *m[:3, 0], *m[:3, 1], *m[:3, 2]))
+
+
+def a2p_aff(p) -> Aff:
+    """Affine tuple of an IfcAxis2Placement2D/3D (model units), cached per entity."""
     if p is None:
-        return np.eye(4)
+        return IDENTITY
     pid = p.id()
     hit = _A2P_CACHE.get(pid)
     if hit is not None:
         return hit
-    m = np.eye(4)
     loc = att(p, "Location")
     c = loc.get_argument(0) if loc is not None else (0.0, 0.0, 0.0)
-    m[: len(c), 3] = c
+    o = (float(c[0]), float(c[1]), float(c[2]) if len(c) > 2 else 0.0)
     t = p.is_a()
     if t == "IfcAxis2Placement3D":
         ax, ref = att(p, "Axis"), att(p, "RefDirection")
@@ -84,16 +116,23 @@ def axis2placement(p) -> np.ndarray:
             nx = _norm3(x)
         x = (x[0] / nx, x[1] / nx, x[2] / nx)
         y = _cross3(z, x)
-        m[:3, 0], m[:3, 1], m[:3, 2] = x, y, z
+        out = (*o, *x, *y, *z)
     elif t == "IfcAxis2Placement2D":
         ref = att(p, "RefDirection")
         x = ref.get_argument(0)[:2] if ref is not None else (1.0, 0.0)
         nx = math.hypot(x[0], x[1])
-        m[:2, 0] = (x[0] / nx, x[1] / nx)
-        m[:2, 1] = (-x[1] / nx, x[0] / nx)
+        cx, cy = x[0] / nx, x[1] / nx
+        out = (*o, cx, cy, 0.0, -cy, cx, 0.0, 0.0, 0.0, 1.0)
+    else:
+        out = (*o, 1.0, 0.0, 0.0, 0.0, 1.0, 0.0, 0.0, 0.0, 1.0)
     if _A2P_OWNER[0] is not None:
-        _A2P_CACHE[pid] = m
-    return m
+        _A2P_CACHE[pid] = out
+    return out
+
+
+def axis2placement(p) -> np.ndarray:
+    """4x4 matrix of an IfcAxis2Placement2D/3D (model units)."""
+    return aff_to_np(a2p_aff(p))
 
 
 def cartesian_operator(op) -> np.ndarray:
@@ -132,25 +171,23 @@ def cartesian_operator(op) -> np.ndarray:
 
 
 class PlacementCache:
-    """World matrices of object placements, each placement computed once.
+    """World transforms of object placements, each placement computed once.
 
     Resolves ``IfcLocalPlacement`` chains (``PlacementRelTo``) with Axis/RefDirection. Grid
     placements raise :class:`NeedsMesh` (the tessellator resolves them).
     """
 
     def __init__(self) -> None:
-        self._cache: dict[int, np.ndarray] = {}
+        self._cache: dict[int, Aff] = {}
 
-    def matrix(self, placement) -> np.ndarray:
-        """World matrix (model units) of an object placement."""
+    def aff(self, placement) -> Aff:
+        """World affine tuple (model units) of an object placement."""
         if placement is None:
-            return np.eye(4)
+            return IDENTITY
         pid = placement.id()
         hit = self._cache.get(pid)
         if hit is not None:
             return hit
-        if not placement.is_a("IfcLocalPlacement"):
-            raise NeedsMesh(f"{placement.is_a()} placement")
         chain = []
         p = placement
         seen = set()
@@ -162,11 +199,15 @@ class PlacementCache:
             seen.add(p.id())
             chain.append(p)
             p = att(p, "PlacementRelTo")
-        m = self._cache[p.id()] if p is not None else np.eye(4)
+        m = self._cache[p.id()] if p is not None else IDENTITY
         for q in reversed(chain):
-            m = m @ axis2placement(att(q, "RelativePlacement"))
+            m = aff_compose(m, a2p_aff(att(q, "RelativePlacement")))
             self._cache[q.id()] = m
         return m
+
+    def matrix(self, placement) -> np.ndarray:
+        """World matrix (4x4, model units) of an object placement."""
+        return aff_to_np(self.aff(placement))
 
 
 # --- profiles ----------------------------------------------------------------------------
@@ -504,8 +545,8 @@ def _frame_from(m: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
 _PROFILE_CACHE: dict[int, ProfileInfo] = {}
 
 
-def _extrusion_box(item, m: np.ndarray) -> SolidBox:
-    pos = m @ axis2placement(att(item, "Position"))
+def _extrusion_box(item, m: Aff) -> SolidBox:
+    pos = aff_compose(m, a2p_aff(att(item, "Position")))
     area = att(item, "SweptArea")
     aid = area.id()
     caching = _A2P_OWNER[0] is not None
@@ -515,31 +556,33 @@ def _extrusion_box(item, m: np.ndarray) -> SolidBox:
         if caching:
             _PROFILE_CACHE[aid] = prof
     d = att(item, "ExtrudedDirection").get_argument(0)
-    a = pos[:3, :3]
-    s = np.sqrt((a * a).sum(axis=0))
-    s[s == 0] = 1.0
-    axes = a / s
     nd = _norm3(d)
-    dw = axes @ (np.array(d) / nd * s)
+    d0, d1, d2 = d[0] / nd, d[1] / nd, d[2] / nd
+    x, y, z = pos[3:6], pos[6:9], pos[9:12]
+    sx, sy = _norm3(x) or 1.0, _norm3(y) or 1.0
+    dw = (x[0] * d0 + y[0] * d1 + z[0] * d2, x[1] * d0 + y[1] * d1 + z[1] * d2,
+          x[2] * d0 + y[2] * d1 + z[2] * d2)
     ldw = _norm3(dw)
     depth = att(item, "Depth") * ldw
-    dir_w = dw / ldw
     # Box frame: profile x, profile y, extrusion direction (oblique extrusions: the box is
     # slightly conservative, enough for locating parts).
-    ax = np.empty((3, 3))
-    ax[:, 0], ax[:, 1], ax[:, 2] = axes[:, 0], axes[:, 1], dir_w
-    lo = np.array([prof.xmin * s[0], prof.ymin * s[1], 0.0])
-    hi = np.array([prof.xmax * s[0], prof.ymax * s[1], depth])
-    return SolidBox(pos[:3, 3].copy(), ax, lo, hi, prof, "extrusion")
+    ax = np.array(((x[0] / sx, y[0] / sy, dw[0] / ldw), (x[1] / sx, y[1] / sy, dw[1] / ldw),
+                   (x[2] / sx, y[2] / sy, dw[2] / ldw)))
+    lo = np.array((prof.xmin * sx, prof.ymin * sy, 0.0))
+    hi = np.array((prof.xmax * sx, prof.ymax * sy, depth))
+    return SolidBox(np.array(pos[0:3]), ax, lo, hi, prof, "extrusion")
 
 
-def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
+def _walk(item, m: Aff, out: list[SolidBox]) -> None:
     t = item.is_a()
     if t in ("IfcExtrudedAreaSolid", "IfcExtrudedAreaSolidTapered"):
         out.append(_extrusion_box(item, m))
     elif t == "IfcMappedItem":
         src = item.MappingSource
-        mm = m @ cartesian_operator(item.MappingTarget) @ axis2placement(src.MappingOrigin)
+        mm = aff_compose(
+            aff_compose(m, np_to_aff(cartesian_operator(item.MappingTarget))),
+            a2p_aff(src.MappingOrigin),
+        )
         for sub in src.MappedRepresentation.Items:
             _walk(sub, mm, out)
     elif t in ("IfcBooleanClippingResult", "IfcBooleanResult"):
@@ -551,7 +594,7 @@ def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
     elif t == "IfcCsgSolid":
         _walk(item.TreeRootExpression, m, out)
     elif t == "IfcRightCircularCylinder":
-        origin, axes, s = _frame_from(m @ axis2placement(item.Position))
+        origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(item.Position))))
         r = item.Radius
         out.append(
             SolidBox(
@@ -564,7 +607,7 @@ def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
             )
         )
     elif t == "IfcBlock":
-        origin, axes, s = _frame_from(m @ axis2placement(item.Position))
+        origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(item.Position))))
         out.append(
             SolidBox(
                 origin,
@@ -579,7 +622,8 @@ def _walk(item, m: np.ndarray, out: list[SolidBox]) -> None:
         pts = np.array([p.Coordinates for p in item.Directrix.Points], dtype=float)
         if pts.shape[1] == 2:
             pts = np.c_[pts, np.zeros(len(pts))]
-        pts = (m[:3, :3] @ pts.T).T + m[:3, 3]
+        mn = aff_to_np(m)
+        pts = (mn[:3, :3] @ pts.T).T + mn[:3, 3]
         z = pts[-1] - pts[0]
         length = float(np.linalg.norm(z))
         if length == 0:
@@ -625,7 +669,7 @@ def body_items(element):
     return [("items", it) for r in chosen[:1] for it in att(r, "Items")]
 
 
-def solid_boxes(element, world: np.ndarray) -> list[SolidBox]:
+def solid_boxes(element, world) -> list[SolidBox]:
     """Oriented boxes of the element's body items in world (model units).
 
     Raises:
@@ -634,10 +678,12 @@ def solid_boxes(element, world: np.ndarray) -> list[SolidBox]:
     items = body_items(element)
     if not items:
         raise NeedsMesh("no body representation")
+    if isinstance(world, np.ndarray):
+        world = np_to_aff(world)
     out: list[SolidBox] = []
     for kind, it in items:
         if kind == "type":
-            mm = world @ axis2placement(it.MappingOrigin)
+            mm = aff_compose(world, a2p_aff(it.MappingOrigin))
             for sub in it.MappedRepresentation.Items:
                 _walk(sub, mm, out)
         else:
