@@ -63,12 +63,14 @@ IDENTITY: Aff = (0.0, 0.0, 0.0, 1.0, 0.0, 0.0, 0.0, 1.0, 0.0, 0.0, 0.0, 1.0)
 
 
 def aff_compose(a: Aff, b: Aff) -> Aff:
-    """a after b: the affine map x -> a(b(x)), in plain floats (faster than numpy at 3x3)."""
+    """A after b: the affine map x -> a(b(x)), in plain floats (faster than numpy at 3x3)."""
     ox, oy, oz, ax0, ax1, ax2, ay0, ay1, ay2, az0, az1, az2 = a
     bo0, bo1, bo2 = b[0], b[1], b[2]
-    out = [ox + ax0 * bo0 + ay0 * bo1 + az0 * bo2,
-           oy + ax1 * bo0 + ay1 * bo1 + az1 * bo2,
-           oz + ax2 * bo0 + ay2 * bo1 + az2 * bo2]
+    out = [
+        ox + ax0 * bo0 + ay0 * bo1 + az0 * bo2,
+        oy + ax1 * bo0 + ay1 * bo1 + az1 * bo2,
+        oz + ax2 * bo0 + ay2 * bo1 + az2 * bo2,
+    ]
     for k in (3, 6, 9):
         c0, c1, c2 = b[k], b[k + 1], b[k + 2]
         out.append(ax0 * c0 + ay0 * c1 + az0 * c2)
@@ -560,14 +562,22 @@ def _extrusion_box(item, m: Aff) -> SolidBox:
     d0, d1, d2 = d[0] / nd, d[1] / nd, d[2] / nd
     x, y, z = pos[3:6], pos[6:9], pos[9:12]
     sx, sy = _norm3(x) or 1.0, _norm3(y) or 1.0
-    dw = (x[0] * d0 + y[0] * d1 + z[0] * d2, x[1] * d0 + y[1] * d1 + z[1] * d2,
-          x[2] * d0 + y[2] * d1 + z[2] * d2)
+    dw = (
+        x[0] * d0 + y[0] * d1 + z[0] * d2,
+        x[1] * d0 + y[1] * d1 + z[1] * d2,
+        x[2] * d0 + y[2] * d1 + z[2] * d2,
+    )
     ldw = _norm3(dw)
     depth = att(item, "Depth") * ldw
     # Box frame: profile x, profile y, extrusion direction (oblique extrusions: the box is
     # slightly conservative, enough for locating parts).
-    ax = np.array(((x[0] / sx, y[0] / sy, dw[0] / ldw), (x[1] / sx, y[1] / sy, dw[1] / ldw),
-                   (x[2] / sx, y[2] / sy, dw[2] / ldw)))
+    ax = np.array(
+        (
+            (x[0] / sx, y[0] / sy, dw[0] / ldw),
+            (x[1] / sx, y[1] / sy, dw[1] / ldw),
+            (x[2] / sx, y[2] / sy, dw[2] / ldw),
+        )
+    )
     lo = np.array((prof.xmin * sx, prof.ymin * sy, 0.0))
     hi = np.array((prof.xmax * sx, prof.ymax * sy, depth))
     return SolidBox(np.array(pos[0:3]), ax, lo, hi, prof, "extrusion")

@@ -308,11 +308,14 @@ class _Reader:
             return False
         main = max(boxes, key=lambda b: b.size[2])
         prof = main.profile
-        if prof is None or prof.ifc_type not in ("IfcCircleProfileDef",
-                                                 "IfcCircleHollowProfileDef"):
+        if prof is None or prof.ifc_type not in (
+            "IfcCircleProfileDef",
+            "IfcCircleHollowProfileDef",
+        ):
             return False
-        return self.rules.looks_like_bolt(el.is_a(), float(prof.b or 0) * self.s,
-                                          float(main.size[2]) * self.s)
+        return self.rules.looks_like_bolt(
+            el.is_a(), float(prof.b or 0) * self.s, float(main.size[2]) * self.s
+        )
 
     # members
     def member_kind(self, el, axis: np.ndarray) -> str:
