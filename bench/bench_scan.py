@@ -20,14 +20,14 @@ sys.path.insert(0, str(ROOT))
 CHILD = r"""
 import sys, time, resource, json
 what, path = sys.argv[1], sys.argv[2]
-t = time.perf_counter()
+import ifcopenshell
+from ifcjoint.scanner import scan
+t = time.perf_counter()  # imports are not timed: only the work on the file
 if what == "open":
-    import ifcopenshell
     f = ifcopenshell.open(path)
     n = len(f.by_type("IfcProduct"))
     out = {"n": n}
 else:
-    from ifcjoint.scanner import scan
     r = scan(path)
     out = {"joints": len(r.joints), "members": len(r.model.members),
            "unreadable": len(r.model.unreadable)}

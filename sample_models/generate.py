@@ -72,6 +72,7 @@ class Options:
     beams_to_axis: bool = False  # beam bodies drawn to the column centrelines (overlapping)
     split_columns: bool = False  # one column piece per storey, spliced 600 mm above floor
     anonymous_fasteners: bool = False  # bolts named only "Part n": recognised by shape
+    grid_placed_columns: bool = False  # columns placed by IfcGridPlacement (IFC4 and later)
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -365,6 +366,7 @@ class Frame:
                                                                    y))])
             v.append(f.createIfcGridAxis(chr(ord("A") + j), line, True))
         g.UAxes, g.VAxes = u, v
+        self.grid_axes = (u, v)
         w.contained[st0.id()].append(g)
 
     def name(self, prefix: str) -> str:
@@ -382,7 +384,13 @@ class Frame:
         st, ze = self.storey_for(z0)
         # Local X = -Y so that the profile's depth (its Y) runs along world X.
         m = frame_matrix((x, y, z0 - ze), (0, -1, 0), (0, 0, 1))
-        col.ObjectPlacement = w.placement(m, st.ObjectPlacement)
+        if self.opt.grid_placed_columns:
+            u, v = self.grid_axes
+            vgi = w.f.createIfcVirtualGridIntersection([u[i], v[j]], [0.0, 0.0, w.L(z0)])
+            col.ObjectPlacement = w.f.create_entity(
+                "IfcGridPlacement", PlacementLocation=vgi, PlacementRefDirection=w.dir((0, -1, 0)))
+        else:
+            col.ObjectPlacement = w.placement(m, st.ObjectPlacement)
         self.member_body(col, self.col_section, z1 - z0, np.eye(4))
         self.contain(col, z0)
         self.assign_material(col, "S355J2")

@@ -175,8 +175,10 @@ def cartesian_operator(op) -> np.ndarray:
 class PlacementCache:
     """World transforms of object placements, each placement computed once.
 
-    Resolves ``IfcLocalPlacement`` chains (``PlacementRelTo``) with Axis/RefDirection. Grid
-    placements raise :class:`NeedsMesh` (the tessellator resolves them).
+    Resolves ``IfcLocalPlacement`` chains (``PlacementRelTo``) with Axis/RefDirection, and
+    ``IfcGridPlacement`` (offset intersection of two grid axes in the grid's frame; x-axis from
+    ``PlacementRefDirection``, else the grid's own x-axis). Anything else raises
+    :class:`NeedsMesh` so the tessellator resolves it.
     """
 
     def __init__(self) -> None:
@@ -190,10 +192,16 @@ class PlacementCache:
         hit = self._cache.get(pid)
         if hit is not None:
             return hit
+        if placement.is_a("IfcGridPlacement"):
+            m = self._grid_placement(placement)
+            self._cache[pid] = m
+            return m
         chain = []
         p = placement
         seen = set()
         while p is not None and p.id() not in self._cache:
+            if p.is_a("IfcGridPlacement"):
+                break
             if not p.is_a("IfcLocalPlacement"):
                 raise NeedsMesh(f"{p.is_a()} placement")
             if p.id() in seen:
@@ -201,11 +209,59 @@ class PlacementCache:
             seen.add(p.id())
             chain.append(p)
             p = att(p, "PlacementRelTo")
-        m = self._cache[p.id()] if p is not None else IDENTITY
+        m = self.aff(p) if p is not None else IDENTITY
         for q in reversed(chain):
             m = aff_compose(m, a2p_aff(att(q, "RelativePlacement")))
             self._cache[q.id()] = m
         return m
+
+    def _grid_point(self, vgi) -> tuple[object, tuple[float, float, float]]:
+        """The grid and the point (grid coordinates) of an IfcVirtualGridIntersection."""
+        axes = list(vgi.IntersectingAxes)
+        offs = list(vgi.OffsetDistances or ()) + [0.0, 0.0, 0.0]
+        lines = []
+        grid = None
+        for ax, off in zip(axes[:2], offs[:2], strict=True):
+            c = ax.AxisCurve
+            if c is None or not c.is_a("IfcPolyline") or len(c.Points) < 2:
+                raise NeedsMesh("grid axis is not a polyline")
+            p0 = c.Points[0].Coordinates
+            p1 = c.Points[-1].Coordinates
+            dx, dy = p1[0] - p0[0], p1[1] - p0[1]
+            n = math.hypot(dx, dy)
+            if not ax.SameSense:
+                dx, dy = -dx, -dy
+            # positive offsets lie to the left of the axis direction
+            lines.append((p0[0] - dy / n * off, p0[1] + dx / n * off, dx / n, dy / n))
+            for inv in ("PartOfU", "PartOfV", "PartOfW"):
+                owner = getattr(ax, inv, None)
+                if owner:
+                    grid = owner[0]
+        (x1, y1, u1, v1), (x2, y2, u2, v2) = lines
+        det = u1 * (-v2) - v1 * (-u2)
+        if abs(det) < 1e-12:
+            raise NeedsMesh("parallel grid axes")
+        t = ((x2 - x1) * (-v2) - (y2 - y1) * (-u2)) / det
+        return grid, (x1 + t * u1, y1 + t * v1, float(offs[2]))
+
+    def _grid_placement(self, gp) -> Aff:
+        """An IfcGridPlacement: the (offset) intersection of two grid axes, in the grid's frame."""
+        grid, (x, y, z) = self._grid_point(gp.PlacementLocation)
+        if grid is None:
+            raise NeedsMesh("grid axes belong to no grid")
+        base = self.aff(grid.ObjectPlacement)
+        ref = gp.PlacementRefDirection
+        cx, cy = 1.0, 0.0
+        if ref is not None and ref.is_a("IfcDirection"):
+            r = ref.DirectionRatios
+            n = math.hypot(r[0], r[1]) or 1.0
+            cx, cy = r[0] / n, r[1] / n
+        elif ref is not None and ref.is_a("IfcVirtualGridIntersection"):
+            _, (x2, y2, _) = self._grid_point(ref)
+            n = math.hypot(x2 - x, y2 - y) or 1.0
+            cx, cy = (x2 - x) / n, (y2 - y) / n
+        local = (x, y, z, cx, cy, 0.0, -cy, cx, 0.0, 0.0, 0.0, 1.0)
+        return aff_compose(base, local)
 
     def matrix(self, placement) -> np.ndarray:
         """World matrix (4x4, model units) of an object placement."""

@@ -42,6 +42,8 @@ VARIANTS = [
     dict(fastener_class="IfcBuildingElementProxy"),
     dict(fastener_class="IfcBuildingElementProxy", anonymous_fasteners=True),
     dict(nested_parts=False),
+    dict(grid_placed_columns=True, rotation_deg=17.0),
+    dict(grid_placed_columns=True, schema="IFC4X3", split_columns=True),
     dict(beams_to_axis=True),
     dict(split_columns=True),
     dict(schema="IFC2X3", profiles="brep", rotation_deg=-61.0, relations="none", unit="m"),
