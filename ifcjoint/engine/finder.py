@@ -157,7 +157,6 @@ def find_joints(
 
     cf = _Frames.of(columns)
     best_col = np.full(2 * nb, -1)
-    best_score = np.full(2 * nb, np.inf)
     res_axis = np.zeros(2 * nb, dtype=int)  # 0 major, 1 minor
     res_side = np.zeros(2 * nb)
     res_gap = np.zeros(2 * nb)
@@ -209,20 +208,20 @@ def find_joints(
                 & (loc[:, 2] > length + st.tolerance)
                 & (loc[:, 2] <= length + 2 * hb_end + reach)
             )
+            # Per beam end, the candidate column with the smallest |gap| wins.
             score = np.abs(gap)
-            for k in np.flatnonzero(ok & ~at_base):
-                e = ei[k]
-                if score[k] < best_score[e]:
-                    best_score[e] = score[k]
-                    best_col[e] = ci[k]
-                    res_axis[e] = 0 if major[k] else 1
-                    res_side[e] = side_v[k] if major[k] else side_u[k]
-                    res_gap[e] = gap[k]
-                    res_point[e] = ends[e] + approach[e] * gap[k]
-            for k in np.flatnonzero(at_base):
-                base_col[ei[k]] = ci[k]
-            for k in np.flatnonzero(on_cap):
-                cap_col[ei[k]] = ci[k]
+            sel = np.flatnonzero(ok & ~at_base)
+            if len(sel):
+                sel = sel[np.lexsort((score[sel], ei[sel]))]
+                pick = sel[np.r_[True, ei[sel][1:] != ei[sel][:-1]]]
+                e = ei[pick]
+                best_col[e] = ci[pick]
+                res_axis[e] = np.where(major[pick], 0, 1)
+                res_side[e] = np.where(major[pick], side_v[pick], side_u[pick])
+                res_gap[e] = gap[pick]
+                res_point[e] = ends[e] + approach[e] * gap[pick][:, None]
+            base_col[ei[at_base]] = ci[at_base]
+            cap_col[ei[on_cap]] = ci[on_cap]
 
     joints_raw: list[dict] = []
     others: list[OtherBeamEnd] = []
