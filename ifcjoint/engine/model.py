@@ -59,6 +59,10 @@ class Member:
     steel: str = "unknown"
     storey: str = ""
     geometry_source: str = "extrusion"
+    root_radius: float | None = None
+    #: every text that may name the section or grade: profile and material-profile names,
+    #: Name, ObjectType, Description, type name, designation-like properties
+    texts: tuple[str, ...] = ()
 
     @property
     def length(self) -> float:
@@ -97,6 +101,8 @@ class Plate:
     thickness: float
     material: str = ""
     geometry_source: str = "extrusion"
+    holes: tuple[tuple[Vec3, float], ...] = ()  # (centre on the mid-plane, diameter), mm
+    texts: tuple[str, ...] = ()
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -124,6 +130,9 @@ class Fastener:
     length: float
     diameter: float
     geometry_source: str = "extrusion"
+    nominal_diameter: float | None = None  # from IfcMechanicalFastener or properties, mm
+    nominal_length: float | None = None
+    texts: tuple[str, ...] = ()
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

@@ -473,9 +473,14 @@ def profile_info(profile) -> ProfileInfo:
         if not poly.is_valid:
             poly = shapely.make_valid(poly)
         area = poly.area
-        for inner in getattr(profile, "InnerCurves", None) or ():
+        holes = []
+        for inner in (att(profile, "InnerCurves") if t.endswith("WithVoids") else None) or ():
             try:
-                area -= shapely.Polygon(curve_points(inner)).area
+                pts = curve_points(inner)
+                area -= shapely.Polygon(pts).area
+                c = pts.mean(axis=0)
+                dia = 2 * float(np.sqrt(((pts - c) ** 2).sum(axis=1)).mean())
+                holes.append((float(c[0]), float(c[1]), dia))
             except Exception:  # noqa: BLE001 - a bad void only spoils the area
                 pass
         x0, x1, y0, y1 = _box_of(outer, m)
@@ -496,7 +501,7 @@ def profile_info(profile) -> ProfileInfo:
             h=h,
             b=b,
             depth_axis=depth_axis,
-            extra={"outline": outer},
+            extra={"outline": outer, "holes": holes},
         )
     if t == "IfcDerivedProfileDef":
         parent = profile_info(att(profile, "ParentProfile"))
@@ -671,6 +676,14 @@ def _walk(item, m: Aff, out: list[SolidBox]) -> None:
                 None,
                 "cylinder",
             )
+        )
+    elif t == "IfcBoundingBox":
+        c = item.Corner.Coordinates
+        origin, axes, s = _frame_from(aff_to_np(m))
+        o = origin + axes @ (np.array(c, dtype=float) * s)
+        out.append(
+            SolidBox(o, axes, np.zeros(3),
+                     np.array([item.XDim, item.YDim, item.ZDim]) * s, None, "block")
         )
     elif t == "IfcBlock":
         origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(item.Position))))

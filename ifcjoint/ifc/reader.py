@@ -39,6 +39,7 @@ from ifcjoint.ifc.geometry import (
     reset_caches,
     solid_boxes,
 )
+from ifcjoint.ifc.geometry import _walk as walk_item
 from ifcjoint.ifc.mesh import principal_box, tessellate
 from ifcjoint.ifc.recognition import Rules, load_rules
 
@@ -153,6 +154,17 @@ def length_scale_to_mm(f: ifcopenshell.file, path: str, assume: str | None) -> t
 # --- text helpers ------------------------------------------------------------------------
 
 
+#: Property names (lower case, no spaces) read for designations, grades and bolt sizes.
+INTERESTING_PROPERTIES = frozenset({
+    "reference", "profile", "profilename", "section", "sectionname", "crosssection",
+    "material", "grade", "steelgrade", "materialgrade", "boltgrade", "class", "propertyclass",
+    "strengthclass", "diameter", "nominaldiameter", "boltdiameter", "size", "boltsize",
+    "length", "nominallength", "boltlength", "standard", "boltstandard", "description",
+})
+_SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
+_LENGTH_KEYS = ("nominallength", "boltlength", "length")
+
+
 class _Lookups:
     """Type names and materials of every element, read once from the relationships."""
 
@@ -179,6 +191,22 @@ class _Lookups:
                     for el in rel.RelatedObjects:
                         self.material_of.setdefault(el.id(), m)
         self._text_cache: dict[int, tuple[str, str]] = {}
+        # Designation-like single-value properties, read once for every element.
+        self.props: dict[int, dict[str, object]] = {}
+        for rel in f.by_type("IfcRelDefinesByProperties"):
+            pset = rel.RelatingPropertyDefinition
+            if pset is None or not pset.is_a("IfcPropertySet"):
+                continue
+            found = {}
+            for p in pset.HasProperties or ():
+                if not p.is_a("IfcPropertySingleValue") or p.NominalValue is None:
+                    continue
+                key = p.Name.replace(" ", "").lower()
+                if key in INTERESTING_PROPERTIES:
+                    found[key] = p.NominalValue.wrappedValue
+            if found:
+                for el in rel.RelatedObjects:
+                    self.props.setdefault(el.id(), {}).update(found)
 
     def texts(self, el) -> dict[str, str]:
         out = {}
@@ -193,6 +221,23 @@ class _Lookups:
         if tn:
             out["TypeName"] = tn
         return out
+
+    def all_texts(self, el, *extra: str) -> tuple[str, ...]:
+        """Every text of an element that may carry a designation or grade, de-duplicated."""
+        t = self.texts(el)
+        out = [*extra, t.get("Name"), t.get("ObjectType"), t.get("TypeName"), t.get("Description"),
+               t.get("Tag")]
+        out += [str(v) for v in self.props.get(el.id(), {}).values() if isinstance(v, str)]
+        return tuple(dict.fromkeys(x for x in out if x))
+
+    def number(self, el, keys: tuple[str, ...]) -> float | None:
+        """First numeric property among ``keys`` (model length units), or None."""
+        props = self.props.get(el.id(), {})
+        for k in keys:
+            v = props.get(k)
+            if isinstance(v, (int, float)) and v > 0:
+                return float(v)
+        return None
 
     def material(self, el) -> tuple[str, str]:
         """Material name(s) and material-profile name(s) of an element, joined."""
@@ -374,6 +419,7 @@ class _Reader:
             profile_type=prof.ifc_type if prof else main.kind,
             fill=prof.fill if prof else None,
             source="extrusion",
+            r=prof.r if prof else None,
         )
 
     def _add_member(
@@ -392,6 +438,7 @@ class _Reader:
         profile_type,
         fill,
         source,
+        r=None,
     ) -> None:
         axis = _unit(np.asarray(end) - np.asarray(start))
         kind = self.member_kind(el, axis)
@@ -432,6 +479,8 @@ class _Reader:
                 steel=steel,
                 storey=self.storey.get(el.id(), ""),
                 geometry_source=source,
+                root_radius=float(r) * self.s if r is not None else None,
+                texts=self.lookups.all_texts(el, profile_name, mat_profiles, mat),
             )
         )
 
@@ -466,9 +515,19 @@ class _Reader:
         size = main.size * self.s
         order = np.argsort(size)  # smallest = thickness
         n, u, v = order[0], order[2], order[1]
+        center = main.center() * self.s
+        holes = []
+        prof = main.profile
+        for hx, hy, dia in (prof.extra.get("holes", ()) if prof is not None else ()):
+            p = main.origin + main.axes[:, 0] * hx + main.axes[:, 1] * hy
+            p = p * self.s
+            nrm = main.axes[:, n]
+            p = p + nrm * float((center - p) @ nrm)  # onto the mid-plane
+            holes.append((tuple(float(x) for x in p), dia * self.s))
+        holes.extend(self._opening_holes(el, center, main.axes[:, n]))
         self._add_plate(
             el,
-            main.center() * self.s,
+            center,
             main.axes[:, n],
             main.axes[:, u],
             main.axes[:, v],
@@ -476,9 +535,44 @@ class _Reader:
             size[v] / 2,
             size[n],
             "extrusion",
+            holes=holes,
         )
 
-    def _add_plate(self, el, center, normal, u, v, hu, hv, t, source) -> None:
+    def _opening_holes(self, el, center, normal) -> list:
+        """Round holes cut by IfcOpeningElement voids (circle extrusions), on the mid-plane."""
+        out = []
+        for rel in getattr(el, "HasOpenings", None) or ():
+            op = rel.RelatedOpeningElement
+            boxes: list = []
+            try:
+                world = self.placements.aff(op.ObjectPlacement)
+            except NeedsMesh:
+                continue
+            # Any representation that reads as boxes will do (Body extrusion, or the Box).
+            for rep in op.Representation.Representations if op.Representation else ():
+                found: list = []
+                try:
+                    for it in rep.Items:
+                        walk_item(it, world, found)
+                except (NeedsMesh, AttributeError, TypeError, ValueError):
+                    continue
+                if found:
+                    boxes = found
+                    break
+            for b in boxes:
+                size = b.size * self.s
+                along = int(np.argmax(np.abs(b.axes.T @ normal)))
+                if abs(float(b.axes[:, along] @ normal)) < 0.9:
+                    continue  # not square to the plate
+                across = [size[i] for i in range(3) if i != along]
+                if abs(across[0] - across[1]) > 0.1 * max(across):
+                    continue  # a slot or a cut-out, not a round hole
+                c = b.center() * self.s
+                c = c + normal * float((center - c) @ normal)
+                out.append((tuple(float(x) for x in c), float(sum(across) / 2)))
+        return out
+
+    def _add_plate(self, el, center, normal, u, v, hu, hv, t, source, holes=()) -> None:
         mat, _ = self.lookups.material(el)
         self.plates.append(
             Plate(
@@ -494,6 +588,8 @@ class _Reader:
                 thickness=float(t),
                 material=mat,
                 geometry_source=source,
+                holes=tuple(holes),
+                texts=self.lookups.all_texts(el, mat),
             )
         )
 
@@ -550,6 +646,13 @@ class _Reader:
         )
 
     def _add_fastener(self, el, kind, center, axis, length, dia, source) -> None:
+        nd = nl = None
+        if el.is_a("IfcMechanicalFastener"):
+            nd = att(el, "NominalDiameter")
+            nl = att(el, "NominalLength")
+        nd = nd or self.lookups.number(el, _SIZE_KEYS)
+        nl = nl or self.lookups.number(el, _LENGTH_KEYS)
+        mat, _ = self.lookups.material(el)
         self.fasteners.append(
             Fastener(
                 guid=el.GlobalId,
@@ -561,6 +664,9 @@ class _Reader:
                 length=float(length),
                 diameter=float(dia),
                 geometry_source=source,
+                nominal_diameter=float(nd) * self.s if nd else None,
+                nominal_length=float(nl) * self.s if nl else None,
+                texts=self.lookups.all_texts(el, mat),
             )
         )
 
