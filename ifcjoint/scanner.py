@@ -9,8 +9,10 @@ Example:
 
 from __future__ import annotations
 
+from dataclasses import replace
 from pathlib import Path
 
+from ifcjoint.engine.anatomy import analyse
 from ifcjoint.engine.finder import FinderSettings, Progress, find_joints
 from ifcjoint.engine.results import ScanResult
 from ifcjoint.ifc.reader import read_model
@@ -40,4 +42,19 @@ def scan(
     """
     rules = load_rules(rules_file)
     model = read_model(path, assume_length_unit=assume_length_unit, rules=rules, progress=progress)
-    return find_joints(model, settings, progress=progress)
+    return describe_joints(find_joints(model, settings, progress=progress))
+
+
+def describe_joints(result: ScanResult) -> ScanResult:
+    """Add each joint's anatomy, refined archetype and detailing findings to a scan."""
+    anatomy = analyse(result.joints, result.model)
+    joints = tuple(
+        replace(
+            j,
+            archetype=a.archetype,
+            archetype_reason=a.archetype_reason,
+            findings=tuple(f.as_dict() for f in a.findings),
+        )
+        for j, a in zip(result.joints, anatomy, strict=True)
+    )
+    return replace(result, joints=joints, anatomy={a.joint_id: a for a in anatomy})

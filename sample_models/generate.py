@@ -649,6 +649,13 @@ class Frame:
             "welds": sorted(welds),
             "relations": style,
             "defects": list(spec.defects),
+            "archetype": self.expected_archetype(spec, axis),
+            "plate": ({"tp": spec.tp, "bp": spec.bp, "top_from_beam_top": spec.plate_top,
+                       "bottom_from_beam_top": spec.plate_bottom}
+                      if plates and spec.kind.endswith("end_plate") else None),
+            "rows_from_beam_top": (list(spec.rows) if bolts and spec.kind.endswith("end_plate")
+                                   else []),
+            "bolt_d": spec.bolt_d if bolts else None,
             "key": key,
             "level_z": float(top_z),
             "approach": [float(v) for v in t],
@@ -656,6 +663,19 @@ class Frame:
         }
         self.truth.joints.append(rec)
         return rec
+
+    def expected_archetype(self, spec: JointSpec, axis: str) -> str:
+        """The archetype a person reading the model would give this joint."""
+        if spec.kind in ("extended_end_plate", "flush_end_plate"):
+            if not spec.with_plate or not spec.with_bolts or spec.plate_gap > 10.0:
+                return "incomplete"
+            rows_out = any(r < 0 for r in spec.rows)
+            return "extended_end_plate" if rows_out else "flush_end_plate"
+        if spec.kind == "welded":
+            return "undetailed" if (self.opt.beams_to_axis and axis == "major") else "welded"
+        if spec.kind == "fin_plate":
+            return "fin_plate" if self.opt.detail_parts else "undetailed"
+        return "undetailed"
 
     def other_end(self, beam_info, end: str, kind: str, other=None):
         beam, bworld, blen = beam_info
@@ -768,7 +788,7 @@ class Frame:
             "X/0/1/2": (flush(h1), flush(h1)),
             # level 1, line C: extended plates with planted detailing defects, two incomplete
             "X/0/2/0": (extended(h1, bolt_offsets=(-85.0, 85.0), defects=("edge_distance",)),
-                        extended(h1, rows=(-50.0, 60.0, 95.0, 340.0),
+                        extended(h1, rows=(-50.0, 60.0, 95.0, 200.0, 340.0),
                                  defects=("pitch",))),
             "X/0/2/1": (extended(h1, bp=300.0, bolt_offsets=(-50.0, 50.0),
                                  defects=("plate_wider_than_column_flange",)),
@@ -840,7 +860,7 @@ class Frame:
         i, j = self.opt.bays_x, self.opt.bays_y
         zc = self.levels[-1]
         hc = SECTIONS[self.col_section][0]
-        spec = extended(200.0, rows=(-40.0, 50.0, 150.0), bp=120.0, gauge=70.0, tp=15.0,
+        spec = extended(200.0, rows=(-40.0, 50.0, 150.0), bp=160.0, gauge=100.0, tp=15.0,
                         plate_bottom=215.0, plate_top=-80.0)
         x0 = i * self.dx + hc / 2 + spec.tp
         info = self.beam("cantilever", "IPE 200", (x0, j * self.dy, zc),

@@ -31,7 +31,11 @@ PRODUCT_STANDARD_FY: dict[str, tuple[tuple[float, float], ...]] = {
 }
 #: Tensile strength for 3 <= t <= 100 mm in the same product standards. From memory.
 PRODUCT_STANDARD_FU: dict[str, float] = {
-    "S235": 360, "S275": 410, "S355": 470, "S420": 520, "S460": 540,
+    "S235": 360,
+    "S275": 410,
+    "S355": 470,
+    "S420": 520,
+    "S460": 540,
 }
 
 #: Bolt property classes, EN 1993-1-8:2005, Table 3.1: class -> (fyb, fub) in MPa.
@@ -48,17 +52,30 @@ BOLT_CLASSES: dict[str, tuple[float, float]] = {
 # Old national names still found in models, mapped to the EN 10025 grade (common practice,
 # no source).
 _OLD_NAMES = {
-    "FE360": "S235", "FE 360": "S235", "ST37": "S235", "ST 37": "S235", "ST37-2": "S235",
-    "FE430": "S275", "FE 430": "S275", "ST44": "S275",
-    "FE510": "S355", "FE 510": "S355", "ST52": "S355", "ST 52": "S355", "ST52-3": "S355",
+    "FE360": "S235",
+    "FE 360": "S235",
+    "ST37": "S235",
+    "ST 37": "S235",
+    "ST37-2": "S235",
+    "FE430": "S275",
+    "FE 430": "S275",
+    "ST44": "S275",
+    "FE510": "S355",
+    "FE 510": "S355",
+    "ST52": "S355",
+    "ST 52": "S355",
+    "ST52-3": "S355",
 }
 
-_EN_GRADE = re.compile(r"(?<![A-Z0-9])S\s?(235|275|355|420|450|460)\s*([A-Z0-9+]*)",
-                       re.IGNORECASE)
-_OLD = re.compile(r"(?<![A-Z0-9])(FE\s?(?:360|430|510)|ST\s?(?:37|44|52)(?:-\d)?)(?![0-9])",
-                  re.IGNORECASE)
-_FOREIGN = re.compile(r"(?<![A-Z0-9])(A\s?(?:36|572|992|913)|Q\s?(?:235|345|355|390|420|460)|"
-                      r"SS\s?400|SM\s?(?:400|490)|GR(?:ADE)?\.?\s?50)(?![0-9])", re.IGNORECASE)
+_EN_GRADE = re.compile(r"(?<![A-Z0-9])S\s?(235|275|355|420|450|460)\s*([A-Z0-9+]*)", re.IGNORECASE)
+_OLD = re.compile(
+    r"(?<![A-Z0-9])(FE\s?(?:360|430|510)|ST\s?(?:37|44|52)(?:-\d)?)(?![0-9])", re.IGNORECASE
+)
+_FOREIGN = re.compile(
+    r"(?<![A-Z0-9])(A\s?(?:36|572|992|913)|Q\s?(?:235|345|355|390|420|460)|"
+    r"SS\s?400|SM\s?(?:400|490)|GR(?:ADE)?\.?\s?50)(?![0-9])",
+    re.IGNORECASE,
+)
 _BOLT = re.compile(r"(?<![0-9.])(4\.6|4\.8|5\.6|5\.8|6\.8|8\.8|10\.9)(?![0-9])")
 _BOLT_D = re.compile(r"(?<![A-Z0-9])M\s?(\d{1,2})(?:\s*[xX*]\s*(\d{2,3}))?(?![0-9])")
 
@@ -103,8 +120,9 @@ def parse_steel_grade(*texts: str | None) -> SteelGrade | None:
                 return SteelGrade(grade=key, quality="", found_in=t)
         m = _FOREIGN.search(t)
         if m:
-            return SteelGrade(grade=re.sub(r"\s+", "", m.group(1).upper()), found_in=t,
-                              en10025=False)
+            return SteelGrade(
+                grade=re.sub(r"\s+", "", m.group(1).upper()), found_in=t, en10025=False
+            )
     return None
 
 

@@ -89,6 +89,7 @@ class ScanResult:
     joints: tuple[Joint, ...]
     other_beam_ends: tuple[OtherBeamEnd, ...]
     settings: dict = field(default_factory=dict)
+    anatomy: dict = field(default_factory=dict)  # joint id -> JointAnatomy
 
     @property
     def unreadable(self) -> tuple[Unreadable, ...]:

@@ -59,8 +59,9 @@ class ISection:
         EN 1993-1-1:2005, 6.2.6(3)a: A - 2 b tf + (tw + 2 r) tf, not less than eta hw tw
         (eta = 1.0, conservative; the National Annex may give 1.2).
         """
-        return max(self.A - 2 * self.b * self.tf + (self.tw + 2 * self.r) * self.tf,
-                   self.hw * self.tw)
+        return max(
+            self.A - 2 * self.b * self.tf + (self.tw + 2 * self.r) * self.tf, self.hw * self.tw
+        )
 
     @property
     def Iy(self) -> float:  # noqa: N802
@@ -141,17 +142,26 @@ def _fillets_about(r: float, edge: float, *, along_depth: bool) -> float:
 
 # --- designations --------------------------------------------------------------------------
 
-_EURO = re.compile(r"^\s*(?P<fam>IPE|HE|HD)\s*-?\s*(?P<size>\d{2,4})\s*(?P<suf>AA|A|B|M)?\s*$",
-                   re.IGNORECASE)
-_EURO_PREFIX = re.compile(r"^\s*(?P<fam>HEA|HEB|HEM)\s*-?\s*(?P<size>\d{2,4})\s*$",
-                          re.IGNORECASE)
-_UK = re.compile(r"^\s*(?P<fam>UB|UC|UKB|UKC)\s*-?\s*(?P<a>\d+(?:\.\d+)?)\s*[xX*]\s*"
-                 r"(?P<b>\d+(?:\.\d+)?)\s*[xX*]\s*(?P<c>\d+(?:\.\d+)?)\s*$", re.IGNORECASE)
-_UK_SUFFIX = re.compile(r"^\s*(?P<a>\d+)\s*[xX*]\s*(?P<b>\d+)\s*[xX*]\s*(?P<c>\d+(?:\.\d+)?)\s*"
-                        r"(?P<fam>UB|UC|UKB|UKC)\s*$", re.IGNORECASE)
-_WELDED = re.compile(r"^\s*(?:H|I|WI|BH|PG)\s*-?\s*(?P<h>\d+(?:\.\d+)?)\s*[*xX/]\s*"
-                     r"(?P<b>\d+(?:\.\d+)?)\s*[*xX/]\s*(?P<tw>\d+(?:\.\d+)?)\s*[*xX/]\s*"
-                     r"(?P<tf>\d+(?:\.\d+)?)\s*$", re.IGNORECASE)
+_EURO = re.compile(
+    r"^\s*(?P<fam>IPE|HE|HD)\s*-?\s*(?P<size>\d{2,4})\s*(?P<suf>AA|A|B|M)?\s*$", re.IGNORECASE
+)
+_EURO_PREFIX = re.compile(r"^\s*(?P<fam>HEA|HEB|HEM)\s*-?\s*(?P<size>\d{2,4})\s*$", re.IGNORECASE)
+_UK = re.compile(
+    r"^\s*(?P<fam>UB|UC|UKB|UKC)\s*-?\s*(?P<a>\d+(?:\.\d+)?)\s*[xX*]\s*"
+    r"(?P<b>\d+(?:\.\d+)?)\s*[xX*]\s*(?P<c>\d+(?:\.\d+)?)\s*$",
+    re.IGNORECASE,
+)
+_UK_SUFFIX = re.compile(
+    r"^\s*(?P<a>\d+)\s*[xX*]\s*(?P<b>\d+)\s*[xX*]\s*(?P<c>\d+(?:\.\d+)?)\s*"
+    r"(?P<fam>UB|UC|UKB|UKC)\s*$",
+    re.IGNORECASE,
+)
+_WELDED = re.compile(
+    r"^\s*(?:H|I|WI|BH|PG)\s*-?\s*(?P<h>\d+(?:\.\d+)?)\s*[*xX/]\s*"
+    r"(?P<b>\d+(?:\.\d+)?)\s*[*xX/]\s*(?P<tw>\d+(?:\.\d+)?)\s*[*xX/]\s*"
+    r"(?P<tf>\d+(?:\.\d+)?)\s*$",
+    re.IGNORECASE,
+)
 _FIND = re.compile(
     r"(IPE\s*-?\s*\d{2,4}|HE\s*-?\s*\d{2,4}\s*(?:AA|A|B|M)\b|HE[ABM]\s*-?\s*\d{2,4}"
     r"|(?:UKB|UKC|UB|UC)\s*-?\s*\d+\s*[xX*]\s*\d+\s*[xX*]\s*\d+(?:\.\d+)?"
@@ -225,9 +235,15 @@ def catalogue() -> dict[str, ISection]:
         key = canonical_designation(row["designation"])
         if key is None:
             raise ValueError(f"sections.csv: designation {row['designation']!r} not parsable")
-        out[key] = ISection(h=float(row["h"]), b=float(row["b"]), tw=float(row["tw"]),
-                            tf=float(row["tf"]), r=float(row["r"]), name=key,
-                            source="catalogue")
+        out[key] = ISection(
+            h=float(row["h"]),
+            b=float(row["b"]),
+            tw=float(row["tw"]),
+            tf=float(row["tf"]),
+            r=float(row["r"]),
+            name=key,
+            source="catalogue",
+        )
     return out
 
 
@@ -249,8 +265,9 @@ def section_from_designation(designation: str) -> ISection | None:
     return None
 
 
-def dimension_mismatch(model: ISection, named: ISection, *, tol_mm: float = 1.0,
-                       tol_rel: float = 0.02) -> dict[str, tuple[float, float]]:
+def dimension_mismatch(
+    model: ISection, named: ISection, *, tol_mm: float = 1.0, tol_rel: float = 0.02
+) -> dict[str, tuple[float, float]]:
     """Dimensions where the model and the named section differ beyond a tolerance.
 
     A difference counts when it exceeds both ``tol_mm`` and ``tol_rel`` of the named value

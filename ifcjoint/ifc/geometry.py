@@ -682,8 +682,9 @@ def _walk(item, m: Aff, out: list[SolidBox]) -> None:
         origin, axes, s = _frame_from(aff_to_np(m))
         o = origin + axes @ (np.array(c, dtype=float) * s)
         out.append(
-            SolidBox(o, axes, np.zeros(3),
-                     np.array([item.XDim, item.YDim, item.ZDim]) * s, None, "block")
+            SolidBox(
+                o, axes, np.zeros(3), np.array([item.XDim, item.YDim, item.ZDim]) * s, None, "block"
+            )
         )
     elif t == "IfcBlock":
         origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(item.Position))))

@@ -155,12 +155,35 @@ def length_scale_to_mm(f: ifcopenshell.file, path: str, assume: str | None) -> t
 
 
 #: Property names (lower case, no spaces) read for designations, grades and bolt sizes.
-INTERESTING_PROPERTIES = frozenset({
-    "reference", "profile", "profilename", "section", "sectionname", "crosssection",
-    "material", "grade", "steelgrade", "materialgrade", "boltgrade", "class", "propertyclass",
-    "strengthclass", "diameter", "nominaldiameter", "boltdiameter", "size", "boltsize",
-    "length", "nominallength", "boltlength", "standard", "boltstandard", "description",
-})
+INTERESTING_PROPERTIES = frozenset(
+    {
+        "reference",
+        "profile",
+        "profilename",
+        "section",
+        "sectionname",
+        "crosssection",
+        "material",
+        "grade",
+        "steelgrade",
+        "materialgrade",
+        "boltgrade",
+        "class",
+        "propertyclass",
+        "strengthclass",
+        "diameter",
+        "nominaldiameter",
+        "boltdiameter",
+        "size",
+        "boltsize",
+        "length",
+        "nominallength",
+        "boltlength",
+        "standard",
+        "boltstandard",
+        "description",
+    }
+)
 _SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
 _LENGTH_KEYS = ("nominallength", "boltlength", "length")
 
@@ -225,8 +248,14 @@ class _Lookups:
     def all_texts(self, el, *extra: str) -> tuple[str, ...]:
         """Every text of an element that may carry a designation or grade, de-duplicated."""
         t = self.texts(el)
-        out = [*extra, t.get("Name"), t.get("ObjectType"), t.get("TypeName"), t.get("Description"),
-               t.get("Tag")]
+        out = [
+            *extra,
+            t.get("Name"),
+            t.get("ObjectType"),
+            t.get("TypeName"),
+            t.get("Description"),
+            t.get("Tag"),
+        ]
         out += [str(v) for v in self.props.get(el.id(), {}).values() if isinstance(v, str)]
         return tuple(dict.fromkeys(x for x in out if x))
 
@@ -518,7 +547,7 @@ class _Reader:
         center = main.center() * self.s
         holes = []
         prof = main.profile
-        for hx, hy, dia in (prof.extra.get("holes", ()) if prof is not None else ()):
+        for hx, hy, dia in prof.extra.get("holes", ()) if prof is not None else ():
             p = main.origin + main.axes[:, 0] * hx + main.axes[:, 1] * hy
             p = p * self.s
             nrm = main.axes[:, n]

@@ -58,6 +58,7 @@ def scan_to_dict(result: ScanResult) -> dict:
                     for p in (*j.plates, *j.bolts)
                 ],
                 "findings": list(j.findings),
+                "anatomy": (result.anatomy[j.id].as_dict() if j.id in result.anatomy else None),
             }
         )
     return {
@@ -214,6 +215,15 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
     arch = Counter(j.archetype for j in js)
     if arch:
         w("  by archetype: " + ", ".join(f"{k} {v}" for k, v in sorted(arch.items())) + "\n")
+    codes = Counter(f["code"] for j in js for f in j.findings)
+    if codes:
+        w(
+            f"  detailing findings: {sum(codes.values())} ("
+            + ", ".join(f"{k} {v}" for k, v in sorted(codes.items()))
+            + ")\n"
+        )
+    elif js:
+        w("  detailing findings: none\n")
     others = result.other_beam_ends
     kinds = Counter(o.kind for o in others)
     w(
@@ -233,6 +243,17 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
                 f"  {j.label[:28]:<28} {j.id:<15} {(j.beam + ':' + j.beam_end):<30} {j.axis:<6} "
                 f"{j.archetype:<11} {len(j.plates):>6} {nb:>5}  {j.partner or '-'}\n"
             )
+    if not brief and any(j.findings for j in js):
+        w("\nFindings\n")
+        for j in js:
+            for f in j.findings:
+                w(
+                    f"  {j.label[:28]:<28} {f['severity']:<8} {f['code']:<30} {f['message']}"
+                    f" [{f['basis']}]\n"
+                )
+            a = result.anatomy.get(j.id)
+            for u in a.unread if a else ():
+                w(f"  {j.label[:28]:<28} {'unread':<8} {'-':<30} {u}\n")
     if not brief and others:
         w("\nOther beam ends\n")
         for o in others:

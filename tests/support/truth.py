@@ -9,6 +9,17 @@ import numpy as np
 
 from ifcjoint.engine.results import ScanResult
 
+#: Defects the generator plants -> the finding code that must flag them.
+DEFECT_CODES = {
+    "edge_distance": "edge_distance_min",
+    "pitch": "pitch_min",
+    "plate_wider_than_column_flange": "plate_wider_than_column_flange",
+    "bolt_too_short": "bolt_too_short",
+    "plate_without_bolts": "plate_without_bolts",
+    "bolts_without_plate": "bolts_without_plate",
+    "gap_to_column": "gap_to_column",
+}
+
 
 @dataclass
 class Comparison:
@@ -20,6 +31,8 @@ class Comparison:
     wrong_guess: list = field(default_factory=list)
     wrong_partner: list = field(default_factory=list)
     wrong_other: list = field(default_factory=list)
+    missed_defects: list = field(default_factory=list)  # planted, not flagged
+    false_findings: list = field(default_factory=list)  # flagged, not planted
     n_truth: int = 0
 
     def problems(self) -> dict:
@@ -88,8 +101,15 @@ def compare(result: ScanResult, truth: dict) -> Comparison:
                 (t["key"], {"plates": (len(plates), len(t["plates"])),
                             "bolts": (len(bolts), len(t["bolts"])),
                             "welds": (len(welds), len(t["welds"]))}))
-        if j.archetype != t["first_guess"]:
-            cmp.wrong_guess.append((t["key"], j.archetype, t["first_guess"], j.archetype_reason))
+        want_arch = t.get("archetype", t["first_guess"])
+        if j.archetype != want_arch:
+            cmp.wrong_guess.append((t["key"], j.archetype, want_arch, j.archetype_reason))
+        expected = {DEFECT_CODES[d] for d in t["defects"]}
+        if truth["options"].get("anonymous_fasteners") and t["bolts"]:
+            expected.add("bolt_class_missing")  # the names say nothing of the class
+        got = {f["code"] for f in j.findings}
+        cmp.missed_defects += [(t["key"], c) for c in sorted(expected - got)]
+        cmp.false_findings += [(t["key"], c) for c in sorted(got - expected)]
         want = None
         if t["partner"]:
             pk = (t["partner"]["beam"],
