@@ -277,7 +277,8 @@ def section_of(m: Member, findings: list[Finding], unread: list[str], who: str) 
                     "tolerance max(1 mm, 2 %)",
                     measured=diff[worst][0],
                     limit=diff[worst][1],
-                    message=f"{who} is named {named.name} but its {worst} is {diff[worst][0]:.1f} mm "
+                    message=f"{who} is named {named.name} but its {worst} is "
+                    f"{diff[worst][0]:.1f} mm "
                     f"(catalogue {diff[worst][1]:.1f} mm)",
                     elements=(m.guid,),
                 )
@@ -601,7 +602,8 @@ def _completeness(
             Finding(
                 code="gap_to_column",
                 severity="error",
-                basis=f"common practice: plate bears on the column (tolerance {TOUCH_TOLERANCE} mm)",
+                basis="common practice: plate bears on the column "
+                f"(tolerance {TOUCH_TOLERANCE} mm)",
                 measured=p.gap_to_column,
                 limit=TOUCH_TOLERANCE,
                 message=f"end plate stands {p.gap_to_column:.0f} mm off the column face",
@@ -840,7 +842,8 @@ def _detailing(
                 Finding(
                     code="bolt_too_short",
                     severity="error",
-                    basis="common practice: grip + 2 washers (4 mm) + nut 0.9 d + 0.15 d protrusion",
+                    basis="common practice: grip + 2 washers (4 mm) + nut 0.9 d "
+                    "+ 0.15 d protrusion",
                     measured=ln,
                     limit=need_len,
                     message=f"{len(short)} bolt(s) {ln:.0f} mm long for a {grip:.0f} mm grip "
