@@ -24,3 +24,25 @@ def test_no_reserved_pset_prefix_in_our_code():
         text = p.read_text()
         assert "\"Pset_" not in text and "'Pset_" not in text, p
         assert "\"Qto_" not in text and "'Qto_" not in text, p
+
+
+def test_every_formula_names_its_source():
+    """Public functions of ifcjoint.ec3 cite a clause (or say common practice) in the docstring's
+    second paragraph (STYLE.md: one format, checkable)."""
+    import importlib
+    import inspect
+    import pkgutil
+
+    import ifcjoint.ec3 as ec3
+
+    found = 0
+    for m in pkgutil.iter_modules(ec3.__path__):
+        mod = importlib.import_module(f"ifcjoint.ec3.{m.name}")
+        for name, fn in inspect.getmembers(mod, inspect.isfunction):
+            if name.startswith("_") or fn.__module__ != mod.__name__:
+                continue
+            paras = [p.strip() for p in (fn.__doc__ or "").split("\n\n") if p.strip()]
+            assert len(paras) >= 2, name
+            assert paras[1].startswith(("EN ", "Common practice")), (name, paras[1])
+            found += 1
+    assert found >= 5

@@ -98,3 +98,28 @@ def test_labels_use_storey_and_grid(scan_cached):
     # Grid lines 1-4 (U) and A-C (V); level-1 beams sit on the ground-floor storey.
     assert "Ground floor 1/A" in labels
     assert all("/" in lab for lab in labels)
+
+
+def test_demo_anatomy_matches_what_was_built(scan_cached):
+    """Plate sizes, projections, bolt rows and diameters against the generator's truth."""
+    name = "kestrel-workshop-ifc4-mm"
+    truth = json.loads((SAMPLES / f"{name}.truth.json").read_text())
+    r = scan_cached(SAMPLES / f"{name}.ifc")
+    from tests.support.truth import end_map
+
+    emap = end_map(r, truth)
+    by_key = {(j.beam, j.beam_end): j for j in r.joints}
+    checked = 0
+    for t in truth["joints"]:
+        j = by_key[(t["beam"], emap[(t["beam"], t["beam_end"])])]
+        a = r.anatomy[j.id]
+        if t["plate"] and t["rows_from_beam_top"]:
+            assert a.plate.tp == pytest.approx(t["plate"]["tp"], abs=0.5)
+            assert a.plate.bp == pytest.approx(t["plate"]["bp"], abs=0.5)
+            assert a.plate.top_from_beam_top == pytest.approx(
+                t["plate"]["top_from_beam_top"], abs=0.5)
+            assert [x.from_beam_top for x in a.bolts.rows] == pytest.approx(
+                t["rows_from_beam_top"], abs=0.5)
+            assert a.bolts.d == t["bolt_d"]
+            checked += 1
+    assert checked >= 25
