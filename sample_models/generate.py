@@ -31,6 +31,7 @@ import ifcopenshell.api.aggregate
 import ifcopenshell.api.context
 import ifcopenshell.api.material
 import ifcopenshell.api.owner
+import ifcopenshell.api.pset
 import ifcopenshell.api.root
 import ifcopenshell.api.unit
 import ifcopenshell.guid
@@ -73,6 +74,7 @@ class Options:
     split_columns: bool = False  # one column piece per storey, spliced 600 mm above floor
     anonymous_fasteners: bool = False  # bolts named only "Part n": recognised by shape
     grid_placed_columns: bool = False  # columns placed by IfcGridPlacement (IFC4 and later)
+    bolt_data_in_pset: bool = False  # bolt size and class only in a property set
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -493,10 +495,10 @@ class Frame:
                 "IfcFastener": f"Bolt {label}",
                 "IfcDiscreteAccessory": f"bolt {label}",
                 "IfcBuildingElementProxy": f"Bolt assembly {label}"}[cls]
-        if self.opt.anonymous_fasteners:
+        if self.opt.anonymous_fasteners or self.opt.bolt_data_in_pset:
             name = self.name("Part")
         el = w.root(cls, name, f"bolt/{key}")
-        if cls == "IfcMechanicalFastener":
+        if cls == "IfcMechanicalFastener" and not self.opt.bolt_data_in_pset:
             el.NominalDiameter = w.L(d)
             el.NominalLength = w.L(length)
             if self.opt.schema != "IFC2X3":
@@ -512,6 +514,14 @@ class Frame:
         items = [w.extrusion(shank, length, np.eye(4)), w.extrusion(head, 0.65 * d, hm)]
         el.Representation = w.shape(items, "SweptSolid")
         self.place_part(el, m_world, parent)
+        if self.opt.bolt_data_in_pset:
+            pset = ifcopenshell.api.pset.add_pset(w.f, product=el, name="KLW_BoltData")
+            ifcopenshell.api.pset.edit_pset(w.f, pset=pset, properties={
+                "Diameter": w.L(d), "Length": w.L(length), "Grade": grade})
+            pset.GlobalId = gid(f"pset/{el.GlobalId}")
+            for rel in w.f.get_inverse(pset):
+                if rel.is_a("IfcRelDefinesByProperties"):
+                    rel.GlobalId = gid(f"rdp/{el.GlobalId}")
         return el
 
     def weld(self, key: str, length: float, a: float, m_world: np.ndarray, parent):

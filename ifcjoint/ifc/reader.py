@@ -243,6 +243,9 @@ class _Lookups:
         tn = self.type_name.get(el.id())
         if tn:
             out["TypeName"] = tn
+        props = self.props.get(el.id())
+        if props:
+            out["Properties"] = " ".join(str(v) for v in props.values())
         return out
 
     def all_texts(self, el, *extra: str) -> tuple[str, ...]:
@@ -850,13 +853,15 @@ def _read(f, path, sha, scale, unit_source, rules, progress) -> ModelContents:
             seen.add(el.id())
             texts = r.lookups.texts(el)
             kind = rules.fastener_kind(el.is_a(), texts)
-            if kind is not None:
+            if kind not in (None, "other"):
                 fasteners.append((el, kind))
             elif rules.is_plate(el.is_a(), texts):
                 plates.append(el)
             elif r.bolt_shaped(el):
                 fasteners.append((el, "bolt"))
                 r.notes.append(f"{el.GlobalId} ({el.is_a()}): taken as a bolt by its shape")
+            elif kind == "other":
+                fasteners.append((el, kind))
             else:
                 ignored[el.is_a()] += 1
 

@@ -41,6 +41,7 @@ VARIANTS = [
     dict(fastener_class="IfcDiscreteAccessory"),
     dict(fastener_class="IfcBuildingElementProxy"),
     dict(fastener_class="IfcBuildingElementProxy", anonymous_fasteners=True),
+    dict(schema="IFC2X3", fastener_class="IfcFastener", bolt_data_in_pset=True),
     dict(nested_parts=False),
     dict(grid_placed_columns=True, rotation_deg=17.0),
     dict(grid_placed_columns=True, schema="IFC4X3", split_columns=True),
