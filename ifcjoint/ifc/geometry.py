@@ -11,6 +11,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 import shapely
+import shapely.affinity
 
 SOLID_REP_IDS = ("Body", "Model", "", None)
 AXIS_REP_IDS = ("Axis", "Box", "FootPrint", "Annotation", "Profile", "Clearance", "Reference")
@@ -326,7 +327,17 @@ def curve_points(curve) -> np.ndarray:
         return np.array([p.Coordinates[:2] for p in curve.Points], dtype=float)
     if t == "IfcIndexedPolyCurve":
         pts = np.array(curve.Points.CoordList, dtype=float)[:, :2]
-        return pts
+        segs = curve.Segments
+        if not segs:
+            return pts
+        out = []
+        for seg in segs:
+            idx = [i - 1 for i in seg.wrappedValue]
+            if seg.is_a("IfcArcIndex") and len(idx) == 3:
+                out.extend(_arc_through(pts[idx[0]], pts[idx[1]], pts[idx[2]]))
+            else:
+                out.extend(pts[i] for i in idx)
+        return np.array(out, dtype=float)
     if t in ("IfcCompositeCurve", "IfcCompositeCurveOnSurface"):
         out = []
         for seg in curve.Segments:
@@ -355,6 +366,27 @@ def curve_points(curve) -> np.ndarray:
         pts = np.c_[np.cos(ang) * curve.SemiAxis1, np.sin(ang) * curve.SemiAxis2]
         return pts @ m[:2, :2].T + m[:2, 3]
     raise NeedsMesh(f"curve {t}")
+
+
+def _arc_through(a: np.ndarray, b: np.ndarray, c: np.ndarray, n: int = 9) -> list[np.ndarray]:
+    """Points along the circular arc from a through b to c (a straight line if collinear)."""
+    d = 2 * (a[0] * (b[1] - c[1]) + b[0] * (c[1] - a[1]) + c[0] * (a[1] - b[1]))
+    if abs(d) < 1e-12:
+        return [a, b, c]
+    ux = ((a @ a) * (b[1] - c[1]) + (b @ b) * (c[1] - a[1]) + (c @ c) * (a[1] - b[1])) / d
+    uy = ((a @ a) * (c[0] - b[0]) + (b @ b) * (a[0] - c[0]) + (c @ c) * (b[0] - a[0])) / d
+    ctr = np.array([ux, uy])
+    rad = float(np.linalg.norm(a - ctr))
+    t0, t1, tm = (math.atan2(*(p - ctr)[::-1]) for p in (a, c, b))
+    # go from t0 to t1 the way that passes tm
+    def between(x, s, e):
+        return (x - s) % (2 * math.pi) <= (e - s) % (2 * math.pi)
+    if between(tm, t0, t1):
+        span = (t1 - t0) % (2 * math.pi)
+    else:
+        span = -((t0 - t1) % (2 * math.pi))
+    return [ctr + rad * np.array([math.cos(t0 + span * k / (n - 1)),
+                                  math.sin(t0 + span * k / (n - 1))]) for k in range(n)]
 
 
 def _arc_points(circle, p0: np.ndarray, p1: np.ndarray, sense: bool) -> np.ndarray:
@@ -387,6 +419,46 @@ def _second_moments(pts: np.ndarray) -> tuple[float, float]:
     ixx = ((y * y + y * yn + yn * yn) * cr).sum() / 12 - a * cy * cy
     iyy = ((x * x + x * xn + xn * xn) * cr).sum() / 12 - a * cx * cx
     return abs(float(ixx)), abs(float(iyy))
+
+
+def i_shape_from_outline(poly, depth_axis: str = "y") -> tuple[float, float, float] | None:
+    """Web and flange thickness and root radius of an I drawn as a polygon, or None.
+
+    Widths are measured with shapely on lines across the section: the web at mid-depth, the
+    flanges just inside the outer faces; the flange thickness is where the width drops from
+    the flange's to less than its half; the root radius follows from the area the fillets
+    add to the three rectangles, (4 - pi) r^2. None when the outline is not an I (web not
+    clearly narrower than the flanges, or flanges of unequal width).
+    """
+    if poly.is_empty or poly.area <= 0:
+        return None
+    x0, y0, x1, y1 = poly.bounds
+    if depth_axis == "x":  # measure in a frame where the depth runs along y
+        poly = shapely.affinity.rotate(poly, 90, origin=(0, 0))
+        x0, y0, x1, y1 = poly.bounds
+    h, b = y1 - y0, x1 - x0
+
+    def width_at(y: float) -> float:
+        line = shapely.LineString([(x0 - 1, y), (x1 + 1, y)])
+        return float(poly.intersection(line).length)
+
+    tw = width_at((y0 + y1) / 2)
+    top, bottom = width_at(y1 - 1e-3 * h), width_at(y0 + 1e-3 * h)
+    if not (tw < 0.5 * b and abs(top - bottom) < 0.02 * b and top > 0.9 * b):
+        return None
+    # flange thickness: bisect the height where the width drops below half the flange width
+    lo, hi = y1 - 0.5 * h, y1
+    for _ in range(40):
+        mid = (lo + hi) / 2
+        if width_at(mid) > 0.5 * (b + tw):
+            hi = mid
+        else:
+            lo = mid
+    tf = y1 - hi
+    rect = 2 * b * tf + (h - 2 * tf) * tw
+    extra = max(poly.area - rect, 0.0)
+    r = math.sqrt(extra / (4 - math.pi)) if extra > 0 else 0.0
+    return tw, tf, r
 
 
 def profile_info(profile) -> ProfileInfo:
@@ -490,6 +562,7 @@ def profile_info(profile) -> ProfileInfo:
         ixx, iyy = _second_moments(pts)
         depth_axis = "x" if iyy > 1.2 * ixx else "y"
         h, b = (x1 - x0, y1 - y0) if depth_axis == "x" else (y1 - y0, x1 - x0)
+        i_dims = i_shape_from_outline(poly, depth_axis) if not holes else None
         return ProfileInfo(
             t,
             name,
@@ -500,6 +573,9 @@ def profile_info(profile) -> ProfileInfo:
             area=area,
             h=h,
             b=b,
+            tw=i_dims[0] if i_dims else None,
+            tf=i_dims[1] if i_dims else None,
+            r=i_dims[2] if i_dims else None,
             depth_axis=depth_axis,
             extra={"outline": outer, "holes": holes},
         )

@@ -60,6 +60,30 @@ def test_ipe240_beam_dimensions_read_from_both_exporters(scan_cached):
         assert beams[0].steel == "steel"
 
 
+def test_i_section_recovered_from_polygon_outlines(scan_cached):
+    """IPE 240: tw 6.2, tf 9.8, r 15 mm (EN 10365, from memory). One exporter draws the outline
+    with arcs (indexed poly-curve, metres, lying on its side), the other without fillets
+    (SOURCES.md: "unfilleted"), so r is ~0 there."""
+    a = [m for m in scan_cached(_get("ipe240-beam-ifc4-m-german-names.ifc")).model.members][0]
+    assert (a.web_thickness, a.flange_thickness) == pytest.approx((6.2, 9.8), abs=0.05)
+    assert a.root_radius == pytest.approx(15.0, abs=0.5)  # arcs sampled: close, not exact
+    b = [m for m in scan_cached(_get("ipe240-beam-in-assembly-ifc4-mm.ifc")).model.members][0]
+    assert (b.web_thickness, b.flange_thickness) == pytest.approx((6.2, 9.8), abs=0.05)
+    assert b.root_radius == pytest.approx(0.0, abs=0.5)
+
+
+def test_base_plates_read_plausibly(scan_cached):
+    """Checked by eye in the file: three 400 x 400 x 12 base plates under HEA 240 columns, each
+    with four openings of 32 mm (IfcOpeningElement, box representations) at +-159 mm."""
+    r = scan_cached(_get("steel-columns-baseplates-holes-ifc4-m.ifc"))
+    base = [p for p in r.model.plates if "base" in p.name.lower()]
+    assert len(base) == 3
+    for p in base:
+        assert p.thickness == pytest.approx(12.0, abs=0.1)
+        assert (2 * p.half_u, 2 * p.half_v) == pytest.approx((400.0, 400.0), abs=0.5)
+        assert [round(h[1]) for h in p.holes] == [32, 32, 32, 32]
+
+
 def test_concrete_and_timber_controls_give_no_joints(scan_cached):
     for name in ("concrete-frame-building-ifc4x3-mm.ifc",
                  "timber-window-frames-assemblies-ifc2x3-mm.ifczip"):
