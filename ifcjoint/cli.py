@@ -108,13 +108,38 @@ def main() -> None:
     type=click.Path(exists=True, dir_okay=False),
     help="Extra element recognition rules (TOML, like ifcjoint/data/recognition.toml).",
 )
+@click.option(
+    "--assume-grade",
+    type=click.Choice(["S235", "S275", "S355", "S420", "S460"]),
+    default=None,
+    help="Steel grade to use where the model gives none (reported as assumed).",
+)
+@click.option(
+    "--assume-bolt-class",
+    type=click.Choice(["4.6", "4.8", "5.6", "5.8", "6.8", "8.8", "10.9"]),
+    default=None,
+    help="Bolt property class to use where the model gives none (reported).",
+)
 @click.option("--brief", is_flag=True, help="Counts only; do not list every joint and beam end.")
 @click.option(
     "--quiet", "-q", is_flag=True, help="Print nothing on stdout (outputs still written)."
 )
 @click.option("--debug", is_flag=True, help="Show a traceback on internal errors.")
-def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, quiet, debug):
+def scan(
+    model,
+    json_out,
+    csv_out,
+    tolerance,
+    length_unit,
+    rules_file,
+    assume_grade,
+    assume_bolt_class,
+    brief,
+    quiet,
+    debug,
+):
     """Find every beam-to-column joint in MODEL (.ifc or .ifczip) and account for every beam end."""
+    from ifcjoint.engine.anatomy import AnatomySettings
     from ifcjoint.outputs.scan import write_scan_csv, write_scan_json, write_scan_summary
     from ifcjoint.scanner import scan as run_scan
 
@@ -126,6 +151,9 @@ def scan(model, json_out, csv_out, tolerance, length_unit, rules_file, brief, qu
             assume_length_unit=length_unit,
             rules_file=rules_file,
             progress=bar,
+            anatomy=AnatomySettings(
+                assume_steel_grade=assume_grade, assume_bolt_class=assume_bolt_class
+            ),
         )
     except ModelError as exc:
         bar.close()

@@ -12,7 +12,7 @@ from __future__ import annotations
 from dataclasses import replace
 from pathlib import Path
 
-from ifcjoint.engine.anatomy import analyse
+from ifcjoint.engine.anatomy import AnatomySettings, analyse
 from ifcjoint.engine.finder import FinderSettings, Progress, find_joints
 from ifcjoint.engine.results import ScanResult
 from ifcjoint.ifc.reader import read_model
@@ -26,6 +26,7 @@ def scan(
     assume_length_unit: str | None = None,
     rules_file: str | Path | None = None,
     progress: Progress | None = None,
+    anatomy: AnatomySettings | None = None,
 ) -> ScanResult:
     """Read a model and find every beam-to-column joint in it.
 
@@ -35,6 +36,7 @@ def scan(
         assume_length_unit: unit to use only if the model declares none.
         rules_file: extra recognition rules (TOML) on top of the bundled ones.
         progress: optional callback ``(stage, done, total)``.
+        anatomy: what to assume where the model says nothing (reported as assumptions).
 
     Raises:
         ifcjoint.errors.ModelError: the model cannot be used.
@@ -42,12 +44,12 @@ def scan(
     """
     rules = load_rules(rules_file)
     model = read_model(path, assume_length_unit=assume_length_unit, rules=rules, progress=progress)
-    return describe_joints(find_joints(model, settings, progress=progress))
+    return describe_joints(find_joints(model, settings, progress=progress), anatomy)
 
 
-def describe_joints(result: ScanResult) -> ScanResult:
+def describe_joints(result: ScanResult, settings: AnatomySettings | None = None) -> ScanResult:
     """Add each joint's anatomy, refined archetype and detailing findings to a scan."""
-    anatomy = analyse(result.joints, result.model)
+    anatomy = analyse(result.joints, result.model, settings)
     joints = tuple(
         replace(
             j,

@@ -928,9 +928,12 @@ class Frame:
             else:
                 asm.AssemblyPlace = "FACTORY"
                 asm.PredefinedType = "USERDEFINED"
-            asm.ObjectPlacement = self.w.placement(np.eye(4), self.storeys[0][0].ObjectPlacement)
+            # the assembly sits in the storey of its main member
+            home = next((st for st, _ in self.storeys
+                         if group[0] in self.w.contained[st.id()]), self.storeys[0][0])
+            asm.ObjectPlacement = self.w.placement(np.eye(4), home.ObjectPlacement)
             ifcopenshell.api.aggregate.assign_object(f, products=group, relating_object=asm)
-            self.w.contained[self.storeys[0][0].id()].append(asm)
+            self.w.contained[home.id()].append(asm)
             n += 1
         # Containment: one relation per storey; assembly parts are contained via the assembly.
         in_asm = {p.id() for g in list(self.parts_by_beam.values())

@@ -12,7 +12,7 @@ above it), lateral positions from the beam's web centreline.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
@@ -26,6 +26,21 @@ from ifcjoint.engine.sections import (
     find_designation,
     section_from_designation,
 )
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class AnatomySettings:
+    """User choices for what the model does not say.
+
+    Attributes:
+        assume_steel_grade: grade used where a member or plate has none (e.g. ``S355``); every
+            use is reported as an assumption. None: a missing grade stays missing.
+        assume_bolt_class: bolt property class used where none is found (e.g. ``8.8``).
+    """
+
+    assume_steel_grade: str | None = None
+    assume_bolt_class: str | None = None
+
 
 ROW_TOLERANCE = 10.0  # mm: bolts closer than this in height form one row (common practice)
 TOUCH_TOLERANCE = 5.0  # mm: a plate this close to the column face touches it
@@ -119,6 +134,7 @@ class BoltReading:
     rows: tuple[BoltRow, ...]
     gauge: float | None
     pitches: tuple[float, ...]
+    tstub: dict | None = None  # T-stub geometry, see tstub_geometry()
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -138,6 +154,7 @@ class JointAnatomy:
     web_plates: tuple[str, ...] = ()
     findings: tuple[Finding, ...] = ()
     unread: tuple[str, ...] = ()
+    assumed: tuple[str, ...] = ()
 
     def as_dict(self) -> dict:
         """JSON-ready form (mm, MPa)."""
@@ -194,6 +211,7 @@ class JointAnatomy:
                 "gauge": _r(b.gauge),
                 "pitches": [round(x, 2) for x in b.pitches],
                 "rows_from_beam_top": [round(r.from_beam_top, 2) for r in b.rows],
+                "tstub": b.tstub,
                 "rows": [
                     {
                         "index": r.index,
@@ -207,6 +225,7 @@ class JointAnatomy:
             "stiffeners": list(self.stiffeners),
             "web_plates": list(self.web_plates),
             "unread": list(self.unread),
+            "assumed": list(self.assumed),
         }
 
 
@@ -317,20 +336,31 @@ def grade_of(material: str, texts: tuple[str, ...]) -> str | None:
     return g.grade if g else None
 
 
-def analyse(result_joints: tuple[Joint, ...], model: ModelContents) -> tuple[JointAnatomy, ...]:
+def analyse(
+    result_joints: tuple[Joint, ...],
+    model: ModelContents,
+    settings: AnatomySettings | None = None,
+) -> tuple[JointAnatomy, ...]:
     """Anatomy and detailing findings of every joint."""
     members = {m.guid: m for m in model.members}
     plates = {p.guid: p for p in model.plates}
     fasteners = {f.guid: f for f in model.fasteners}
-    return tuple(analyse_joint(j, members, plates, fasteners) for j in result_joints)
+    st = settings or AnatomySettings()
+    return tuple(analyse_joint(j, members, plates, fasteners, st) for j in result_joints)
 
 
 def analyse_joint(
-    j: Joint, members: dict[str, Member], plates: dict[str, Plate], fasteners: dict[str, Fastener]
+    j: Joint,
+    members: dict[str, Member],
+    plates: dict[str, Plate],
+    fasteners: dict[str, Fastener],
+    settings: AnatomySettings | None = None,
 ) -> JointAnatomy:
     """Anatomy of one joint; never raises for bad data (it goes into ``unread``)."""
+    st = settings or AnatomySettings()
     findings: list[Finding] = []
     unread: list[str] = []
+    assumed: list[str] = []
     beam, col = members[j.beam], members[j.column]
     fr = joint_frame(j, beam, col)
     bsec = section_of(beam, findings, unread, "beam")
@@ -338,7 +368,13 @@ def analyse_joint(
     bgrade = grade_of(beam.material, beam.texts)
     cgrade = grade_of(col.material, col.texts)
     for who, g, m in (("beam", bgrade, beam), ("column", cgrade, col)):
-        if g is None:
+        if g is None and st.assume_steel_grade:
+            assumed.append(f"{who} grade {st.assume_steel_grade} (user setting; none in model)")
+            if who == "beam":
+                bgrade = st.assume_steel_grade
+            else:
+                cgrade = st.assume_steel_grade
+        elif g is None:
             findings.append(
                 Finding(
                     code="grade_missing",
@@ -371,7 +407,9 @@ def analyse_joint(
         main = max(cands, key=lambda p: p.half_u * p.half_v)
     bolt_list = [fasteners[b.guid] for b in j.bolts if b.role == "bolt"]
     plate_r = _read_plate(main, main_role, fr, beam, col, j) if main is not None else None
-    bolt_r = _read_bolts(bolt_list, fr, main, findings, unread) if bolt_list else None
+    bolt_r = _read_bolts(bolt_list, fr, main, findings, unread, st, assumed) if bolt_list else None
+    if bolt_r is not None and plate_r is not None and main_role == "end_plate":
+        bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
     archetype, why = _archetype(j, plate_r, bolt_r, bsec, main_role)
     if plate_r is not None and bolt_r is not None and main is not None:
         _detailing(j, fr, main, plate_r, bolt_r, bolt_list, bsec, csec, findings)
@@ -390,7 +428,32 @@ def analyse_joint(
         web_plates=tuple(sorted(web_plates)),
         findings=tuple(findings),
         unread=tuple(unread),
+        assumed=tuple(assumed),
     )
+
+
+def tstub_geometry(p: PlateReading, b: BoltReading, csec: ISection | None) -> dict:
+    """Geometric distances of the T-stubs (mm), in the notation of EN 1993-1-8.
+
+    EN 1993-1-8:2005, 6.2.6.4 Figure 6.8 (column flange: m = w/2 - tw/2 - 0.8 r,
+    e = (b - w)/2) and 6.2.6.5 Figure 6.10 (end plate: e = (bp - w)/2; extension: ex from
+    the top row to the plate's top edge, and the row's distance to the top face of the beam
+    flange, from which the check engine deducts 0.8 x the weld's leg to get mx). The weld
+    deductions need weld sizes, which models rarely carry: they are left to the check.
+    """
+    w = b.gauge
+    out: dict = {"w": _r(w)}
+    if w is None:
+        return out
+    if csec is not None:
+        out["m_column"] = _r(w / 2 - csec.tw / 2 - 0.8 * csec.r)
+        out["e_column"] = _r((csec.b - w) / 2)
+    out["e_plate"] = _r((p.bp - w) / 2)
+    top = b.rows[0]
+    if top.from_beam_top < 0:
+        out["ex"] = _r(top.from_beam_top - p.top_from_beam_top)
+        out["row1_above_flange"] = _r(-top.from_beam_top)
+    return out
 
 
 def _plate_extent(p: Plate, axis: np.ndarray) -> float:
@@ -453,10 +516,20 @@ def _bolt_size(fs: list[Fastener]) -> tuple[float | None, str, str | None, float
 
 
 def _read_bolts(
-    fs: list[Fastener], fr: _Frame, plate: Plate | None, findings: list[Finding], unread: list[str]
+    fs: list[Fastener],
+    fr: _Frame,
+    plate: Plate | None,
+    findings: list[Finding],
+    unread: list[str],
+    st: AnatomySettings | None = None,
+    assumed: list[str] | None = None,
 ) -> BoltReading:
     d, d_src, cls, length = _bolt_size(fs)
-    if cls is None:
+    if cls is None and st is not None and st.assume_bolt_class:
+        cls = st.assume_bolt_class
+        if assumed is not None:
+            assumed.append(f"bolt class {cls} (user setting; none in model)")
+    elif cls is None:
         findings.append(
             Finding(
                 code="bolt_class_missing",
@@ -670,7 +743,20 @@ def _detailing(
                     elements=(p.guid, *ids),
                 )
             )
-    if e_side < emin - 0.5:
+    if e_side < d0 / 2:
+        out.append(
+            Finding(
+                code="bolt_outside_outline",
+                severity="error",
+                basis="the hole must lie within the plate (3D position of the bolt axis)",
+                measured=e_side,
+                limit=d0 / 2,
+                message=f"a bolt axis lies {e_side:.0f} mm from the plate's edge: the hole is "
+                "not inside the plate",
+                elements=(p.guid, *ids),
+            )
+        )
+    elif e_side < emin - 0.5:
         out.append(
             Finding(
                 code="edge_distance_min",
@@ -791,7 +877,20 @@ def _detailing(
     col_lat = _column_lateral_offset(j, fr)
     ys_col = [y + col_lat for r in b.rows for y in r.lateral]
     e_col = min(csec.b / 2 - abs(y) for y in ys_col)
-    if e_col < emin - 0.5:
+    if e_col < d0 / 2:
+        out.append(
+            Finding(
+                code="bolt_outside_outline",
+                severity="error",
+                basis="the hole must lie within the column flange (3D position of the bolt axis)",
+                measured=e_col,
+                limit=d0 / 2,
+                message=f"a bolt axis lies {e_col:.0f} mm from the column flange tip: the hole "
+                "is not inside the flange",
+                elements=(j.column, *ids),
+            )
+        )
+    elif e_col < emin - 0.5:
         out.append(
             Finding(
                 code="column_edge_distance_min",

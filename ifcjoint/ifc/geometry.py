@@ -378,15 +378,19 @@ def _arc_through(a: np.ndarray, b: np.ndarray, c: np.ndarray, n: int = 9) -> lis
     ctr = np.array([ux, uy])
     rad = float(np.linalg.norm(a - ctr))
     t0, t1, tm = (math.atan2(*(p - ctr)[::-1]) for p in (a, c, b))
+
     # go from t0 to t1 the way that passes tm
     def between(x, s, e):
         return (x - s) % (2 * math.pi) <= (e - s) % (2 * math.pi)
+
     if between(tm, t0, t1):
         span = (t1 - t0) % (2 * math.pi)
     else:
         span = -((t0 - t1) % (2 * math.pi))
-    return [ctr + rad * np.array([math.cos(t0 + span * k / (n - 1)),
-                                  math.sin(t0 + span * k / (n - 1))]) for k in range(n)]
+    return [
+        ctr + rad * np.array([math.cos(t0 + span * k / (n - 1)), math.sin(t0 + span * k / (n - 1))])
+        for k in range(n)
+    ]
 
 
 def _arc_points(circle, p0: np.ndarray, p1: np.ndarray, sense: bool) -> np.ndarray:

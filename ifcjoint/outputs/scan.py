@@ -234,17 +234,22 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
     if not brief and js:
         w("\nJoints\n")
         w(
-            f"  {'label':<28} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<11} "
+            f"  {'label':<28} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<18} "
             f"{'plates':>6} {'bolts':>5}  partner\n"
         )
         for j in js:
             nb = sum(1 for b in j.bolts if b.role == "bolt")
             w(
                 f"  {j.label[:28]:<28} {j.id:<15} {(j.beam + ':' + j.beam_end):<30} {j.axis:<6} "
-                f"{j.archetype:<11} {len(j.plates):>6} {nb:>5}  {j.partner or '-'}\n"
+                f"{j.archetype:<18} {len(j.plates):>6} {nb:>5}  {j.partner or '-'}\n"
             )
-    if not brief and any(j.findings for j in js):
-        w("\nFindings\n")
+
+    def noted(j) -> bool:
+        a = result.anatomy.get(j.id)
+        return bool(j.findings or (a and (a.unread or a.assumed)))
+
+    if not brief and any(noted(j) for j in js):
+        w("\nFindings, unread and assumed data\n")
         for j in js:
             for f in j.findings:
                 w(
@@ -254,6 +259,8 @@ def write_scan_summary(result: ScanResult, out: TextIO, *, brief: bool = False) 
             a = result.anatomy.get(j.id)
             for u in a.unread if a else ():
                 w(f"  {j.label[:28]:<28} {'unread':<8} {'-':<30} {u}\n")
+            for u in a.assumed if a else ():
+                w(f"  {j.label[:28]:<28} {'assumed':<8} {'-':<30} {u}\n")
     if not brief and others:
         w("\nOther beam ends\n")
         for o in others:

@@ -53,8 +53,16 @@ def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160
                       plates=tuple(plates), fasteners=tuple(bolts))
     res = find_joints(m)
     (j,) = [j for j in res.joints if j.beam == "BEAM"]
+    _LAST[:] = [(j,), m]
     (a,) = analyse((j,), m)
     return a
+
+
+_LAST: list = []
+
+
+def _last_model():
+    return _LAST
 
 
 def codes(a):
@@ -129,3 +137,34 @@ def test_thicker_plate_and_longer_bolt_only_remove_findings():
     base = set(codes(build(tp=15.0, length=50.0)))
     assert set(codes(build(tp=20.0, length=50.0))) <= base
     assert set(codes(build(tp=15.0, length=90.0))) <= base
+
+
+def test_assumed_grade_and_bolt_class_are_reported_not_silent():
+    from ifcjoint.engine.anatomy import AnatomySettings
+
+    a = build(beam_material="Steel_Undefined", bolt_text="BOLT M20x70")
+    assert a.beam_grade is None and a.bolts.bolt_class is None
+    assert {"grade_missing", "bolt_class_missing"} <= set(codes(a))
+    # same joint with user defaults: used, and said so
+    import ifcjoint.engine.anatomy as an
+
+    j_model = _last_model()
+    (b,) = an.analyse(j_model[0], j_model[1], AnatomySettings(assume_steel_grade="S355",
+                                                              assume_bolt_class="8.8"))
+    assert b.beam_grade == "S355" and b.bolts.bolt_class == "8.8"
+    assert any("user setting" in x for x in b.assumed) and len(b.assumed) == 2
+    assert "grade_missing" not in codes(b)
+
+
+def test_tstub_geometry_of_the_clean_joint():
+    # EN 1993-1-8 Fig 6.8: m = w/2 - tw/2 - 0.8 r = 50 - 5 - 19.2 = 25.8; e = (260 - 100)/2 = 80;
+    # plate e = (200 - 100)/2 = 50; ex = 100 - 50 = 50 (row 1 is 50 above the flange).
+    t = build().bolts.tstub
+    assert t["m_column"] == pytest.approx(25.8) and t["e_column"] == pytest.approx(80)
+    assert t["e_plate"] == pytest.approx(50) and t["ex"] == pytest.approx(50)
+    assert t["row1_above_flange"] == pytest.approx(50)
+
+
+def test_hole_outside_the_plate_is_its_own_finding():
+    a = build(offsets=(-95.0, 95.0))  # 5 mm from a 200 mm plate's edge, d0/2 = 11
+    assert "bolt_outside_outline" in codes(a) and "edge_distance_min" not in codes(a)

@@ -94,11 +94,22 @@ def test_rotated_nested_frame_finds_the_same_joints_at_rotated_points(build_vari
 
 
 def test_labels_use_storey_and_grid(scan_cached):
-    r = scan_cached(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    name = "kestrel-workshop-ifc4-mm"
+    truth = json.loads((SAMPLES / f"{name}.truth.json").read_text())
+    r = scan_cached(SAMPLES / f"{name}.ifc")
     labels = {j.label for j in r.joints}
-    # Grid lines 1-4 (U) and A-C (V); level-1 beams sit on the ground-floor storey.
+    # Grid lines 1-4 (U) and A-C (V); level-1 beams (top 4000) sit on the ground-floor storey,
+    # level-2 beams (top 7500) on the first floor -- also when they are parts of an assembly.
     assert "Ground floor 1/A" in labels
     assert all("/" in lab for lab in labels)
+    from tests.support.truth import end_map
+
+    emap = end_map(r, truth)
+    by_key = {(j.beam, j.beam_end): j for j in r.joints}
+    storey = {4000.0: "Ground floor", 7500.0: "First floor"}
+    for t in truth["joints"]:
+        j = by_key[(t["beam"], emap[(t["beam"], t["beam_end"])])]
+        assert j.storey == storey[t["level_z"]], t["key"]
 
 
 def test_demo_anatomy_matches_what_was_built(scan_cached):
