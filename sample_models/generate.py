@@ -75,6 +75,7 @@ class Options:
     anonymous_fasteners: bool = False  # bolts named only "Part n": recognised by shape
     grid_placed_columns: bool = False  # columns placed by IfcGridPlacement (IFC4 and later)
     bolt_data_in_pset: bool = False  # bolt size and class only in a property set
+    haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch: unsupported
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -110,6 +111,7 @@ class JointSpec:
     welds: bool = False
     defects: tuple[str, ...] = ()
     bolt_offsets: tuple[float, ...] | None = None  # lateral bolt positions, overrides gauge
+    haunch: bool = False  # plates below the beam at the column: a haunch
 
 
 def extended(h: float, **kw) -> JointSpec:
@@ -600,6 +602,18 @@ class Frame:
                                 (beam, bworld), holes=holes)
                 parts.append(pl)
                 plates.append(pl.GlobalId)
+            if spec.haunch:
+                # haunch web (beside nothing: below the beam) and its bottom flange
+                hw = frame_matrix(np.array([*(end_pt - t * 250.0)[:2], top_z - h - 125.0]), t,
+                                  lat)
+                web = self.plate(key + "/haunch-web", self.name("HW"), 500.0, 250.0, 10.0, hw,
+                                 (beam, bworld))
+                hf = frame_matrix(np.array([*(end_pt - t * 250.0)[:2], top_z - h - 256.0]), t,
+                                  (0, 0, 1.0))
+                fl = self.plate(key + "/haunch-flange", self.name("HF"), 500.0, b, 12.0, hf,
+                                (beam, bworld))
+                parts += [web, fl]
+                plates += [web.GlobalId, fl.GlobalId]
             if spec.with_bolts:
                 for row in spec.rows:
                     for o in offs:
@@ -676,6 +690,8 @@ class Frame:
 
     def expected_archetype(self, spec: JointSpec, axis: str) -> str:
         """The archetype a person reading the model would give this joint."""
+        if spec.haunch:
+            return "unsupported"
         if spec.kind in ("extended_end_plate", "flush_end_plate"):
             if not spec.with_plate or not spec.with_bolts or spec.plate_gap > 10.0:
                 return "incomplete"
@@ -790,7 +806,12 @@ class Frame:
             return {f"X/{li}/{j}/{i}": (w, w) for li in range(len(self.levels))
                     for j in range(self.opt.bays_y + 1) for i in range(self.opt.bays_x)}
         h1, h2 = 400.0, 360.0
-        return {
+        extra = {}
+        if self.opt.haunch:
+            extra["X/0/0/1"] = (extended(h1, haunch=True, plate_bottom=h1 + 270.0,
+                                         rows=(-50.0, 60.0, 160.0, 340.0, 480.0, 620.0)),
+                                extended(h1))
+        return extra | {
             # level 1, line A: extended end plates (default)
             # level 1, line B: flush end plates
             "X/0/1/0": (flush(h1), flush(h1)),

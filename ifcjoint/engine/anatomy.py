@@ -282,7 +282,9 @@ def section_of(m: Member, findings: list[Finding], unread: list[str], who: str) 
             tf=m.flange_thickness,
             r=m.root_radius or 0.0,
             name=designation or "",
-            source="profile" if m.profile_type.startswith("IfcIShape") else "outline",
+            source="profile"
+            if m.profile_type.startswith("IfcIShape")
+            else ("mesh" if m.geometry_source == "mesh" else "outline"),
         )
     if model is not None and named is not None:
         diff = dimension_mismatch(model, named)
@@ -411,6 +413,12 @@ def analyse_joint(
     if bolt_r is not None and plate_r is not None and main_role == "end_plate":
         bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
     archetype, why = _archetype(j, plate_r, bolt_r, bsec, main_role)
+    odd = _unsupported_parts(j, fr, plates, col, bsec)
+    if odd:
+        archetype, why = (
+            "unsupported",
+            "; ".join(odd) + f" (not handled yet; the joint is otherwise read as {archetype})",
+        )
     if plate_r is not None and bolt_r is not None and main is not None:
         _detailing(j, fr, main, plate_r, bolt_r, bolt_list, bsec, csec, findings)
     _completeness(j, plate_r, bolt_r, main_role, findings)
@@ -598,6 +606,37 @@ def _read_bolts(
         gauge=gauge,
         pitches=pitches,
     )
+
+
+def _unsupported_parts(
+    j: Joint, fr: _Frame, plates: dict[str, Plate], col: Member, bsec: ISection | None
+) -> list[str]:
+    """Parts that make the joint a kind ifcjoint does not handle yet, in words.
+
+    A haunch (plates below the beam's bottom flange, not part of the end plate) and column
+    plates that are neither transverse stiffeners nor web plates (e.g. diagonal stiffeners).
+    """
+    out = []
+    h = bsec.h if bsec else None
+    col_axis = _unit(np.subtract(col.end, col.start))
+    haunch, diagonal = [], []
+    for link in j.plates:
+        p = plates[link.guid]
+        nrm = np.array(p.normal)
+        if link.role == "other_plate" and h is not None:
+            c = np.array(p.center)
+            below = float((fr.beam_top - c).dot(fr.n)) - h
+            if below > 0:
+                haunch.append(p.guid)
+        if link.role in ("other_plate", "column_plate"):
+            a_col = abs(float(nrm.dot(col_axis)))
+            if 0.2 < a_col < 0.9:
+                diagonal.append(p.guid)
+    if haunch:
+        out.append(f"haunch below the beam ({len(haunch)} plate(s))")
+    if diagonal:
+        out.append(f"inclined column stiffener ({len(diagonal)} plate(s))")
+    return out
 
 
 def _archetype(

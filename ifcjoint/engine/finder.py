@@ -496,7 +496,8 @@ def _plate_role(z: _Zone, p: Plate, col_frames: _Frames, ci: int, reach: float) 
 
     Stiffener (normal along the column, inside its section) and web plate (parallel to the
     web, inside the section) are ``column_plate``; a plate square to the beam at its end is an
-    ``end_plate``; a plate beside the beam web is a ``fin_plate``.
+    ``end_plate``; a plate beside the beam web, within its depth, is a ``fin_plate``; anything
+    else (a haunch below the beam, an inclined stiffener) is an ``other_plate``.
     """
     nrm = np.array(p.normal)
     c = np.array(p.center)
@@ -514,7 +515,8 @@ def _plate_role(z: _Zone, p: Plate, col_frames: _Frames, ci: int, reach: float) 
         return "end_plate"
     if inside and abs(nrm.dot(col_frames.u[ci])) > 0.9:
         return "column_plate"
-    if abs(nrm.dot(z.lat)) > 0.9:
+    below_beam = (c - z.origin).dot(z.n) < -(z.half_n - z.margin)
+    if abs(nrm.dot(z.lat)) > 0.9 and not below_beam:
         return "fin_plate"
     return "other_plate"
 

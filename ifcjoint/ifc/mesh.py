@@ -99,3 +99,40 @@ def principal_box(verts: np.ndarray, faces: np.ndarray) -> MeshBox:
     center = mean + axes @ ((lo + hi) / 2)
     volume = abs(float(np.einsum("ij,ij->i", a, np.cross(b, c)).sum()) / 6.0)
     return MeshBox(center=center, axes=axes, size=hi - lo, volume=volume)
+
+
+def section_outline(
+    verts: np.ndarray,
+    faces: np.ndarray,
+    point: np.ndarray,
+    axis: np.ndarray,
+    x_dir: np.ndarray,
+    y_dir: np.ndarray,
+):
+    """The body's cross-section at ``point`` across ``axis``, as a shapely polygon in (x, y).
+
+    Triangle edges crossing the cutting plane give segments; shapely polygonises them and the
+    largest polygon is returned (None when the cut gives no closed outline).
+    """
+    import shapely
+
+    d = (verts - point) @ axis
+    tri = faces
+    segs = []
+    for a, b, c in tri:
+        da, db, dc = d[a], d[b], d[c]
+        pts = []
+        for (i, di), (k, dk) in (((a, da), (b, db)), ((b, db), (c, dc)), ((c, dc), (a, da))):
+            if (di < 0) != (dk < 0):
+                s = di / (di - dk)
+                pts.append(verts[i] + s * (verts[k] - verts[i]))
+        if len(pts) == 2:
+            p = [((q - point) @ x_dir, (q - point) @ y_dir) for q in pts]
+            segs.append(shapely.LineString(p))
+    if not segs:
+        return None
+    merged = shapely.union_all(segs)
+    polys = list(shapely.get_parts(shapely.polygonize(shapely.get_parts(merged))))
+    if not polys:
+        return None
+    return max(polys, key=lambda g: g.area)

@@ -36,11 +36,12 @@ from ifcjoint.ifc.geometry import (
     PlacementCache,
     SolidBox,
     att,
+    i_shape_from_outline,
     reset_caches,
     solid_boxes,
 )
 from ifcjoint.ifc.geometry import _walk as walk_item
-from ifcjoint.ifc.mesh import principal_box, tessellate
+from ifcjoint.ifc.mesh import principal_box, section_outline, tessellate
 from ifcjoint.ifc.recognition import Rules, load_rules
 
 Progress = Callable[[str, int, int], None]
@@ -521,6 +522,16 @@ class _Reader:
         axis = _orient(box.axes[:, 0])
         half = box.size[0] / 2
         fill = box.volume / max(box.size.prod(), 1e-9)
+        # An I section's web and flanges from a cut at mid-length (the ends may be coped).
+        dims = None
+        try:
+            outline = section_outline(
+                v, fcs, box.center, box.axes[:, 0], box.axes[:, 2], box.axes[:, 1]
+            )
+            if outline is not None:
+                dims = i_shape_from_outline(outline, "y")
+        except (ValueError, TypeError):  # a degenerate cut only loses the thicknesses
+            dims = None
         self._add_member(
             el,
             start=box.center - axis * half,
@@ -529,12 +540,13 @@ class _Reader:
             width_dir=box.axes[:, 2],
             depth=box.size[1],
             width=box.size[2],
-            tw=None,
-            tf=None,
+            tw=dims[0] if dims else None,
+            tf=dims[1] if dims else None,
             profile_name="",
             profile_type="mesh",
             fill=fill,
             source="mesh",
+            r=(dims[2] / self.s) if dims else None,
         )
 
     # plates
