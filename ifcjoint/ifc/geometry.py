@@ -742,6 +742,11 @@ def _walk(item, m: Aff, out: list[SolidBox]) -> None:
             _walk(item.SecondOperand, m, out)
         else:
             _walk(item.FirstOperand, m, out)
+            if item.Operator == "DIFFERENCE" and _CUTS[0] is not None:
+                try:  # keep what is cut away: round cuts through plates are bolt holes
+                    _walk(item.SecondOperand, m, _CUTS[0])
+                except NeedsMesh:
+                    pass
     elif t == "IfcCsgSolid":
         _walk(item.TreeRootExpression, m, out)
     elif t == "IfcRightCircularCylinder":
@@ -827,6 +832,21 @@ def body_items(element):
     if not chosen:
         return None
     return [("items", it) for r in chosen[:1] for it in att(r, "Items")]
+
+
+_CUTS: list = [None]
+
+
+def cut_boxes(element, world) -> list[SolidBox]:
+    """Boxes of the solids a body subtracts (second operands of boolean differences)."""
+    _CUTS[0] = []
+    try:
+        solid_boxes(element, world)
+        return _CUTS[0]
+    except NeedsMesh:
+        return _CUTS[0] or []
+    finally:
+        _CUTS[0] = None
 
 
 def solid_boxes(element, world) -> list[SolidBox]:

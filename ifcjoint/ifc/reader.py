@@ -36,6 +36,7 @@ from ifcjoint.ifc.geometry import (
     PlacementCache,
     SolidBox,
     att,
+    cut_boxes,
     i_shape_from_outline,
     reset_caches,
     solid_boxes,
@@ -569,6 +570,11 @@ class _Reader:
             p = p + nrm * float((center - p) @ nrm)  # onto the mid-plane
             holes.append((tuple(float(x) for x in p), dia * self.s))
         holes.extend(self._opening_holes(el, center, main.axes[:, n]))
+        holes.extend(
+            self._round_holes(
+                cut_boxes(el, self.placements.aff(el.ObjectPlacement)), center, main.axes[:, n]
+            )
+        )
         self._add_plate(
             el,
             center,
@@ -603,17 +609,23 @@ class _Reader:
                 if found:
                     boxes = found
                     break
-            for b in boxes:
-                size = b.size * self.s
-                along = int(np.argmax(np.abs(b.axes.T @ normal)))
-                if abs(float(b.axes[:, along] @ normal)) < 0.9:
-                    continue  # not square to the plate
-                across = [size[i] for i in range(3) if i != along]
-                if abs(across[0] - across[1]) > 0.1 * max(across):
-                    continue  # a slot or a cut-out, not a round hole
-                c = b.center() * self.s
-                c = c + normal * float((center - c) @ normal)
-                out.append((tuple(float(x) for x in c), float(sum(across) / 2)))
+            out.extend(self._round_holes(boxes, center, normal))
+        return out
+
+    def _round_holes(self, boxes, center, normal) -> list:
+        """Cut boxes square to a plate with a round (or square) cross-section: holes."""
+        out = []
+        for b in boxes:
+            size = b.size * self.s
+            along = int(np.argmax(np.abs(b.axes.T @ normal)))
+            if abs(float(b.axes[:, along] @ normal)) < 0.9:
+                continue  # not square to the plate
+            across = [size[i] for i in range(3) if i != along]
+            if abs(across[0] - across[1]) > 0.1 * max(across) or max(across) > 80.0:
+                continue  # a slot, a notch or a cut-out, not a bolt hole
+            c = b.center() * self.s
+            c = c + normal * float((center - c) @ normal)
+            out.append((tuple(float(x) for x in c), float(sum(across) / 2)))
         return out
 
     def _add_plate(self, el, center, normal, u, v, hu, hv, t, source, holes=()) -> None:
