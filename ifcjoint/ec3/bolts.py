@@ -1,0 +1,85 @@
+"""Bolt resistances of EN 1993-1-8 Table 3.4 (N, mm, MPa).
+
+Each function's docstring names its clause on the second paragraph.
+"""
+
+from __future__ import annotations
+
+import math
+
+from ifcjoint.ec3.params import RECOMMENDED, Parameters
+
+#: Tensile stress area As (mm2) of ISO metric coarse threads, ISO 898-1 (from memory).
+TENSILE_STRESS_AREA = {
+    12: 84.3,
+    16: 157.0,
+    20: 245.0,
+    22: 303.0,
+    24: 353.0,
+    27: 459.0,
+    30: 561.0,
+    36: 817.0,
+}
+
+#: Shear factor alpha_v by bolt class (shear plane through the threaded part),
+#: EN 1993-1-8 Table 3.4.
+ALPHA_V = {"4.6": 0.6, "5.6": 0.6, "8.8": 0.6, "4.8": 0.5, "5.8": 0.5, "6.8": 0.5, "10.9": 0.5}
+
+
+def tensile_stress_area(d: float) -> float:
+    """Tensile stress area As of a bolt of nominal diameter d (mm2).
+
+    EN 1993-1-8:2005, 3.6.1 (As per the bolt product standard; ISO 898-1 values from memory).
+
+    Raises:
+        ValueError: a diameter not in the table.
+    """
+    key = int(round(d))
+    if key not in TENSILE_STRESS_AREA:
+        raise ValueError(f"no tensile stress area for M{d:g}")
+    return TENSILE_STRESS_AREA[key]
+
+
+def F_t_Rd(fub: float, As: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+    """Tension resistance of one bolt Ft,Rd = k2 fub As / gamma_M2 (N).
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4.
+
+    Args:
+        fub: ultimate tensile strength of the bolt, MPa.
+        As: tensile stress area, mm2.
+        params: partial factors (k2, gamma_M2).
+
+    Example:
+        >>> round(F_t_Rd(800, 353) / 1e3, 1)
+        203.3
+    """
+    return params.k2 * fub * As / params.gamma_M2
+
+
+def B_p_Rd(dm: float, tp: float, fu: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802
+    """Punching shear resistance Bp,Rd = 0.6 pi dm tp fu / gamma_M2 (N).
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4.
+
+    Args:
+        dm: mean of the across-points and across-flats dimensions of the bolt head or nut
+            (whichever is smaller), mm.
+        tp: thickness of the plate under the bolt or nut, mm.
+        fu: ultimate strength of that plate, MPa.
+        params: partial factors.
+    """
+    return 0.6 * math.pi * dm * tp * fu / params.gamma_M2
+
+
+def F_v_Rd(bolt_class: str, fub: float, As: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+    """Shear resistance per shear plane, threads in the shear plane, Fv,Rd (N).
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4: alpha_v fub As / gamma_M2 with alpha_v = 0.6 for
+    classes 4.6, 5.6 and 8.8 and 0.5 for 4.8, 5.8, 6.8 and 10.9.
+
+    Example:
+        >>> round(F_v_Rd("8.8", 800, 353) / 1e3, 1)
+        135.6
+    """
+    return ALPHA_V[bolt_class] * fub * As / params.gamma_M2

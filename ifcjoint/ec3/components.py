@@ -1,0 +1,177 @@
+"""Basic joint components of EN 1993-1-8 6.2.6 (N, mm, MPa).
+
+Pure functions over floats. The column's yield strength is an input: which thickness it is
+read at (web, or the section's thickest element as some National Annexes and handbooks do)
+is the caller's choice and is reported by the check.
+"""
+
+from __future__ import annotations
+
+import math
+
+from ifcjoint.ec3.params import RECOMMENDED, Parameters
+
+
+def epsilon(fy: float) -> float:
+    """Epsilon = sqrt(235 / fy).
+
+    EN 1993-1-1:2005, Table 5.2.
+    """
+    return math.sqrt(235.0 / fy)
+
+
+def web_panel_slenderness_ok(dc: float, tw: float, fy: float) -> bool:
+    """Whether the web panel rules apply: dc / tw <= 69 epsilon.
+
+    EN 1993-1-8:2005, 6.2.6.1(1).
+
+    Args:
+        dc: clear depth of the column web (h - 2 tf - 2 r for rolled sections), mm.
+        tw: web thickness, mm.
+        fy: web yield strength, MPa.
+    """
+    return dc / tw <= 69.0 * epsilon(fy)
+
+
+def V_wp_Rd(fy_wc: float, A_vc: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+    """Column web panel shear resistance Vwp,Rd = 0.9 fy,wc Avc / (sqrt(3) gamma_M0) (N).
+
+    EN 1993-1-8:2005, 6.2.6.1(2), Eq. (6.7), for an unstiffened web panel without
+    supplementary web plates.
+
+    Example:
+        >>> round(V_wp_Rd(355, 4743) / 1e3)
+        875
+    """
+    return 0.9 * fy_wc * A_vc / (math.sqrt(3.0) * params.gamma_M0)
+
+
+def omega(beta: float, b_eff: float, t_wc: float, A_vc: float) -> float:  # noqa: N803
+    """Reduction factor omega for interaction with shear in the column web panel.
+
+    EN 1993-1-8:2005, 6.2.6.2(1), Table 6.3 (omega_1 and omega_2 with the effective width of
+    the web in compression or tension).
+
+    Args:
+        beta: transformation parameter (5.3(7), Table 5.4).
+        b_eff: effective width of the web, mm.
+        t_wc: web thickness, mm.
+        A_vc: shear area of the column, mm2.
+    """
+    r = b_eff * t_wc / A_vc
+    w1 = 1.0 / math.sqrt(1.0 + 1.3 * r * r)
+    w2 = 1.0 / math.sqrt(1.0 + 5.2 * r * r)
+    if beta <= 0.5:
+        return 1.0
+    if beta < 1.0:
+        return w1 + 2.0 * (1.0 - beta) * (1.0 - w1)
+    if beta == 1.0:
+        return w1
+    if beta < 2.0:
+        return w1 + (beta - 1.0) * (w2 - w1)
+    return w2
+
+
+def b_eff_c_wc_end_plate(t_fb: float, a_p: float, t_fc: float, s: float, s_p: float) -> float:
+    """Effective width of the column web in compression for a bolted end plate (mm).
+
+    EN 1993-1-8:2005, 6.2.6.2(1), Eq. (6.11): t_fb + 2 sqrt(2) a_p + 5 (t_fc + s) + s_p.
+
+    Args:
+        t_fb: beam flange thickness, mm.
+        a_p: throat of the end-plate-to-flange weld, mm.
+        t_fc: column flange thickness, mm.
+        s: root radius of a rolled column (r_c), or sqrt(2) a_c for a welded one, mm.
+        s_p: spread through the end plate at 45 degrees: at least t_p and up to 2 t_p where
+            the plate extends enough below the flange, mm.
+    """
+    return t_fb + 2.0 * math.sqrt(2.0) * a_p + 5.0 * (t_fc + s) + s_p
+
+
+def b_eff_c_wc_welded(t_fb: float, a_b: float, t_fc: float, s: float) -> float:
+    """Effective width of the column web in compression for a welded joint (mm).
+
+    EN 1993-1-8:2005, 6.2.6.2(1), Eq. (6.10): t_fb + 2 sqrt(2) a_b + 5 (t_fc + s).
+    """
+    return t_fb + 2.0 * math.sqrt(2.0) * a_b + 5.0 * (t_fc + s)
+
+
+def rho_web(
+    b_eff: float, d_wc: float, fy_wc: float, t_wc: float, params: Parameters = RECOMMENDED
+) -> float:
+    """Plate buckling reduction factor rho of the column web in compression.
+
+    EN 1993-1-8:2005, 6.2.6.2(1), Eqs. (6.13a)-(6.13c): lambda_p = 0.932 sqrt(b_eff d_wc fy
+    / (E t_wc^2)); rho = 1 for lambda_p <= 0.72, else (lambda_p - 0.2) / lambda_p^2.
+    """
+    lam = 0.932 * math.sqrt(b_eff * d_wc * fy_wc / (params.E * t_wc * t_wc))
+    return 1.0 if lam <= 0.72 else (lam - 0.2) / lam**2
+
+
+def k_wc(sigma_com_Ed: float, fy_wc: float) -> float:  # noqa: N803
+    """Factor k_wc for the longitudinal compressive stress in the column web.
+
+    EN 1993-1-8:2005, 6.2.6.2(2): 1 when sigma_com,Ed <= 0.7 fy,wc, else
+    1.7 - sigma_com,Ed / fy,wc.
+    """
+    return 1.0 if sigma_com_Ed <= 0.7 * fy_wc else 1.7 - sigma_com_Ed / fy_wc
+
+
+def F_c_wc_Rd(  # noqa: N802
+    *,
+    b_eff: float,
+    t_wc: float,
+    d_wc: float,
+    fy_wc: float,
+    omega_: float = 1.0,
+    k_wc_: float = 1.0,
+    params: Parameters = RECOMMENDED,
+) -> float:
+    """Column web in transverse compression Fc,wc,Rd (N).
+
+    EN 1993-1-8:2005, 6.2.6.2(1), Eq. (6.9): omega k_wc b_eff t_wc fy,wc / gamma_M0, not
+    more than omega k_wc rho b_eff t_wc fy,wc / gamma_M1.
+    """
+    rho = rho_web(b_eff, d_wc, fy_wc, t_wc, params)
+    base = omega_ * k_wc_ * b_eff * t_wc * fy_wc
+    return min(base / params.gamma_M0, rho * base / params.gamma_M1)
+
+
+def F_t_wc_Rd(
+    *,
+    b_eff: float,
+    t_wc: float,
+    fy_wc: float,
+    omega_: float = 1.0,  # noqa: N802
+    params: Parameters = RECOMMENDED,
+) -> float:
+    """Column web in transverse tension Ft,wc,Rd = omega b_eff t_wc fy,wc / gamma_M0 (N).
+
+    EN 1993-1-8:2005, 6.2.6.3(1), Eq. (6.15); for a bolted joint b_eff,t,wc is the effective
+    length of the column flange T-stub (6.2.6.3(3)).
+    """
+    return omega_ * b_eff * t_wc * fy_wc / params.gamma_M0
+
+
+def F_c_fb_Rd(M_c_Rd: float, h: float, t_fb: float) -> float:  # noqa: N802, N803
+    """Beam flange and web in compression Fc,fb,Rd = Mc,Rd / (h - t_fb) (N).
+
+    EN 1993-1-8:2005, 6.2.6.7(1), Eq. (6.21).
+
+    Args:
+        M_c_Rd: design moment resistance of the beam cross-section, N mm.
+        h: beam depth, mm.
+        t_fb: beam flange thickness, mm.
+    """
+    return M_c_Rd / (h - t_fb)
+
+
+def F_t_wb_Rd(
+    *, b_eff: float, t_wb: float, fy_wb: float, params: Parameters = RECOMMENDED
+) -> float:  # noqa: N802
+    """Beam web in tension Ft,wb,Rd = b_eff,t,wb t_wb fy,wb / gamma_M0 (N).
+
+    EN 1993-1-8:2005, 6.2.6.8(1), Eq. (6.22); b_eff,t,wb is the effective length of the end
+    plate T-stub (6.2.6.8(2)).
+    """
+    return b_eff * t_wb * fy_wb / params.gamma_M0

@@ -1,0 +1,110 @@
+"""Effective lengths of T-stubs for bolt rows (mm), circular (cp) and non-circular (nc).
+
+Unstiffened column flange: EN 1993-1-8 Table 6.4. End plate: Table 6.6. Each function returns
+``(l_eff_cp, l_eff_nc)``. The alpha factor of Figure 6.11 is an input here.
+"""
+
+from __future__ import annotations
+
+import math
+
+PI = math.pi
+
+
+def column_flange_row_alone(m: float, e: float, e1: float | None = None) -> tuple[float, float]:
+    """Unstiffened column flange, bolt row considered individually.
+
+    EN 1993-1-8:2005, 6.2.6.4.1, Table 6.4: inner row cp = 2 pi m, nc = 4 m + 1.25 e; an end
+    row near the column's end also min(pi m + 2 e1) and min(2 m + 0.625 e + e1).
+
+    Args:
+        m: distance bolt - root radius of the column (Figure 6.8), mm.
+        e: bolt to flange edge, mm.
+        e1: bolt row to the free end of the column, mm (None: far away).
+    """
+    cp = 2 * PI * m
+    nc = 4 * m + 1.25 * e
+    if e1 is not None:
+        cp = min(cp, PI * m + 2 * e1)
+        nc = min(nc, 2 * m + 0.625 * e + e1)
+    return cp, nc
+
+
+def column_flange_row_in_group(
+    m: float, e: float, p: float, *, end_row: bool
+) -> tuple[float, float]:
+    """Unstiffened column flange, bolt row as part of a group (its share).
+
+    EN 1993-1-8:2005, 6.2.6.4.1, Table 6.4: end row cp = pi m + p, nc = 2 m + 0.625 e + 0.5 p;
+    inner row cp = 2 p, nc = p.
+
+    Args:
+        m: as above, mm.
+        e: as above, mm.
+        p: the row's share of pitch: for an end row the pitch to the next row, for an inner
+            row the mean of the pitches above and below, mm.
+        end_row: True for the first or last row of the group.
+    """
+    if end_row:
+        return PI * m + p, 2 * m + 0.625 * e + 0.5 * p
+    return 2 * p, p
+
+
+def end_plate_extension_row(
+    mx: float, ex: float, e: float, w: float, bp: float
+) -> tuple[float, float]:
+    """End plate: bolt row in the extension, outside the tension flange (alone only).
+
+    EN 1993-1-8:2005, 6.2.6.5, Table 6.6: cp = min(2 pi mx, pi mx + w, pi mx + 2e);
+    nc = min(4 mx + 1.25 ex, e + 2 mx + 0.625 ex, 0.5 bp, 0.5 w + 2 mx + 0.625 ex).
+
+    Args:
+        mx: bolt row to the flange weld toe less 0.8 x weld leg (Figure 6.10), mm.
+        ex: bolt row to the plate's end, mm.
+        e: bolt to the plate's side edge, mm.
+        w: gauge, mm.
+        bp: plate width, mm.
+    """
+    cp = min(2 * PI * mx, PI * mx + w, PI * mx + 2 * e)
+    nc = min(4 * mx + 1.25 * ex, e + 2 * mx + 0.625 * ex, 0.5 * bp, 0.5 * w + 2 * mx + 0.625 * ex)
+    return cp, nc
+
+
+def end_plate_first_row_below_flange(
+    m: float, e: float, alpha: float, p: float | None = None
+) -> tuple[float, float]:
+    """End plate: first bolt row below the tension flange (alone, or as end of a group).
+
+    EN 1993-1-8:2005, 6.2.6.5, Table 6.6: alone cp = 2 pi m, nc = alpha m; in a group
+    cp = pi m + p, nc = 0.5 p + alpha m - (2 m + 0.625 e).
+
+    Args:
+        m: bolt to the web weld toe less 0.8 x weld leg (Figure 6.10), mm.
+        e: bolt to the plate's side edge, mm.
+        alpha: factor of Figure 6.11.
+        p: pitch to the next row of the group, mm; None for the row alone.
+    """
+    if p is None:
+        return 2 * PI * m, alpha * m
+    return PI * m + p, 0.5 * p + alpha * m - (2 * m + 0.625 * e)
+
+
+def end_plate_other_row(
+    m: float, e: float, p: float | None = None, *, end_row: bool = False
+) -> tuple[float, float]:
+    """End plate: other inner or end bolt row (alone, or as part of a group).
+
+    EN 1993-1-8:2005, 6.2.6.5, Table 6.6: alone cp = 2 pi m, nc = 4 m + 1.25 e; in a group,
+    inner row cp = 2 p, nc = p; end row cp = pi m + p, nc = 2 m + 0.625 e + 0.5 p.
+
+    Args:
+        m: as above, mm.
+        e: as above, mm.
+        p: the row's share of pitch in the group (see column_flange_row_in_group); None alone.
+        end_row: True for the end row of a group.
+    """
+    if p is None:
+        return 2 * PI * m, 4 * m + 1.25 * e
+    if end_row:
+        return PI * m + p, 2 * m + 0.625 * e + 0.5 * p
+    return 2 * p, p
