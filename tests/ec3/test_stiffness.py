@@ -1,0 +1,53 @@
+"""Stiffness and classification: invariants and the code's own boundaries.
+
+Sources: EN 1993-1-8:2005 6.3 (Eq. 6.27, Table 6.8, Table 6.11) and 5.2.2.5 / 5.2.3.3.
+No published stiffness value is reproduced yet; these tests show the formulas' structure.
+"""
+
+from __future__ import annotations
+
+import pytest
+from hypothesis import given
+from hypothesis import strategies as st
+
+from ifcjoint.ec3 import stiffness as s
+
+
+@given(z=st.floats(100, 1000), k=st.lists(st.floats(1, 100), min_size=2, max_size=6),
+       f=st.floats(0.5, 3))
+def test_sj_ini_scales_with_z_squared(z, k, f):
+    assert s.S_j_ini(f * z, k) == pytest.approx(f * f * s.S_j_ini(z, k), rel=1e-9)
+
+
+@given(k=st.lists(st.floats(1, 100), min_size=1, max_size=5), extra=st.floats(1, 100))
+def test_adding_a_component_in_series_never_stiffens(k, extra):
+    assert s.k_eff_row(k + [extra]) <= s.k_eff_row(k)
+
+
+def test_equivalent_lever_arm_of_one_row_is_its_lever_arm():
+    z, k = s.equivalent_lever_arm([5.0], [400.0])
+    assert z == pytest.approx(400.0) and k == pytest.approx(5.0)
+
+
+def test_mu_table_6_8():
+    assert s.stiffness_ratio_mu(60, 100) == 1.0  # below 2/3 Mj,Rd
+    assert s.stiffness_ratio_mu(100, 100) == pytest.approx(1.5**2.7)
+
+
+def test_stiffness_classification_boundaries():
+    e, ib, lb = 210_000.0, 1e8, 6000.0
+    rigid = 8 * e * ib / lb
+    assert s.classify_stiffness(rigid, ib, lb, braced=True)[0] == "rigid"
+    assert s.classify_stiffness(rigid * 0.99, ib, lb, braced=True)[0] == "semi-rigid"
+    assert s.classify_stiffness(rigid, ib, lb, braced=False)[0] == "semi-rigid"  # kb = 25
+    assert s.classify_stiffness(0.5 * e * ib / lb, ib, lb, braced=True)[0] == "nominally pinned"
+
+
+def test_strength_classification_boundaries():
+    assert s.classify_strength(500, 500, 400)[0] == "full-strength"
+    # column stops at the joint: the boundary is Mpl,c,Rd itself (200), not 2 Mpl,c,Rd
+    assert s.classify_strength(199, 500, 200, column_continues_above=False) == (
+        "partial-strength", 200)
+    assert s.classify_strength(199, 500, 200)[0] == "partial-strength"  # boundary 400
+    assert s.classify_strength(100, 500, 400)[0] == "nominally pinned"
+    assert s.classify_strength(300, 500, 400)[0] == "partial-strength"
