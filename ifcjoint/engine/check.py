@@ -1,0 +1,668 @@
+"""Check of a major-axis bolted end-plate beam-to-column joint, EN 1993-1-8 component method.
+
+Pure Python over plain dataclasses (N, mm, MPa); never imports ifcopenshell. The result keeps
+every component with its clause, inputs, resistance and governing mode, the row-by-row tension
+resistances with what limited each row, Mj,Rd for both moment signs, Vj,Rd, Sj,ini and the
+classification, and the complete input actually used, so the check can be repeated by hand.
+
+Scope now: one column, one beam meeting its flange; extended or flush end plate, two bolts per
+row; rolled or welded I/H sections; unstiffened column. Anything else returns a result that
+says "not checked" with the reason (never a pass).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import asdict, dataclass, field
+
+from ifcjoint.ec3 import components as cmp
+from ifcjoint.ec3 import effective_lengths as el
+from ifcjoint.ec3 import stiffness as stf
+from ifcjoint.ec3.bolts import ALPHA_V, B_p_Rd, F_t_Rd, F_v_Rd
+from ifcjoint.ec3.moment_resistance import M_j_Rd, RowResult, distribute_tension
+from ifcjoint.ec3.params import RECOMMENDED, Parameters
+from ifcjoint.ec3.tstub import t_stub
+
+#: Bolt head / nut across flats s and across points e (mm), ISO 4014 / ISO 4032 (from memory).
+HEAD_SIZES = {
+    12: (18.0, 19.85),
+    16: (24.0, 26.17),
+    20: (30.0, 32.95),
+    22: (34.0, 37.29),
+    24: (36.0, 39.55),
+    27: (41.0, 45.2),
+    30: (46.0, 50.85),
+    36: (55.0, 60.79),
+}
+#: alpha of EN 1993-1-8 Figure 6.11 used when none is given: the chart's smallest value, 4.45,
+#: which gives the shortest effective length (conservative). The chart itself is not yet
+#: represented numerically; a value read from it may be passed in.
+ALPHA_DEFAULT = 4.45
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class MemberInput:
+    """A rolled or welded I section with its steel (mm, MPa)."""
+
+    name: str
+    grade: str
+    h: float
+    b: float
+    tw: float
+    tf: float
+    r: float
+    fy: float
+    fu: float
+    welded: bool = False
+    span: float | None = None  # beam span for the stiffness classification, mm
+    Iy: float | None = None  # noqa: N815 - second moment about the strong axis, mm4
+    Wpl_y: float | None = None  # noqa: N815 - plastic modulus, mm3
+
+    @property
+    def s(self) -> float:
+        """Root radius (rolled) or the weld allowance for welded sections (6.2.6.2)."""
+        return self.r
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class PlateInput:
+    """End plate (mm, MPa). Projections from the beam's outer flange faces; negative inside."""
+
+    grade: str
+    tp: float
+    bp: float
+    hp: float
+    fy: float
+    fu: float
+    projection_top: float
+    projection_bottom: float
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class BoltsInput:
+    """Bolts, two per row (mm, MPa). Rows measured down from the beam's top face."""
+
+    d: float
+    grade: str
+    fub: float
+    As: float  # noqa: N815
+    d0: float
+    gauge: float
+    rows_from_beam_top: tuple[float, ...]
+    L_b: float | None = None  # noqa: N815 - bolt elongation length; None: no-prying check off
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class WeldsInput:
+    """Weld throats a (mm) of the beam to the end plate; ``assumed`` when not modelled."""
+
+    top_flange_throat: float
+    bottom_flange_throat: float
+    web_throat: float
+    assumed: bool = True
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class EndPlateJointInput:
+    """Everything the check uses, in N, mm, MPa."""
+
+    column: MemberInput
+    beam: MemberInput
+    plate: PlateInput
+    bolts: BoltsInput
+    welds: WeldsInput
+    params: Parameters = RECOMMENDED
+    beta: float = 1.0  # transformation parameter (5.3(7), Table 5.4): 1 single-sided
+    alpha: float | None = None  # Figure 6.11 for the row below the tension flange
+    column_continues_above: bool = True
+    braced: bool = True
+    stiffeners: tuple[str, ...] = ()
+    supplementary_web_plates: tuple[str, ...] = ()
+    washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class ComponentResult:
+    """One component's resistance (N), its clause and how it was found."""
+
+    clause: str
+    name: str
+    F_Rd: float  # noqa: N815
+    mode: str = ""
+    row: int | None = None
+    rows: tuple[int, ...] = ()
+    inputs: dict = field(default_factory=dict)
+
+    def as_dict(self) -> dict:
+        """Output-contract form (kN)."""
+        return {
+            "clause": self.clause,
+            "name": self.name,
+            "row": self.row,
+            "rows": list(self.rows),
+            "F_Rd_kN": round(self.F_Rd / 1e3, 2),
+            "mode": self.mode,
+        }
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class SideResult:
+    """Resistance for one moment sign."""
+
+    sign: str  # hogging (top in tension) | sagging (bottom in tension)
+    M_j_Rd: float  # noqa: N815 - N mm
+    z: float  # lever arm, mm (equivalent, 6.3.3.1)
+    rows: tuple[RowResult, ...]
+    components: tuple[ComponentResult, ...]
+    S_j_ini: float  # noqa: N815 - N mm / rad
+    governing: str
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class CheckResult:
+    """The joint check: both signs, shear, stiffness, classification, or why not checked."""
+
+    status: str  # checked | not_checked
+    reason: str = ""
+    hogging: SideResult | None = None
+    sagging: SideResult | None = None
+    V_j_Rd: float | None = None  # noqa: N815
+    V_wp_Rd: float | None = None  # noqa: N815
+    classification: dict = field(default_factory=dict)
+    notes: tuple[str, ...] = ()
+    inputs: dict = field(default_factory=dict)
+
+    def as_dict(self) -> dict:
+        """The output contract (kN, kNm, kNm/rad, mm)."""
+        if self.status != "checked":
+            return {"status": self.status, "reason": self.reason, "inputs": self.inputs}
+        h, s = self.hogging, self.sagging
+        return {
+            "status": self.status,
+            "resistance": {
+                "Mj_Rd_hogging_kNm": round(h.M_j_Rd / 1e6, 2),
+                "Mj_Rd_sagging_kNm": round(s.M_j_Rd / 1e6, 2) if s else None,
+                "Vj_Rd_kN": round(self.V_j_Rd / 1e3, 2),
+                "Vwp_Rd_kN": round(self.V_wp_Rd / 1e3, 2),
+                "Sj_ini_kNm_per_rad": round(h.S_j_ini / 1e6, 1),
+                "z_mm": round(h.z, 1),
+            },
+            "components": [c.as_dict() for c in h.components],
+            "tension_rows": [
+                {
+                    "row": r.row,
+                    "h_r_mm": round(r.h_r, 1),
+                    "F_tr_Rd_kN": round(r.F_tr_Rd / 1e3, 2),
+                    "limited_by": r.limited_by,
+                }
+                for r in h.rows
+            ],
+            "sagging": None
+            if s is None
+            else {
+                "components": [c.as_dict() for c in s.components],
+                "tension_rows": [
+                    {
+                        "row": r.row,
+                        "h_r_mm": round(r.h_r, 1),
+                        "F_tr_Rd_kN": round(r.F_tr_Rd / 1e3, 2),
+                        "limited_by": r.limited_by,
+                    }
+                    for r in s.rows
+                ],
+            },
+            "classification": self.classification,
+            "notes": list(self.notes),
+            "inputs": self.inputs,
+        }
+
+
+def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckResult:
+    return CheckResult(
+        status="not_checked", reason=reason, inputs=_inputs_dict(inp) if inp is not None else {}
+    )
+
+
+def _inputs_dict(inp: EndPlateJointInput) -> dict:
+    d = asdict(inp)
+    d["params"] = inp.params.as_dict()
+    return d
+
+
+def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
+    """Resistance, stiffness and classification of a bolted end-plate joint.
+
+    EN 1993-1-8:2005, 6.2.7.2 (Mj,Rd by the component method, both moment signs), 6.2.2 and
+    Table 3.4 (Vj,Rd), 6.3 (Sj,ini), 5.2.2 and 5.2.3 (classification). Out-of-scope layouts
+    return ``not_checked`` with the reason.
+    """
+    why = _out_of_scope(inp)
+    if why:
+        return _not_checked(why, inp)
+    notes = []
+    if inp.welds.assumed:
+        notes.append(
+            f"weld throats assumed (not modelled): flanges a = "
+            f"{inp.welds.top_flange_throat:g} / {inp.welds.bottom_flange_throat:g} mm, "
+            f"web a = {inp.welds.web_throat:g} mm"
+        )
+    if inp.alpha is None:
+        notes.append(
+            f"alpha (EN 1993-1-8 Fig 6.11) taken as {ALPHA_DEFAULT} (the chart's lowest "
+            "value, conservative): the chart is not yet represented"
+        )
+    if inp.bolts.L_b is None:
+        notes.append("bolt elongation length not known: prying assumed (Table 6.2)")
+    col, beam = inp.column, inp.beam
+    p = inp.params
+    a_vc = _shear_area(col)
+    vwp = cmp.V_wp_Rd(col.fy, a_vc, p)
+    hog = _side(inp, "hogging", a_vc, vwp)
+    sag = _side(inp, "sagging", a_vc, vwp)
+    vjrd, vnote = _shear(inp, hog)
+    notes.append(vnote)
+    cls = {}
+    if beam.span and beam.Iy:
+        c_s, bounds = stf.classify_stiffness(
+            hog.S_j_ini, beam.Iy, beam.span, braced=inp.braced, params=p
+        )
+        cls["stiffness"] = c_s
+        cls["kb"] = bounds["kb"]
+        cls["rigid_from_kNm_per_rad"] = round(bounds["rigid_from"] / 1e6, 1)
+        cls["pinned_up_to_kNm_per_rad"] = round(bounds["pinned_up_to"] / 1e6, 1)
+    else:
+        cls["stiffness"] = "not classified: beam span or Iy unknown"
+    if beam.Wpl_y and col.Wpl_y:
+        c_r, limit = stf.classify_strength(
+            min(hog.M_j_Rd, sag.M_j_Rd),
+            beam.Wpl_y * beam.fy / p.gamma_M0,
+            col.Wpl_y * col.fy / p.gamma_M0,
+            column_continues_above=inp.column_continues_above,
+        )
+        cls["strength"] = c_r
+        cls["full_strength_from_kNm"] = round(limit / 1e6, 1)
+    else:
+        cls["strength"] = "not classified: plastic moduli unknown"
+    return CheckResult(
+        status="checked",
+        hogging=hog,
+        sagging=sag,
+        V_j_Rd=vjrd,
+        V_wp_Rd=vwp,
+        classification=cls,
+        notes=tuple(notes),
+        inputs=_inputs_dict(inp),
+    )
+
+
+def _out_of_scope(inp: EndPlateJointInput) -> str:
+    col, beam, b = inp.column, inp.beam, inp.bolts
+    if len(b.rows_from_beam_top) < 2:
+        return "fewer than two bolt rows"
+    if inp.stiffeners or inp.supplementary_web_plates:
+        return (
+            "column stiffeners or supplementary web plates are not handled yet "
+            f"({', '.join(inp.stiffeners + inp.supplementary_web_plates)})"
+        )
+    dc = col.h - 2 * col.tf - 2 * col.r
+    if not cmp.web_panel_slenderness_ok(dc, col.tw, col.fy):
+        return (
+            f"column web too slender for 6.2.6.1: dc/tw = {dc / col.tw:.1f} > 69 eps = "
+            f"{69 * cmp.epsilon(col.fy):.1f}"
+        )
+    if b.gauge / 2 - col.tw / 2 - 0.8 * col.r <= 0:
+        return "bolts inside the column's root radius: T-stub geometry undefined"
+    if beam.h <= 0 or col.h <= 0:
+        return "section dimensions missing"
+    return ""
+
+
+def _shear_area(s: MemberInput) -> float:
+    """Avc of a rolled (EN 1993-1-1 6.2.6(3)a) or welded (hw tw) section, mm2."""
+    hw = s.h - 2 * s.tf
+    if s.welded:
+        return hw * s.tw
+    a = 2 * s.b * s.tf + hw * s.tw + (4 - math.pi) * s.r**2
+    return max(a - 2 * s.b * s.tf + (s.tw + 2 * s.r) * s.tf, hw * s.tw)
+
+
+def _dw(inp: EndPlateJointInput) -> float:
+    if inp.washer_dia:
+        return inp.washer_dia
+    s_e = HEAD_SIZES.get(int(round(inp.bolts.d)))
+    return s_e[1] if s_e else 1.65 * inp.bolts.d
+
+
+def _dm(inp: EndPlateJointInput) -> float:
+    s_e = HEAD_SIZES.get(int(round(inp.bolts.d)))
+    return (s_e[0] + s_e[1]) / 2 if s_e else 1.6 * inp.bolts.d
+
+
+def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideResult:
+    """One moment sign: tension rows, components, distribution, Mj,Rd and Sj,ini."""
+    col, beam, pl, b, w, p = inp.column, inp.beam, inp.plate, inp.bolts, inp.welds, inp.params
+    # Geometry measured from the flange in tension: for sagging, mirror about mid-depth.
+    if sign == "hogging":
+        rows = list(b.rows_from_beam_top)
+        proj, comp_proj = pl.projection_top, pl.projection_bottom
+        a_t, a_c = w.top_flange_throat, w.bottom_flange_throat
+    else:
+        rows = sorted(beam.h - z for z in b.rows_from_beam_top)
+        proj, comp_proj = pl.projection_bottom, pl.projection_top
+        a_t, a_c = w.bottom_flange_throat, w.top_flange_throat
+    cc = beam.h - beam.tf / 2  # centre of compression from the tension face
+    # Tension rows: the half of the lever arm nearest the tension flange (common practice, no
+    # source: rows near the compression flange are taken as shear rows).
+    tension = [z for z in rows if cc - z > (beam.h - beam.tf) / 2]
+    h_r = [cc - z for z in tension]
+    ft = F_t_Rd(b.fub, b.As, p)
+    bp_col = B_p_Rd(_dm(inp), col.tf, col.fu, p)
+    bp_pl = B_p_Rd(_dm(inp), pl.tp, pl.fu, p)
+    ft_row = 2 * min(ft, bp_col, bp_pl)
+    ew = _dw(inp) / 4
+    leg_f = a_t * math.sqrt(2)
+    leg_w = w.web_throat * math.sqrt(2)
+    m_c = b.gauge / 2 - col.tw / 2 - 0.8 * col.r
+    e_c = (col.b - b.gauge) / 2
+    m_p = b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w
+    e_p = (pl.bp - b.gauge) / 2
+    alpha = inp.alpha or ALPHA_DEFAULT
+    comps: list[ComponentResult] = []
+    alone: list[dict[str, float]] = []
+    kinds = []
+    for i, z in enumerate(tension, start=1):
+        d: dict[str, float] = {}
+        cp, nc = el.column_flange_row_alone(m_c, e_c)
+        ts = t_stub(
+            l_eff_1=min(cp, nc),
+            l_eff_2=nc,
+            tf=col.tf,
+            fy=col.fy,
+            m=m_c,
+            e_min=e_c,
+            sum_F_t_Rd=ft_row,
+            e_w=ew,
+            params=p,
+        )
+        d["column flange in bending"] = ts.F_T_Rd
+        comps.append(
+            ComponentResult(
+                clause="6.2.6.4",
+                name="column flange in bending",
+                F_Rd=ts.F_T_Rd,
+                mode=ts.mode,
+                row=i,
+                inputs={"l_eff_cp": cp, "l_eff_nc": nc, "m": m_c, "e": e_c},
+            )
+        )
+        om = cmp.omega(inp.beta, min(cp, nc), col.tw, a_vc)
+        fwc = cmp.F_t_wc_Rd(b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om, params=p)
+        d["column web in tension"] = fwc
+        comps.append(
+            ComponentResult(
+                clause="6.2.6.3",
+                name="column web in tension",
+                F_Rd=fwc,
+                row=i,
+                inputs={"b_eff": min(cp, nc), "omega": om},
+            )
+        )
+        if z < 0:  # extension row (outside the tension flange)
+            kinds.append("extension")
+            mx = -z - 0.8 * leg_f
+            ex = proj + z if proj is not None else -z
+            cpp, ncp = el.end_plate_extension_row(mx, ex, e_p, b.gauge, pl.bp)
+            tsp = t_stub(
+                l_eff_1=min(cpp, ncp),
+                l_eff_2=ncp,
+                tf=pl.tp,
+                fy=pl.fy,
+                m=mx,
+                e_min=min(ex, e_p),
+                sum_F_t_Rd=ft_row,
+                e_w=ew,
+                params=p,
+            )
+            d["end plate in bending"] = tsp.F_T_Rd
+            comps.append(
+                ComponentResult(
+                    clause="6.2.6.5",
+                    name="end plate in bending",
+                    F_Rd=tsp.F_T_Rd,
+                    mode=tsp.mode,
+                    row=i,
+                    inputs={"l_eff_cp": cpp, "l_eff_nc": ncp, "mx": mx, "ex": ex},
+                )
+            )
+        else:
+            first = not kinds or kinds[-1] == "extension"
+            kinds.append("first" if first else "other")
+            if first:
+                cpp, ncp = el.end_plate_first_row_below_flange(m_p, e_p, alpha)
+            else:
+                cpp, ncp = el.end_plate_other_row(m_p, e_p)
+            tsp = t_stub(
+                l_eff_1=min(cpp, ncp),
+                l_eff_2=ncp,
+                tf=pl.tp,
+                fy=pl.fy,
+                m=m_p,
+                e_min=e_p,
+                sum_F_t_Rd=ft_row,
+                e_w=ew,
+                params=p,
+            )
+            d["end plate in bending"] = tsp.F_T_Rd
+            comps.append(
+                ComponentResult(
+                    clause="6.2.6.5",
+                    name="end plate in bending",
+                    F_Rd=tsp.F_T_Rd,
+                    mode=tsp.mode,
+                    row=i,
+                    inputs={
+                        "l_eff_cp": cpp,
+                        "l_eff_nc": ncp,
+                        "m": m_p,
+                        "e": e_p,
+                        "alpha": alpha if first else None,
+                    },
+                )
+            )
+            fwb = cmp.F_t_wb_Rd(b_eff=min(cpp, ncp), t_wb=beam.tw, fy_wb=beam.fy, params=p)
+            d["beam web in tension"] = fwb
+            comps.append(
+                ComponentResult(
+                    clause="6.2.6.8",
+                    name="beam web in tension",
+                    F_Rd=fwb,
+                    row=i,
+                    inputs={"b_eff": min(cpp, ncp)},
+                )
+            )
+        alone.append(d)
+    groups: dict[tuple[int, int], dict[str, float]] = {}
+    n = len(tension)
+    for i in range(1, n + 1):
+        for j in range(i + 1, n + 1):
+            g: dict[str, float] = {}
+            cp_s = nc_s = 0.0
+            for k in range(i, j + 1):
+                share = _pitch_share(tension, i, j, k)
+                a_, b_ = el.column_flange_row_in_group(m_c, e_c, share, end_row=k in (i, j))
+                cp_s, nc_s = cp_s + a_, nc_s + b_
+            ts = t_stub(
+                l_eff_1=min(cp_s, nc_s),
+                l_eff_2=nc_s,
+                tf=col.tf,
+                fy=col.fy,
+                m=m_c,
+                e_min=e_c,
+                sum_F_t_Rd=ft_row * (j - i + 1),
+                e_w=ew,
+                params=p,
+            )
+            g["column flange in bending"] = ts.F_T_Rd
+            om = cmp.omega(inp.beta, min(cp_s, nc_s), col.tw, a_vc)
+            g["column web in tension"] = cmp.F_t_wc_Rd(
+                b_eff=min(cp_s, nc_s), t_wc=col.tw, fy_wc=col.fy, omega_=om, params=p
+            )
+            comps.append(
+                ComponentResult(
+                    clause="6.2.6.4",
+                    name="column flange in bending",
+                    F_Rd=ts.F_T_Rd,
+                    mode=ts.mode,
+                    rows=tuple(range(i, j + 1)),
+                    inputs={"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s},
+                )
+            )
+            if all(kinds[k - 1] != "extension" for k in range(i, j + 1)):
+                cp_s = nc_s = 0.0
+                for k in range(i, j + 1):
+                    share = _pitch_share(tension, i, j, k)
+                    if kinds[k - 1] == "first" and k == i:
+                        a_, b_ = el.end_plate_first_row_below_flange(m_p, e_p, alpha, p=share)
+                    else:
+                        a_, b_ = el.end_plate_other_row(m_p, e_p, p=share, end_row=k in (i, j))
+                    cp_s, nc_s = cp_s + a_, nc_s + b_
+                tsp = t_stub(
+                    l_eff_1=min(cp_s, nc_s),
+                    l_eff_2=nc_s,
+                    tf=pl.tp,
+                    fy=pl.fy,
+                    m=m_p,
+                    e_min=e_p,
+                    sum_F_t_Rd=ft_row * (j - i + 1),
+                    e_w=ew,
+                    params=p,
+                )
+                g["end plate in bending"] = tsp.F_T_Rd
+                g["beam web in tension"] = cmp.F_t_wb_Rd(
+                    b_eff=min(cp_s, nc_s), t_wb=beam.tw, fy_wb=beam.fy, params=p
+                )
+                comps.append(
+                    ComponentResult(
+                        clause="6.2.6.5",
+                        name="end plate in bending",
+                        F_Rd=tsp.F_T_Rd,
+                        mode=tsp.mode,
+                        rows=tuple(range(i, j + 1)),
+                        inputs={"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s},
+                    )
+                )
+            groups[(i, j)] = g
+    # compression side
+    # 45-degree spread through the plate: tp on the beam side, and up to tp more where the
+    # plate projects beyond the compression flange (6.2.6.2(1), s_p between tp and 2 tp).
+    s_p = pl.tp + min(max(comp_proj, 0.0), pl.tp)
+    beff = cmp.b_eff_c_wc_end_plate(beam.tf, a_c, col.tf, col.s, s_p)
+    dwc = col.h - 2 * (col.tf + col.r)
+    om_c = cmp.omega(inp.beta, beff, col.tw, a_vc)
+    fcwc = cmp.F_c_wc_Rd(b_eff=beff, t_wc=col.tw, d_wc=dwc, fy_wc=col.fy, omega_=om_c, params=p)
+    wpl = beam.Wpl_y or _wpl(beam)
+    fcfb = cmp.F_c_fb_Rd(wpl * beam.fy / p.gamma_M0, beam.h, beam.tf)
+    compression = {"column web in compression": fcwc, "beam flange and web in compression": fcfb}
+    comps.append(
+        ComponentResult(
+            clause="6.2.6.2",
+            name="column web in compression",
+            F_Rd=fcwc,
+            inputs={"b_eff_c_wc": beff, "omega": om_c, "s_p": s_p},
+        )
+    )
+    comps.append(
+        ComponentResult(
+            clause="6.2.6.7",
+            name="beam flange and web in compression",
+            F_Rd=fcfb,
+            inputs={"Mc_Rd": wpl * beam.fy / p.gamma_M0},
+        )
+    )
+    if inp.beta > 0:
+        compression["column web panel in shear / beta"] = vwp / inp.beta
+    comps.append(
+        ComponentResult(
+            clause="6.2.6.1",
+            name="column web panel in shear",
+            F_Rd=vwp,
+            inputs={"A_vc": a_vc, "beta": inp.beta},
+        )
+    )
+    rr = distribute_tension(h=h_r, alone=alone, groups=groups, compression=compression, F_t_Rd=ft)
+    mj = M_j_Rd(rr)
+    gov = min(rr, key=lambda r: r.F_tr_Rd).limited_by if rr else ""
+    # stiffness (6.3): per row k3, k4, k5, k10; k1, k2 for the compression side
+    lb = b.L_b or (pl.tp + col.tf + 8.0 + 0.5 * (0.65 * b.d + 0.8 * b.d))
+    keff = []
+    for i in range(len(tension)):
+        cp, nc = el.column_flange_row_alone(m_c, e_c)
+        lmin = min(cp, nc)
+        k3 = stf.k3_web_tension(lmin, col.tw, dwc)
+        k4 = stf.k4_column_flange(lmin, col.tf, m_c)
+        c_a = [c for c in comps if c.name == "end plate in bending" and c.row == i + 1][0]
+        lp = min(c_a.inputs["l_eff_cp"], c_a.inputs["l_eff_nc"])
+        mm = c_a.inputs.get("mx") or c_a.inputs.get("m")
+        k5 = stf.k5_end_plate(lp, pl.tp, mm)
+        k10 = stf.k10_bolts(b.As, lb)
+        keff.append(stf.k_eff_row([k3, k4, k5, k10]))
+    if len(keff) >= 1:
+        zeq, keq = stf.equivalent_lever_arm(keff, h_r)
+    else:
+        zeq, keq = cc, float("inf")
+    k1 = stf.k1_web_panel(a_vc, inp.beta, zeq)
+    k2 = stf.k2_web_compression(beff, col.tw, dwc)
+    sj = stf.S_j_ini(zeq, [k1, k2, keq], p)
+    return SideResult(
+        sign=sign,
+        M_j_Rd=mj,
+        z=zeq,
+        rows=tuple(rr),
+        components=tuple(comps),
+        S_j_ini=sj,
+        governing=gov,
+    )
+
+
+def _pitch_share(rows: list[float], i: int, j: int, k: int) -> float:
+    """Pitch share of row k in group i..j (1-based).
+
+    End rows take the pitch to their neighbour, inner rows the mean of their two pitches.
+    """
+    z = rows
+    if k == i:
+        return z[i] - z[i - 1]
+    if k == j:
+        return z[j - 1] - z[j - 2]
+    return (z[k] - z[k - 2]) / 2
+
+
+def _wpl(s: MemberInput) -> float:
+    """Plastic modulus of an I section with root radius (as ifcjoint.engine.sections)."""
+    from ifcjoint.engine.sections import ISection
+
+    return ISection(h=s.h, b=s.b, tw=s.tw, tf=s.tf, r=s.r).Wpl_y
+
+
+def _shear(inp: EndPlateJointInput, hog: SideResult) -> tuple[float, str]:
+    """Vj,Rd of the bolt group (EN 1993-1-8 Table 3.4 and 3.6.1; 6.2.2(2) note).
+
+    Common practice: bolts in tension rows take (1 - 1/1.4) Fv,Rd (the interaction of Table 3.4
+    with Ft,Ed = Ft,Rd); the other rows their full shear and bearing resistance.
+    """
+    b, p = inp.bolts, inp.params
+    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
+    # bearing on the thinner ply, k1 = 2.5, alpha_b = 1 (edge and end distances ample)
+    t_min = min(inp.plate.tp, inp.column.tf)
+    fu_min = min(inp.plate.fu, inp.column.fu)
+    fb = 2.5 * 1.0 * fu_min * b.d * t_min / p.gamma_M2
+    per_bolt = min(fv, fb)
+    n_tension = len(hog.rows)
+    n_rows = len(b.rows_from_beam_top)
+    v = 2 * n_tension * (1 - 1 / 1.4) * per_bolt + 2 * (n_rows - n_tension) * per_bolt
+    note = (
+        f"Vj,Rd: {2 * (n_rows - n_tension)} bolt(s) in shear rows at "
+        f"{per_bolt / 1e3:.1f} kN, {2 * n_tension} in tension rows at (1 - 1/1.4) of that "
+        "(Table 3.4 interaction, common practice); bearing with k1 = 2.5, alpha_b = 1"
+    )
+    return v, note
