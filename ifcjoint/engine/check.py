@@ -140,7 +140,7 @@ class ComponentResult:
             "name": self.name,
             "row": self.row,
             "rows": list(self.rows),
-            "F_Rd_kN": round(self.F_Rd / 1e3, 2),
+            "F_Rd_kN": round(float(self.F_Rd) / 1e3, 2),
             "mode": self.mode,
         }
 
@@ -170,7 +170,12 @@ class CheckResult:
     V_wp_Rd: float | None = None  # noqa: N815
     classification: dict = field(default_factory=dict)
     notes: tuple[str, ...] = ()
-    inputs: dict = field(default_factory=dict)
+    input: EndPlateJointInput | None = None
+
+    @property
+    def inputs(self) -> dict:
+        """The complete input used (mm, MPa), as plain data."""
+        return _inputs_dict(self.input) if self.input is not None else {}
 
     def as_dict(self) -> dict:
         """The output contract (kN, kNm, kNm/rad, mm)."""
@@ -180,19 +185,20 @@ class CheckResult:
         return {
             "status": self.status,
             "resistance": {
-                "Mj_Rd_hogging_kNm": round(h.M_j_Rd / 1e6, 2),
-                "Mj_Rd_sagging_kNm": round(s.M_j_Rd / 1e6, 2) if s else None,
-                "Vj_Rd_kN": round(self.V_j_Rd / 1e3, 2),
-                "Vwp_Rd_kN": round(self.V_wp_Rd / 1e3, 2),
-                "Sj_ini_kNm_per_rad": round(h.S_j_ini / 1e6, 1),
-                "z_mm": round(h.z, 1),
+                "Mj_Rd_hogging_kNm": round(float(h.M_j_Rd) / 1e6, 2),
+                "Mj_Rd_sagging_kNm": round(float(s.M_j_Rd) / 1e6, 2) if s else None,
+                "Vj_Rd_kN": round(float(self.V_j_Rd) / 1e3, 2),
+                "Vwp_Rd_kN": round(float(self.V_wp_Rd) / 1e3, 2),
+                "Sj_ini_kNm_per_rad": round(float(h.S_j_ini) / 1e6, 1),
+                "Sj_ini_sagging_kNm_per_rad": round(float(s.S_j_ini) / 1e6, 1) if s else None,
+                "z_mm": round(float(h.z), 1),
             },
             "components": [c.as_dict() for c in h.components],
             "tension_rows": [
                 {
                     "row": r.row,
-                    "h_r_mm": round(r.h_r, 1),
-                    "F_tr_Rd_kN": round(r.F_tr_Rd / 1e3, 2),
+                    "h_r_mm": round(float(r.h_r), 1),
+                    "F_tr_Rd_kN": round(float(r.F_tr_Rd) / 1e3, 2),
                     "limited_by": r.limited_by,
                 }
                 for r in h.rows
@@ -204,8 +210,8 @@ class CheckResult:
                 "tension_rows": [
                     {
                         "row": r.row,
-                        "h_r_mm": round(r.h_r, 1),
-                        "F_tr_Rd_kN": round(r.F_tr_Rd / 1e3, 2),
+                        "h_r_mm": round(float(r.h_r), 1),
+                        "F_tr_Rd_kN": round(float(r.F_tr_Rd) / 1e3, 2),
                         "limited_by": r.limited_by,
                     }
                     for r in s.rows
@@ -218,9 +224,7 @@ class CheckResult:
 
 
 def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckResult:
-    return CheckResult(
-        status="not_checked", reason=reason, inputs=_inputs_dict(inp) if inp is not None else {}
-    )
+    return CheckResult(status="not_checked", reason=reason, input=inp)
 
 
 def _inputs_dict(inp: EndPlateJointInput) -> dict:
@@ -273,14 +277,14 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     else:
         cls["stiffness"] = "not classified: beam span or Iy unknown"
     if beam.Wpl_y and col.Wpl_y:
-        c_r, limit = stf.classify_strength(
-            min(hog.M_j_Rd, sag.M_j_Rd),
-            beam.Wpl_y * beam.fy / p.gamma_M0,
-            col.Wpl_y * col.fy / p.gamma_M0,
-            column_continues_above=inp.column_continues_above,
-        )
-        cls["strength"] = c_r
-        cls["full_strength_from_kNm"] = round(limit / 1e6, 1)
+        mpl_b = beam.Wpl_y * beam.fy / p.gamma_M0
+        mpl_c = col.Wpl_y * col.fy / p.gamma_M0
+        for sign, side in (("hogging", hog), ("sagging", sag)):
+            c_r, limit = stf.classify_strength(
+                side.M_j_Rd, mpl_b, mpl_c, column_continues_above=inp.column_continues_above
+            )
+            cls["strength" if sign == "hogging" else "strength_sagging"] = c_r
+        cls["full_strength_from_kNm"] = round(float(limit) / 1e6, 1)
     else:
         cls["strength"] = "not classified: plastic moduli unknown"
     return CheckResult(
@@ -291,7 +295,7 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
         V_wp_Rd=vwp,
         classification=cls,
         notes=tuple(notes),
-        inputs=_inputs_dict(inp),
+        input=inp,
     )
 
 
