@@ -175,3 +175,40 @@ def F_t_wb_Rd(
     plate T-stub (6.2.6.8(2)).
     """
     return b_eff * t_wb * fy_wb / params.gamma_M0
+
+
+#: Correlation factor beta_w of fillet welds, EN 1993-1-8:2005 Table 4.1 (from memory).
+BETA_W = {"S235": 0.80, "S275": 0.85, "S355": 0.90, "S420": 1.0, "S460": 1.0}
+
+
+def f_vw_d(fu: float, beta_w: float, params: Parameters = RECOMMENDED) -> float:
+    """Design shear strength of a fillet weld fvw,d = fu / (sqrt(3) beta_w gamma_M2) (MPa).
+
+    EN 1993-1-8:2005, 4.5.3.3(3), Eq. (4.4) (simplified method).
+    """
+    return fu / (math.sqrt(3.0) * beta_w * params.gamma_M2)
+
+
+def b_eff_b_fc_welded(
+    t_wc: float, s: float, t_fc: float, t_fb: float, fy_fc: float, fy_fb: float
+) -> float:
+    """Effective breadth of the beam flange on an unstiffened column flange, welded (mm).
+
+    EN 1993-1-8:2005, 6.2.6.4.3(1), Eqs. (6.20)-(6.21): b_eff,b,fc = t_wc + 2 s + 7 k t_fc with
+    k = (t_fc / t_fb)(fy,fc / fy,fb), k <= 1.
+    """
+    k = min((t_fc / t_fb) * (fy_fc / fy_fb), 1.0)
+    return t_wc + 2.0 * s + 7.0 * k * t_fc
+
+
+def F_fc_Rd_welded(
+    b_eff_b_fc: float,
+    t_fb: float,
+    fy_fb: float,  # noqa: N802
+    params: Parameters = RECOMMENDED,
+) -> float:
+    """Unstiffened column flange in bending for a welded joint Ffc,Rd (N).
+
+    EN 1993-1-8:2005, 6.2.6.4.3(1), Eq. (6.20): b_eff,b,fc t_fb fy,fb / gamma_M0.
+    """
+    return b_eff_b_fc * t_fb * fy_fb / params.gamma_M0

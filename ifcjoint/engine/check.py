@@ -171,11 +171,13 @@ class CheckResult:
     classification: dict = field(default_factory=dict)
     notes: tuple[str, ...] = ()
     input: EndPlateJointInput | None = None
+    welded_input: WeldedJointInput | None = None
 
     @property
     def inputs(self) -> dict:
         """The complete input used (mm, MPa), as plain data."""
-        return _inputs_dict(self.input) if self.input is not None else {}
+        inp = self.input if self.input is not None else self.welded_input
+        return _inputs_dict(inp) if inp is not None else {}
 
     def as_dict(self) -> dict:
         """The output contract (kN, kNm, kNm/rad, mm)."""
@@ -227,7 +229,7 @@ def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckRes
     return CheckResult(status="not_checked", reason=reason, input=inp)
 
 
-def _inputs_dict(inp: EndPlateJointInput) -> dict:
+def _inputs_dict(inp) -> dict:
     d = asdict(inp)
     d["params"] = inp.params.as_dict()
     return d
@@ -670,3 +672,150 @@ def _shear(inp: EndPlateJointInput, hog: SideResult) -> tuple[float, str]:
         "(Table 3.4 interaction, common practice); bearing with k1 = 2.5, alpha_b = 1"
     )
     return v, note
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class WeldedJointInput:
+    """A beam welded to a column flange (N, mm, MPa)."""
+
+    column: MemberInput
+    beam: MemberInput
+    welds: WeldsInput
+    params: Parameters = RECOMMENDED
+    beta: float = 1.0
+    column_continues_above: bool = True
+    braced: bool = True
+    stiffeners: tuple[str, ...] = ()
+    supplementary_web_plates: tuple[str, ...] = ()
+
+
+def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
+    """Resistance, stiffness and classification of a welded beam-to-column joint.
+
+    EN 1993-1-8:2005, 6.2.7.2 with the welded components: column web panel in shear
+    (6.2.6.1), column web in compression (6.2.6.2, Eq. 6.10) and in tension (6.2.6.3,
+    Eq. 6.16), column flange in bending (6.2.6.4.3), beam flange and web in compression
+    (6.2.6.7), the beam flange welds (4.5.3.3); lever arm h - t_fb (Figure 6.15);
+    Sj,ini from k1, k2, k3 (6.3.1, Table 6.11); Vj,Rd from the web welds.
+    """
+    col, beam, w, p = inp.column, inp.beam, inp.welds, inp.params
+    if inp.stiffeners or inp.supplementary_web_plates:
+        return _not_checked("column stiffeners or supplementary web plates are not handled yet")
+    dc = col.h - 2 * col.tf - 2 * col.r
+    if not cmp.web_panel_slenderness_ok(dc, col.tw, col.fy):
+        return _not_checked("column web too slender for 6.2.6.1")
+    a_vc = _shear_area(col)
+    vwp = cmp.V_wp_Rd(col.fy, a_vc, p)
+    z = beam.h - beam.tf
+    sides = []
+    for sign, a_t, a_c in (
+        ("hogging", w.top_flange_throat, w.bottom_flange_throat),
+        ("sagging", w.bottom_flange_throat, w.top_flange_throat),
+    ):
+        comps = []
+        beff_c = cmp.b_eff_c_wc_welded(beam.tf, a_c, col.tf, col.s)
+        beff_t = cmp.b_eff_c_wc_welded(beam.tf, a_t, col.tf, col.s)
+        fcwc = cmp.F_c_wc_Rd(
+            b_eff=beff_c,
+            t_wc=col.tw,
+            d_wc=dc,
+            fy_wc=col.fy,
+            omega_=cmp.omega(inp.beta, beff_c, col.tw, a_vc),
+            params=p,
+        )
+        ftwc = cmp.F_t_wc_Rd(
+            b_eff=beff_t,
+            t_wc=col.tw,
+            fy_wc=col.fy,
+            omega_=cmp.omega(inp.beta, beff_t, col.tw, a_vc),
+            params=p,
+        )
+        bfc = cmp.b_eff_b_fc_welded(col.tw, col.s, col.tf, beam.tf, col.fy, beam.fy)
+        ffc = cmp.F_fc_Rd_welded(bfc, beam.tf, beam.fy, p)
+        wpl = beam.Wpl_y or _wpl(beam)
+        fcfb = cmp.F_c_fb_Rd(wpl * beam.fy / p.gamma_M0, beam.h, beam.tf)
+        fvw = cmp.f_vw_d(min(beam.fu, col.fu), cmp.BETA_W.get(beam.grade, 1.0), p)
+        fweld = 2 * a_t * beam.b * fvw  # double fillet along the flange width
+        for clause, name, f, extra in (
+            ("6.2.6.2", "column web in compression", fcwc, {"b_eff_c_wc": beff_c}),
+            ("6.2.6.3", "column web in tension", ftwc, {"b_eff_t_wc": beff_t}),
+            ("6.2.6.4.3", "column flange in bending", ffc, {"b_eff_b_fc": bfc}),
+            ("6.2.6.7", "beam flange and web in compression", fcfb, {}),
+            ("4.5.3.3", "beam flange weld", fweld, {"a": a_t, "f_vw_d": fvw}),
+            (
+                "6.2.6.1",
+                "column web panel in shear / beta",
+                vwp / inp.beta if inp.beta > 0 else float("inf"),
+                {"A_vc": a_vc},
+            ),
+        ):
+            comps.append(ComponentResult(clause=clause, name=name, F_Rd=f, inputs=extra))
+        gov = min(comps, key=lambda c: c.F_Rd)
+        f_t = gov.F_Rd
+        row = RowResult(
+            row=1,
+            h_r=z,
+            F_tr_Rd=f_t,
+            limited_by=gov.name,
+            candidates={c.name: c.F_Rd for c in comps},
+        )
+        k1 = stf.k1_web_panel(a_vc, inp.beta, z)
+        k2 = stf.k2_web_compression(beff_c, col.tw, dc)
+        k3 = stf.k3_web_tension(beff_t, col.tw, dc)
+        sj = stf.S_j_ini(z, [k1, k2, k3], p)
+        sides.append(
+            SideResult(
+                sign=sign,
+                M_j_Rd=f_t * z,
+                z=z,
+                rows=(row,),
+                components=tuple(comps),
+                S_j_ini=sj,
+                governing=gov.name,
+            )
+        )
+    hog, sag = sides
+    fvw_web = cmp.f_vw_d(min(beam.fu, col.fu), cmp.BETA_W.get(beam.grade, 1.0), p)
+    vjrd = 2 * w.web_throat * (beam.h - 2 * beam.tf) * fvw_web
+    notes = ["Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"]
+    if w.assumed:
+        notes.append(
+            f"weld throats assumed (not modelled): flanges a = {w.top_flange_throat:g}"
+            f" / {w.bottom_flange_throat:g} mm, web a = {w.web_throat:g} mm"
+        )
+    cls: dict = {}
+    if beam.span and beam.Iy:
+        c_s, bounds = stf.classify_stiffness(
+            hog.S_j_ini, beam.Iy, beam.span, braced=inp.braced, params=p
+        )
+        cls.update(
+            {
+                "stiffness": c_s,
+                "kb": bounds["kb"],
+                "rigid_from_kNm_per_rad": round(bounds["rigid_from"] / 1e6, 1),
+                "pinned_up_to_kNm_per_rad": round(bounds["pinned_up_to"] / 1e6, 1),
+            }
+        )
+    else:
+        cls["stiffness"] = "not classified: beam span or Iy unknown"
+    if beam.Wpl_y and col.Wpl_y:
+        for key, side in (("strength", hog), ("strength_sagging", sag)):
+            c_r, limit = stf.classify_strength(
+                side.M_j_Rd,
+                beam.Wpl_y * beam.fy / p.gamma_M0,
+                col.Wpl_y * col.fy / p.gamma_M0,
+                column_continues_above=inp.column_continues_above,
+            )
+            cls[key] = c_r
+        cls["full_strength_from_kNm"] = round(float(limit) / 1e6, 1)
+    return CheckResult(
+        status="checked",
+        hogging=hog,
+        sagging=sag,
+        V_j_Rd=vjrd,
+        V_wp_Rd=vwp,
+        classification=cls,
+        notes=tuple(notes),
+        input=None,
+        welded_input=inp,
+    )

@@ -17,8 +17,10 @@ from ifcjoint.engine.check import (
     EndPlateJointInput,
     MemberInput,
     PlateInput,
+    WeldedJointInput,
     WeldsInput,
     check_end_plate_joint,
+    check_welded_joint,
 )
 from ifcjoint.engine.materials import BOLT_CLASSES, steel_strengths
 from ifcjoint.engine.model import Member
@@ -33,16 +35,28 @@ class CheckSettings:
     Attributes:
         params: partial factors and nationally determined parameters.
         weld_throat_ratio: fillet weld throat as a fraction of the thickness of the part it
-            joins (flange or web) when welds are not modelled. Common practice, no source:
-            0.55 t is of the order of a full-strength double fillet weld in S355.
+            joins when welds are not modelled; None (default): full-strength double fillet
+            welds by the simplified method, a = t fy sqrt(3) beta_w gamma_M2 / (2 fu)
+            (EN 1993-1-8 4.5.3.3), rounded up to the mm.
         strength_basis: ``EN 1993-1-1`` (Table 3.1) or ``EN 10025`` (product standard).
         braced: frame braced (kb = 8) or not (kb = 25) for the stiffness classification.
     """
 
     params: Parameters = RECOMMENDED
-    weld_throat_ratio: float = 0.55
+    weld_throat_ratio: float | None = None
     strength_basis: str = "EN 1993-1-1"
     braced: bool = True
+
+
+def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> float:
+    """Assumed throat of a double fillet weld joining a part of thickness t (mm)."""
+    if st.weld_throat_ratio is not None:
+        return round(st.weld_throat_ratio * t, 1)
+    from ifcjoint.ec3.components import BETA_W
+
+    bw = BETA_W.get(grade, 1.0)
+    a = t * fy * 3**0.5 * bw * st.params.gamma_M2 / (2 * fu)
+    return float(-(-a // 1))  # up to the whole mm
 
 
 def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
@@ -109,8 +123,9 @@ def end_plate_input(
         return f"steel strength not available: {exc}"
     fyb, fub = BOLT_CLASSES[b.bolt_class]
     del fyb
-    ratio = st.weld_throat_ratio
     sec = a.beam_section
+    a_f = _throat(sec.tf, beam.grade, beam.fy, beam.fu, st)
+    a_w = _throat(sec.tw, beam.grade, beam.fy, beam.fu, st)
     grip = p.tp + a.column_section.tf
     return EndPlateJointInput(
         column=col,
@@ -136,10 +151,52 @@ def end_plate_input(
             L_b=grip + 8.0 + 0.5 * (0.65 * b.d + 0.9 * b.d),
         ),
         welds=WeldsInput(
-            top_flange_throat=round(ratio * sec.tf, 1),
-            bottom_flange_throat=round(ratio * sec.tf, 1),
-            web_throat=round(ratio * sec.tw, 1),
-            assumed=True,
+            top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True
+        ),
+        params=st.params,
+        beta=1.0,
+        braced=st.braced,
+        stiffeners=a.stiffeners,
+        supplementary_web_plates=a.web_plates,
+    )
+
+
+def welded_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> WeldedJointInput | str:
+    """The engine input for a beam welded to a column flange, or the reason it cannot be."""
+    st = settings or CheckSettings()
+    if joint.axis != "major":
+        return "minor-axis joint (beam on the column web): not handled yet"
+    missing = [
+        n
+        for n, v in (
+            ("beam section", a.beam_section),
+            ("column section", a.column_section),
+            ("beam grade", a.beam_grade),
+            ("column grade", a.column_grade),
+        )
+        if v is None
+    ]
+    if missing:
+        return "not read from the model: " + ", ".join(missing)
+    try:
+        beam = _member(
+            members[joint.beam], a.beam_section, a.beam_grade, st.strength_basis, span=True
+        )
+        col = _member(
+            members[joint.column], a.column_section, a.column_grade, st.strength_basis, span=False
+        )
+    except ValueError as exc:
+        return f"steel strength not available: {exc}"
+    sec = a.beam_section
+    a_f = _throat(sec.tf, beam.grade, beam.fy, beam.fu, st)
+    a_w = _throat(sec.tw, beam.grade, beam.fy, beam.fu, st)
+    return WeldedJointInput(
+        column=col,
+        beam=beam,
+        welds=WeldsInput(
+            top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True
         ),
         params=st.params,
         beta=1.0,
@@ -153,6 +210,11 @@ def check_joint(
     joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
 ) -> CheckResult:
     """Check one joint, or say why it is not checked."""
+    if a.archetype == "welded":
+        winp = welded_input(joint, a, members, settings)
+        if isinstance(winp, str):
+            return CheckResult(status="not_checked", reason=winp)
+        return check_welded_joint(winp)
     inp = end_plate_input(joint, a, members, settings)
     if isinstance(inp, str):
         return CheckResult(status="not_checked", reason=inp)
