@@ -212,3 +212,53 @@ def F_fc_Rd_welded(
     EN 1993-1-8:2005, 6.2.6.4.3(1), Eq. (6.20): b_eff,b,fc t_fb fy,fb / gamma_M0.
     """
     return b_eff_b_fc * t_fb * fy_fb / params.gamma_M0
+
+
+def V_wp_Ed(
+    M_b1_Ed: float,
+    M_b2_Ed: float,
+    z: float,
+    V_c1_Ed: float = 0.0,  # noqa: N802, N803
+    V_c2_Ed: float = 0.0,
+) -> float:
+    """Shear force in the column web panel Vwp,Ed (N).
+
+    EN 1993-1-8:2005, 5.3(3), Eq. (5.3): (Mb1,Ed - Mb2,Ed) / z - (Vc1,Ed - Vc2,Ed) / 2, with
+    the moments of the beams on the two sides (N mm; same sign convention on both sides), z the
+    lever arm (mm) and Vc1, Vc2 the shear forces in the column above and below (N).
+    """
+    return (M_b1_Ed - M_b2_Ed) / z - (V_c1_Ed - V_c2_Ed) / 2.0
+
+
+def beta_from_moments(M_b1_Ed: float, M_b2_Ed: float | None) -> float:  # noqa: N803
+    """Approximate transformation parameter beta of the web panel.
+
+    EN 1993-1-8:2005, 5.3(7), Table 5.4 (approximate values): single-sided joint 1;
+    double-sided with Mb1,Ed = Mb2,Ed (balanced) 0, Mb1,Ed / Mb2,Ed > 0 1, Mb1,Ed / Mb2,Ed < 0
+    2, Mb1,Ed + Mb2,Ed = 0 2. Moments in the sign convention of Table 5.4.
+
+    Args:
+        M_b1_Ed: the larger moment, N mm.
+        M_b2_Ed: the other side's moment, N mm; None for a single-sided joint.
+    """
+    if M_b2_Ed is None:
+        return 1.0
+    if M_b1_Ed == M_b2_Ed:
+        return 0.0
+    if M_b1_Ed + M_b2_Ed == 0 or (M_b2_Ed != 0 and M_b1_Ed / M_b2_Ed < 0):
+        return 2.0
+    return 1.0
+
+
+def axial_force_significant(
+    N_Ed: float,
+    A: float,
+    fy: float,  # noqa: N803
+    params: Parameters = RECOMMENDED,
+) -> bool:
+    """Whether the beam's axial force must be taken into account (N_Ed > 5 % Npl,Rd).
+
+    EN 1993-1-8:2005, 6.2.7.1(2): above that, the moment resistance alone does not verify the
+    joint (6.2.7.1(3), Eq. (6.24)).
+    """
+    return abs(N_Ed) > 0.05 * A * fy / params.gamma_M0

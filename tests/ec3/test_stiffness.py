@@ -51,3 +51,19 @@ def test_strength_classification_boundaries():
     assert s.classify_strength(199, 500, 200)[0] == "partial-strength"  # boundary 400
     assert s.classify_strength(100, 500, 400)[0] == "nominally pinned"
     assert s.classify_strength(300, 500, 400)[0] == "partial-strength"
+
+
+def test_web_panel_demand_and_beta():
+    # EN 1993-1-8 5.3(3) Eq. (5.3) and Table 5.4 (approximate beta values).
+    from ifcjoint.ec3.components import V_wp_Ed, axial_force_significant, beta_from_moments
+
+    assert V_wp_Ed(300e6, 100e6, 400.0) == pytest.approx(500e3)
+    assert V_wp_Ed(300e6, 100e6, 400.0, 40e3, -20e3) == pytest.approx(500e3 - 30e3)
+    assert beta_from_moments(200e6, None) == 1.0
+    assert beta_from_moments(200e6, 200e6) == 0.0
+    assert beta_from_moments(200e6, 100e6) == 1.0
+    assert beta_from_moments(200e6, -100e6) == 2.0
+    # 6.2.7.1(2): 5 % of Npl,Rd = 0.05 * 8446 mm2 * 355 MPa = 149.9 kN (IPE 400 area from
+    # memory, 8446 mm2)
+    assert not axial_force_significant(149e3, 8446, 355)
+    assert axial_force_significant(151e3, 8446, 355)
