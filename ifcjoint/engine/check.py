@@ -259,7 +259,7 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
         )
     if inp.bolts.L_b is None:
         notes.append("bolt elongation length not known: prying assumed (Table 6.2)")
-    col, beam = inp.column, inp.beam
+    col = inp.column
     p = inp.params
     a_vc = _shear_area(col)
     vwp = cmp.V_wp_Rd(col.fy, a_vc, p)
@@ -267,7 +267,23 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     sag = _side(inp, "sagging", a_vc, vwp)
     vjrd, vnote = _shear(inp, hog)
     notes.append(vnote)
-    cls = {}
+    cls = _classify(inp, hog, sag)
+    return CheckResult(
+        status="checked",
+        hogging=hog,
+        sagging=sag,
+        V_j_Rd=vjrd,
+        V_wp_Rd=vwp,
+        classification=cls,
+        notes=tuple(notes),
+        input=inp,
+    )
+
+
+def _classify(inp, hog: SideResult, sag: SideResult) -> dict:
+    """Stiffness class (EN 1993-1-8 5.2.2.5) and strength class per sign (5.2.3.3)."""
+    beam, col, p = inp.beam, inp.column, inp.params
+    cls: dict = {}
     if beam.span and beam.Iy:
         c_s, bounds = stf.classify_stiffness(
             hog.S_j_ini, beam.Iy, beam.span, braced=inp.braced, params=p
@@ -281,24 +297,15 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     if beam.Wpl_y and col.Wpl_y:
         mpl_b = beam.Wpl_y * beam.fy / p.gamma_M0
         mpl_c = col.Wpl_y * col.fy / p.gamma_M0
-        for sign, side in (("hogging", hog), ("sagging", sag)):
+        for key, side in (("strength", hog), ("strength_sagging", sag)):
             c_r, limit = stf.classify_strength(
                 side.M_j_Rd, mpl_b, mpl_c, column_continues_above=inp.column_continues_above
             )
-            cls["strength" if sign == "hogging" else "strength_sagging"] = c_r
+            cls[key] = c_r
         cls["full_strength_from_kNm"] = round(float(limit) / 1e6, 1)
     else:
         cls["strength"] = "not classified: plastic moduli unknown"
-    return CheckResult(
-        status="checked",
-        hogging=hog,
-        sagging=sag,
-        V_j_Rd=vjrd,
-        V_wp_Rd=vwp,
-        classification=cls,
-        notes=tuple(notes),
-        input=inp,
-    )
+    return cls
 
 
 def _out_of_scope(inp: EndPlateJointInput) -> str:
@@ -783,31 +790,7 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
             f"weld throats assumed (not modelled): flanges a = {w.top_flange_throat:g}"
             f" / {w.bottom_flange_throat:g} mm, web a = {w.web_throat:g} mm"
         )
-    cls: dict = {}
-    if beam.span and beam.Iy:
-        c_s, bounds = stf.classify_stiffness(
-            hog.S_j_ini, beam.Iy, beam.span, braced=inp.braced, params=p
-        )
-        cls.update(
-            {
-                "stiffness": c_s,
-                "kb": bounds["kb"],
-                "rigid_from_kNm_per_rad": round(bounds["rigid_from"] / 1e6, 1),
-                "pinned_up_to_kNm_per_rad": round(bounds["pinned_up_to"] / 1e6, 1),
-            }
-        )
-    else:
-        cls["stiffness"] = "not classified: beam span or Iy unknown"
-    if beam.Wpl_y and col.Wpl_y:
-        for key, side in (("strength", hog), ("strength_sagging", sag)):
-            c_r, limit = stf.classify_strength(
-                side.M_j_Rd,
-                beam.Wpl_y * beam.fy / p.gamma_M0,
-                col.Wpl_y * col.fy / p.gamma_M0,
-                column_continues_above=inp.column_continues_above,
-            )
-            cls[key] = c_r
-        cls["full_strength_from_kNm"] = round(float(limit) / 1e6, 1)
+    cls = _classify(inp, hog, sag)
     return CheckResult(
         status="checked",
         hogging=hog,

@@ -80,6 +80,38 @@ def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> 
     )
 
 
+def _beam_and_column(
+    joint: Joint,
+    a: JointAnatomy,
+    members: dict[str, Member],
+    st: CheckSettings,
+    extra: tuple[tuple[str, object], ...] = (),
+) -> tuple[MemberInput, MemberInput] | str:
+    """Beam and column engine inputs, or why they cannot be made (axis, missing data)."""
+    if joint.axis != "major":
+        return "minor-axis joint (beam on the column web): not handled yet"
+    required = (
+        ("beam section", a.beam_section),
+        ("column section", a.column_section),
+        ("beam grade", a.beam_grade),
+        ("column grade", a.column_grade),
+        *extra,
+    )
+    missing = [n for n, v in required if v is None]
+    if missing:
+        return "not read from the model: " + ", ".join(missing)
+    try:
+        beam = _member(
+            members[joint.beam], a.beam_section, a.beam_grade, st.strength_basis, span=True
+        )
+        col = _member(
+            members[joint.column], a.column_section, a.column_grade, st.strength_basis, span=False
+        )
+    except ValueError as exc:
+        return f"steel strength not available: {exc}"
+    return beam, col
+
+
 def end_plate_input(
     joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
 ) -> EndPlateJointInput | str:
@@ -87,22 +119,17 @@ def end_plate_input(
     st = settings or CheckSettings()
     if joint.axis != "major":
         return "minor-axis joint (beam on the column web): not handled yet"
-    if a.archetype not in ("extended_end_plate", "flush_end_plate"):
-        return f"archetype {a.archetype}: only bolted end plates are checked yet"
-    missing = [
-        n
-        for n, v in (
-            ("beam section", a.beam_section),
-            ("column section", a.column_section),
-            ("beam grade", a.beam_grade),
-            ("column grade", a.column_grade),
-            ("plate", a.plate),
-            ("bolts", a.bolts),
+    if a.archetype == "fin_plate":
+        return (
+            "fin plate, nominally pinned: no moment resistance to check; the fin plate "
+            "shear check is not implemented yet"
         )
-        if v is None
-    ]
-    if missing:
-        return "not read from the model: " + ", ".join(missing)
+    if a.archetype not in ("extended_end_plate", "flush_end_plate"):
+        return f"archetype {a.archetype}: only bolted end plates and welded joints are checked"
+    members_in = _beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)))
+    if isinstance(members_in, str):
+        return members_in
+    beam, col = members_in
     b, p = a.bolts, a.plate
     if b.d is None or b.bolt_class is None or b.d0 is None or b.gauge is None:
         return "bolt diameter, class, hole or gauge not read"
@@ -112,12 +139,6 @@ def end_plate_input(
         return "a bolt row without exactly two bolts: outside the method's scope here"
     plate_grade = p.grade or a.beam_grade
     try:
-        beam = _member(
-            members[joint.beam], a.beam_section, a.beam_grade, st.strength_basis, span=True
-        )
-        col = _member(
-            members[joint.column], a.column_section, a.column_grade, st.strength_basis, span=False
-        )
         fy_p, fu_p = steel_strengths(plate_grade, p.tp, basis=st.strength_basis)
     except ValueError as exc:
         return f"steel strength not available: {exc}"
@@ -166,29 +187,10 @@ def welded_input(
 ) -> WeldedJointInput | str:
     """The engine input for a beam welded to a column flange, or the reason it cannot be."""
     st = settings or CheckSettings()
-    if joint.axis != "major":
-        return "minor-axis joint (beam on the column web): not handled yet"
-    missing = [
-        n
-        for n, v in (
-            ("beam section", a.beam_section),
-            ("column section", a.column_section),
-            ("beam grade", a.beam_grade),
-            ("column grade", a.column_grade),
-        )
-        if v is None
-    ]
-    if missing:
-        return "not read from the model: " + ", ".join(missing)
-    try:
-        beam = _member(
-            members[joint.beam], a.beam_section, a.beam_grade, st.strength_basis, span=True
-        )
-        col = _member(
-            members[joint.column], a.column_section, a.column_grade, st.strength_basis, span=False
-        )
-    except ValueError as exc:
-        return f"steel strength not available: {exc}"
+    members_in = _beam_and_column(joint, a, members, st)
+    if isinstance(members_in, str):
+        return members_in
+    beam, col = members_in
     sec = a.beam_section
     a_f = _throat(sec.tf, beam.grade, beam.fy, beam.fu, st)
     a_w = _throat(sec.tw, beam.grade, beam.fy, beam.fu, st)
