@@ -36,5 +36,35 @@ class Parameters:
         """The values, for reports."""
         return {k: getattr(self, k) for k in self.__slots__}
 
+    @classmethod
+    def from_toml(cls, path) -> Parameters:
+        """Parameters from a small TOML file (any subset of the fields; others recommended).
+
+        Example file::
+
+            # UK National Annex partial factors
+            gamma_M0 = 1.0
+            gamma_M2 = 1.25
+
+        Raises:
+            ValueError: unknown keys, or values that are not positive numbers (the message names
+                the file and the key).
+        """
+        import tomllib
+        from pathlib import Path
+
+        data = tomllib.loads(Path(path).read_text("utf-8"))
+        known = set(cls.__slots__)
+        unknown = sorted(set(data) - known)
+        if unknown:
+            raise ValueError(
+                f"{path}: unknown parameter(s) {', '.join(unknown)}; "
+                f"expected some of {', '.join(sorted(known))}"
+            )
+        for k, v in data.items():
+            if not isinstance(v, (int, float)) or isinstance(v, bool) or v <= 0:
+                raise ValueError(f"{path}: {k} = {v!r} is not a positive number")
+        return cls(**{k: float(v) for k, v in data.items()})
+
 
 RECOMMENDED = Parameters()

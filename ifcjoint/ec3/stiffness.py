@@ -151,3 +151,23 @@ def classify_strength(
     if M_j_Rd_ <= 0.25 * limit:
         return "nominally pinned", limit
     return "partial-strength", limit
+
+
+def m_phi_curve(
+    M_j_Rd_: float,
+    S_j_ini_: float,
+    joint: str = "bolted_end_plate",  # noqa: N803
+    n: int = 24,
+) -> list[tuple[float, float]]:
+    """Design moment-rotation curve as (phi in rad, M in N mm) points.
+
+    EN 1993-1-8:2005, 6.3.1(4) and 6.1.2, Figure 6.1(c)/6.3.1(6): linear with Sj,ini up to
+    2/3 Mj,Rd, then Sj = Sj,ini / mu with mu = (1.5 Mj / Mj,Rd)^psi up to Mj,Rd; the curve ends
+    at Mj,Rd (the rotation capacity phi_Cd is not evaluated here).
+    """
+    out = [(0.0, 0.0)]
+    for k in range(1, n + 1):
+        m = M_j_Rd_ * k / n
+        mu = stiffness_ratio_mu(m, M_j_Rd_, joint)
+        out.append((m * mu / S_j_ini_, m))
+    return out

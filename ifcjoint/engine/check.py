@@ -220,9 +220,21 @@ class CheckResult:
                 ],
             },
             "classification": self.classification,
+            "m_phi": {
+                "hogging": [[round(f, 6), round(m / 1e6, 2)] for f, m in self.m_phi("hogging")],
+                "sagging": [[round(f, 6), round(m / 1e6, 2)] for f, m in self.m_phi("sagging")],
+            },
             "notes": list(self.notes),
             "inputs": self.inputs,
         }
+
+    def m_phi(self, sign: str = "hogging") -> list[tuple[float, float]]:
+        """Design M-phi curve (rad, N mm) for one sign, EN 1993-1-8 6.3.1(4)."""
+        side = self.hogging if sign == "hogging" else self.sagging
+        if side is None or side.S_j_ini <= 0:
+            return []
+        kind = "welded" if self.welded_input is not None else "bolted_end_plate"
+        return stf.m_phi_curve(side.M_j_Rd, side.S_j_ini, kind)
 
 
 def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckResult:
@@ -230,8 +242,12 @@ def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckRes
 
 
 def _inputs_dict(inp) -> dict:
+    """The input as the output contract names it (mm, MPa)."""
     d = asdict(inp)
     d["params"] = inp.params.as_dict()
+    d["beam"]["span_mm"] = d["beam"].pop("span")
+    w = d["welds"]
+    w["flange_throat"] = max(w["top_flange_throat"], w["bottom_flange_throat"])
     return d
 
 

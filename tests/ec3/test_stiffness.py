@@ -67,3 +67,30 @@ def test_web_panel_demand_and_beta():
     # memory, 8446 mm2)
     assert not axial_force_significant(149e3, 8446, 355)
     assert axial_force_significant(151e3, 8446, 355)
+
+
+def test_m_phi_curve_shape():
+    # EN 1993-1-8 6.3.1(4): slope Sj,ini up to 2/3 Mj,Rd, softer after, ends at Mj,Rd.
+    curve = s.m_phi_curve(300e6, 60e9, n=30)
+    assert curve[0] == (0.0, 0.0) and curve[-1][1] == pytest.approx(300e6)
+    first = curve[10]  # M = 100 kNm < 2/3 Mj,Rd
+    assert first[1] / first[0] == pytest.approx(60e9)
+    last = curve[-1]
+    assert last[0] == pytest.approx(300e6 * 1.5**2.7 / 60e9)
+    phis = [p for p, _ in curve]
+    assert phis == sorted(phis)
+
+
+def test_parameters_from_a_file(tmp_path):
+    from ifcjoint.ec3.params import Parameters
+
+    f = tmp_path / "na.toml"
+    f.write_text("gamma_M2 = 1.3\nkb_braced = 8\n")
+    p = Parameters.from_toml(f)
+    assert p.gamma_M2 == 1.3 and p.gamma_M0 == 1.0  # the rest stays recommended
+    f.write_text("gamma_M3 = 1.1\n")
+    with pytest.raises(ValueError, match="unknown parameter"):
+        Parameters.from_toml(f)
+    f.write_text("gamma_M0 = -1\n")
+    with pytest.raises(ValueError, match="not a positive number"):
+        Parameters.from_toml(f)

@@ -57,6 +57,8 @@ def test_published_example_moment_and_shear():
                                                         "6.2.6.4", "6.2.6.5", "6.2.6.7",
                                                         "6.2.6.8"}
     assert d["inputs"]["bolts"]["rows_from_beam_top"][0] == -40.0
+    assert "span_mm" in d["inputs"]["beam"] and d["inputs"]["welds"]["flange_throat"] > 0
+    assert d["m_phi"]["hogging"][-1][1] == pytest.approx(416, rel=0.005)  # curve ends at Mj,Rd
 
 
 def test_plate_extended_only_at_the_top_is_weaker_in_sagging():
