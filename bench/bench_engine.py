@@ -24,7 +24,14 @@ def main() -> None:
     ap = argparse.ArgumentParser()
     ap.add_argument("--n", type=int, default=3000)
     args = ap.parse_args()
+    from ifcjoint.engine.sections import ISection
+
     base = p398(beta=1.0)
+    # as from a scan: the plastic moduli come with the sections
+    for key in ("beam", "column"):
+        m = getattr(base, key)
+        wpl = ISection(h=m.h, b=m.b, tw=m.tw, tf=m.tf, r=m.r).Wpl_y
+        base = replace(base, **{key: replace(m, Wpl_y=wpl)})
     inputs = [replace(base, plate=replace(base.plate, tp=15 + (i % 200) * 0.1))
               for i in range(args.n)]
     check_end_plate_joint(inputs[0])  # warm-up

@@ -399,20 +399,24 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     comps: list[ComponentResult] = []
     alone: list[dict[str, float]] = []
     kinds = []
+    # The column side of a row alone is the same for every row of an unstiffened column.
+    cp, nc = el.column_flange_row_alone(m_c, e_c)
+    ts = t_stub(
+        l_eff_1=min(cp, nc),
+        l_eff_2=nc,
+        tf=col.tf,
+        fy=col.fy,
+        m=m_c,
+        e_min=e_c,
+        sum_F_t_Rd=ft_row,
+        e_w=ew,
+        params=p,
+    )
+    om_alone = cmp.omega(inp.beta, min(cp, nc), col.tw, a_vc)
+    fwc_alone = cmp.F_t_wc_Rd(b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om_alone,
+                              params=p)
     for i, z in enumerate(tension, start=1):
         d: dict[str, float] = {}
-        cp, nc = el.column_flange_row_alone(m_c, e_c)
-        ts = t_stub(
-            l_eff_1=min(cp, nc),
-            l_eff_2=nc,
-            tf=col.tf,
-            fy=col.fy,
-            m=m_c,
-            e_min=e_c,
-            sum_F_t_Rd=ft_row,
-            e_w=ew,
-            params=p,
-        )
         d["column flange in bending"] = ts.F_T_Rd
         comps.append(
             ComponentResult(
@@ -424,8 +428,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
                 inputs={"l_eff_cp": cp, "l_eff_nc": nc, "m": m_c, "e": e_c},
             )
         )
-        om = cmp.omega(inp.beta, min(cp, nc), col.tw, a_vc)
-        fwc = cmp.F_t_wc_Rd(b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om, params=p)
+        om, fwc = om_alone, fwc_alone
         d["column web in tension"] = fwc
         comps.append(
             ComponentResult(
