@@ -83,3 +83,48 @@ def F_v_Rd(bolt_class: str, fub: float, As: float, params: Parameters = RECOMMEN
         135.6
     """
     return ALPHA_V[bolt_class] * fub * As / params.gamma_M2
+
+
+def alpha_b(
+    *, d0: float, fub: float, fu: float, e1: float | None = None, p1: float | None = None
+) -> float:
+    """Bearing factor alpha_b = min(alpha_d, fub / fu, 1.0) in the direction of load transfer.
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4: alpha_d = e1 / (3 d0) for end bolts,
+    p1 / (3 d0) - 1/4 for inner bolts (the smaller of the two when both are given).
+    """
+    ad = []
+    if e1 is not None:
+        ad.append(e1 / (3 * d0))
+    if p1 is not None:
+        ad.append(p1 / (3 * d0) - 0.25)
+    return min([*ad, fub / fu, 1.0])
+
+
+def k1_bearing(*, d0: float, e2: float | None = None, p2: float | None = None) -> float:
+    """Factor k1 perpendicular to the direction of load transfer.
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4: edge bolts min(2.8 e2/d0 - 1.7, 1.4 p2/d0 - 1.7, 2.5),
+    inner bolts min(1.4 p2/d0 - 1.7, 2.5).
+    """
+    ks = [2.5]
+    if e2 is not None:
+        ks.append(2.8 * e2 / d0 - 1.7)
+    if p2 is not None:
+        ks.append(1.4 * p2 / d0 - 1.7)
+    return min(ks)
+
+
+def F_b_Rd(
+    k1: float,
+    alpha_b_: float,
+    fu: float,
+    d: float,
+    t: float,  # noqa: N802
+    params: Parameters = RECOMMENDED,
+) -> float:
+    """Bearing resistance of one bolt Fb,Rd = k1 alpha_b fu d t / gamma_M2 (N).
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4.
+    """
+    return k1 * alpha_b_ * fu * d * t / params.gamma_M2

@@ -18,7 +18,15 @@ from dataclasses import asdict, dataclass, field
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import effective_lengths as el
 from ifcjoint.ec3 import stiffness as stf
-from ifcjoint.ec3.bolts import ALPHA_V, B_p_Rd, F_t_Rd, F_v_Rd
+from ifcjoint.ec3.bolts import (
+    ALPHA_V,
+    B_p_Rd,
+    F_b_Rd,
+    F_t_Rd,
+    F_v_Rd,
+    alpha_b,
+    k1_bearing,
+)
 from ifcjoint.ec3.moment_resistance import M_j_Rd, RowResult, distribute_tension
 from ifcjoint.ec3.params import RECOMMENDED, Parameters
 from ifcjoint.ec3.tstub import t_stub
@@ -413,8 +421,9 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
         params=p,
     )
     om_alone = cmp.omega(inp.beta, min(cp, nc), col.tw, a_vc)
-    fwc_alone = cmp.F_t_wc_Rd(b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om_alone,
-                              params=p)
+    fwc_alone = cmp.F_t_wc_Rd(
+        b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om_alone, params=p
+    )
     for i, z in enumerate(tension, start=1):
         d: dict[str, float] = {}
         d["column flange in bending"] = ts.F_T_Rd
@@ -684,10 +693,29 @@ def _shear(inp: EndPlateJointInput, hog: SideResult) -> tuple[float, str]:
     """
     b, p = inp.bolts, inp.params
     fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
-    # bearing on the thinner ply, k1 = 2.5, alpha_b = 1 (edge and end distances ample)
-    t_min = min(inp.plate.tp, inp.column.tf)
-    fu_min = min(inp.plate.fu, inp.column.fu)
-    fb = 2.5 * 1.0 * fu_min * b.d * t_min / p.gamma_M2
+    # Bearing (Table 3.4) on the end plate and on the column flange, load downwards: end
+    # distances to the plate's edges, the smallest pitch, side edge and gauge.
+    rows = sorted(b.rows_from_beam_top)
+    pl, col = inp.plate, inp.column
+    p1 = min((y - x for x, y in zip(rows, rows[1:], strict=False)), default=None)
+    e1 = min(rows[0] + pl.projection_top, pl.projection_bottom + inp.beam.h - rows[-1])
+    fb_plate = F_b_Rd(
+        k1_bearing(d0=b.d0, e2=(pl.bp - b.gauge) / 2, p2=b.gauge),
+        alpha_b(d0=b.d0, fub=b.fub, fu=pl.fu, e1=e1, p1=p1),
+        pl.fu,
+        b.d,
+        pl.tp,
+        p,
+    )
+    fb_col = F_b_Rd(
+        k1_bearing(d0=b.d0, e2=(col.b - b.gauge) / 2, p2=b.gauge),
+        alpha_b(d0=b.d0, fub=b.fub, fu=col.fu, p1=p1),
+        col.fu,
+        b.d,
+        col.tf,
+        p,
+    )
+    fb = min(fb_plate, fb_col)
     per_bolt = min(fv, fb)
     n_tension = len(hog.rows)
     n_rows = len(b.rows_from_beam_top)
@@ -695,7 +723,8 @@ def _shear(inp: EndPlateJointInput, hog: SideResult) -> tuple[float, str]:
     note = (
         f"Vj,Rd: {2 * (n_rows - n_tension)} bolt(s) in shear rows at "
         f"{per_bolt / 1e3:.1f} kN, {2 * n_tension} in tension rows at (1 - 1/1.4) of that "
-        "(Table 3.4 interaction, common practice); bearing with k1 = 2.5, alpha_b = 1"
+        "(Table 3.4 interaction, common practice); bearing (Table 3.4) on the plate "
+        f"{fb_plate / 1e3:.0f} kN and on the column flange {fb_col / 1e3:.0f} kN per bolt"
     )
     return v, note
 

@@ -94,3 +94,18 @@ def test_parameters_from_a_file(tmp_path):
     f.write_text("gamma_M0 = -1\n")
     with pytest.raises(ValueError, match="not a positive number"):
         Parameters.from_toml(f)
+
+
+def test_bearing_by_hand():
+    """EN 1993-1-8 Table 3.4 by hand: M24 8.8 (d0 26) in a 25 mm S275 plate (fu 410),
+    e1 = 50, e2 = 75, p2 = 100: alpha_b = min(50/78, 800/410, 1) = 0.641; k1 = min(2.8*75/26
+    - 1.7, 1.4*100/26 - 1.7, 2.5) = min(6.38, 3.68, 2.5) = 2.5; Fb,Rd = 2.5 * 0.641 * 410 * 24
+    * 25 / 1.25 = 315.4 kN."""
+    from ifcjoint.ec3.bolts import F_b_Rd, alpha_b, k1_bearing
+
+    ab = alpha_b(d0=26, fub=800, fu=410, e1=50)
+    k1 = k1_bearing(d0=26, e2=75, p2=100)
+    assert ab == pytest.approx(50 / 78) and k1 == 2.5
+    assert F_b_Rd(k1, ab, 410, 24, 25) / 1e3 == pytest.approx(315.4, rel=0.002)
+    # inner bolt, p1 = 90: alpha_d = 90/78 - 0.25 = 0.904
+    assert alpha_b(d0=26, fub=800, fu=410, p1=90) == pytest.approx(90 / 78 - 0.25)
