@@ -76,6 +76,7 @@ class Options:
     grid_placed_columns: bool = False  # columns placed by IfcGridPlacement (IFC4 and later)
     bolt_data_in_pset: bool = False  # bolt size and class only in a property set
     haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch: unsupported
+    plates_as_members: bool = False  # plates exported as flat IfcMember/IfcBeam bars
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -454,6 +455,18 @@ class Frame:
         """Rectangular plate: centred on m_world's origin, thickness along its local Z."""
         w = self.w
         f = w.f
+        if self.opt.plates_as_members:
+            # a flat bar: rectangle t x width extruded along the plate's height, no holes
+            cls = "IfcMember" if self.opt.schema != "IFC2X3" else "IfcBeam"
+            el = w.root(cls, name, f"plate/{key}", ObjectType=f"PL{t:g}*{width:g}")
+            prof = f.createIfcRectangleProfileDef(
+                "AREA", f"PL{t:g}*{width:g}",
+                f.createIfcAxis2Placement2D(w.pt2((0, 0)), None), w.L(t), w.L(width))
+            pos = frame_matrix((0, -height / 2, 0), (0, 0, 1.0), (0, 1.0, 0))
+            el.Representation = w.shape([w.extrusion(prof, height, pos)], "SweptSolid")
+            self.place_part(el, m_world, parent)
+            self.assign_material(el, "S355J2")
+            return el
         el = w.root("IfcPlate", name, f"plate/{key}")
         pts = [w.pt2(p) for p in ((-width / 2, -height / 2), (width / 2, -height / 2),
                                    (width / 2, height / 2), (-width / 2, height / 2))]

@@ -346,6 +346,7 @@ class _Reader:
         self.storey = self._storey_map()
         self.lookups = _Lookups(f)
         self.pending_mesh: list[tuple[object, str, dict]] = []  # (element, role, ctx)
+        self.plate_members = 0  # beams/members read as plates (flat and short)
 
     # storeys
     def _storey_map(self) -> dict[int, str]:
@@ -434,6 +435,11 @@ class _Reader:
             # Not extruded along its length (a sideways extrusion): read the mesh instead.
             self.pending_mesh.append((el, "member", {}))
             return
+        if self._flat_and_short(size * self.s, prof):
+            # A plate exported as a beam or member (e.g. a "PL20*250" flat): read as a plate.
+            self.plate_members += 1
+            self._plate_from_boxes(el, boxes)
+            return
         cx, cy = (main.lo[0] + main.hi[0]) / 2, (main.lo[1] + main.hi[1]) / 2
         a = main.origin + main.axes @ np.array([cx, cy, main.lo[2]])
         b = main.origin + main.axes @ np.array([cx, cy, main.hi[2]])
@@ -455,6 +461,18 @@ class _Reader:
             source="extrusion",
             r=prof.r if prof else None,
         )
+
+    @staticmethod
+    def _flat_and_short(size_mm: np.ndarray, prof) -> bool:
+        """A solid flat no thicker than 60 mm, at least 4 x wider than thick and at most 2 m
+        long: a plate, whatever its IFC class (common practice, no source)."""
+        if prof is None or prof.ifc_type not in ("IfcRectangleProfileDef",
+                                                 "IfcArbitraryClosedProfileDef"):
+            return False
+        if prof.fill is not None and prof.fill < 0.9:
+            return False
+        t, w, ln = sorted(float(x) for x in size_mm)
+        return t <= 60.0 and w >= 4.0 * t and ln <= 2000.0
 
     def _add_member(
         self,
@@ -556,6 +574,9 @@ class _Reader:
         if boxes is None:
             self.pending_mesh.append((el, "plate", {}))
             return
+        self._plate_from_boxes(el, boxes)
+
+    def _plate_from_boxes(self, el, boxes) -> None:
         main = max(boxes, key=lambda b: b.volume)
         size = main.size * self.s
         order = np.argsort(size)  # smallest = thickness
@@ -935,6 +956,10 @@ def _read(f, path, sha, scale, unit_source, rules, progress) -> ModelContents:
         counts["fasteners"] += 1
         counts[f"fasteners_{x.kind}"] += 1
     notes = list(r.notes)
+    if r.plate_members:
+        counts["plates_from_members"] = r.plate_members
+        notes.append(f"{r.plate_members} beam/member element(s) read as plates (flat, at most "
+                     "60 mm thick and 2 m long)")
     for cls, n in sorted(ignored.items()):
         notes.append(f"{n} {cls} element(s) not recognised as plates or fasteners (ignored)")
     return ModelContents(

@@ -47,6 +47,8 @@ VARIANTS = [
     dict(grid_placed_columns=True, schema="IFC4X3", split_columns=True),
     dict(beams_to_axis=True),
     dict(haunch=True, relations="assembly"),
+    dict(plates_as_members=True, relations="none"),
+    dict(plates_as_members=True, schema="IFC2X3", profiles="brep"),
     dict(split_columns=True),
     dict(schema="IFC2X3", profiles="brep", rotation_deg=-61.0, relations="none", unit="m"),
     dict(schema="IFC4X3", mapped=True, split_columns=True, beams_to_axis=True,
