@@ -77,6 +77,7 @@ class Options:
     bolt_data_in_pset: bool = False  # bolt size and class only in a property set
     haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch: unsupported
     plates_as_members: bool = False  # plates exported as flat IfcMember/IfcBeam bars
+    bolt_groups: bool = False  # all bolts of a joint in one IfcMechanicalFastener
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -539,6 +540,33 @@ class Frame:
                     rel.GlobalId = gid(f"rdp/{el.GlobalId}")
         return el
 
+    def bolts_at(self, mats, d: float, length: float, parent) -> list:
+        """Bolts at the given head frames: one element each, or one group element."""
+        if not self.opt.bolt_groups or len(mats) < 2:
+            return [self.bolt(k, d, length, m, parent) for k, m in mats]
+        w, f = self.w, self.w.f
+        key0, m0 = mats[0]
+        el = w.root("IfcMechanicalFastener", f"BOLT GROUP M{d:g}x{length:g} 8.8 ({len(mats)})",
+                    f"boltgroup/{key0}")
+        if self.opt.schema != "IFC2X3":
+            el.PredefinedType = "BOLT"
+        el.NominalDiameter = w.L(d)
+        el.NominalLength = w.L(length)
+        items = []
+        inv0 = np.linalg.inv(m0)
+        for _, m in mats:
+            local = inv0 @ m
+            shank = f.createIfcCircleProfileDef(
+                "AREA", None, f.createIfcAxis2Placement2D(w.pt2((0, 0)), None), w.L(d / 2))
+            head = f.createIfcCircleProfileDef(
+                "AREA", None, f.createIfcAxis2Placement2D(w.pt2((0, 0)), None), w.L(0.9 * d))
+            hm = local.copy()
+            hm[:3, 3] = local[:3, 3] - local[:3, 2] * 0.65 * d
+            items += [w.extrusion(shank, length, local), w.extrusion(head, 0.65 * d, hm)]
+        el.Representation = w.shape(items, "SweptSolid")
+        self.place_part(el, m0, parent)
+        return [el]
+
     def weld(self, key: str, length: float, a: float, m_world: np.ndarray, parent):
         """Fillet weld as a small triangular prism along m_world's local Z."""
         w, f = self.w, self.w.f
@@ -628,16 +656,16 @@ class Frame:
                 parts += [web, fl]
                 plates += [web.GlobalId, fl.GlobalId]
             if spec.with_bolts:
+                mats = []
                 for row in spec.rows:
                     for o in offs:
                         head = end_pt + lat * o
                         head = np.array([head[0], head[1], top_z - row])
                         # head on the beam side of the plate, shank towards the column
-                        mb = frame_matrix(head, lat, t)
-                        bl = self.bolt(f"{key}/{row}/{o}", spec.bolt_d, spec.bolt_len, mb,
-                                       (beam, bworld))
-                        parts.append(bl)
-                        bolts.append(bl.GlobalId)
+                        mats.append((f"{key}/{row}/{o}", frame_matrix(head, lat, t)))
+                for bl in self.bolts_at(mats, spec.bolt_d, spec.bolt_len, (beam, bworld)):
+                    parts.append(bl)
+                    bolts.append(bl.GlobalId)
         elif opt.detail_parts and spec.kind == "fin_plate":
             # Fin plate welded to the column web, beam web bolted to it; beam end stops 10 mm
             # short of the flange tips.
@@ -655,12 +683,12 @@ class Frame:
                             holes=holes)
             col_plates.append(pl)
             plates.append(pl.GlobalId)
+            mats = []
             for row in spec.rows:
                 p = end_pt - t * 40.0 + lat * (tw / 2 + spec.tp + 5)
                 head = np.array([p[0], p[1], top_z - row])
-                mb = frame_matrix(head, t, -lat)
-                bl = self.bolt(f"{key}/fin/{row}", spec.bolt_d, spec.bolt_len, mb,
-                               (beam, bworld))
+                mats.append((f"{key}/fin/{row}", frame_matrix(head, t, -lat)))
+            for bl in self.bolts_at(mats, spec.bolt_d, spec.bolt_len, (beam, bworld)):
                 parts.append(bl)
                 bolts.append(bl.GlobalId)
         elif opt.detail_parts and spec.kind == "welded" and spec.welds:

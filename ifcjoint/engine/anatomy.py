@@ -552,17 +552,20 @@ def _read_bolts(
     # Bolt positions where their axes cross the plate (or their centres).
     pts = []
     for f in fs:
-        c = np.array(f.center)
-        if plate is not None:
-            nrm = np.array(plate.normal)
-            ax = np.array(f.axis)
-            den = ax.dot(nrm)
-            if abs(den) > 0.5:
-                c = c + ax * ((np.array(plate.center) - c).dot(nrm) / den)
-        z = float((fr.beam_top - c).dot(fr.n))
-        y = float((c - fr.face).dot(fr.lat))
-        x = float((c - fr.face).dot(fr.t))
-        pts.append((z, y, f.guid, x))
+        # a bolt group exported as one element counts once per shank
+        centres = f.shanks or (f.center,)
+        for k, cc in enumerate(centres, start=1):
+            c = np.array(cc)
+            if plate is not None:
+                nrm = np.array(plate.normal)
+                ax = np.array(f.axis)
+                den = ax.dot(nrm)
+                if abs(den) > 0.5:
+                    c = c + ax * ((np.array(plate.center) - c).dot(nrm) / den)
+            z = float((fr.beam_top - c).dot(fr.n))
+            y = float((c - fr.face).dot(fr.lat))
+            x = float((c - fr.face).dot(fr.t))
+            pts.append((z, y, f"{f.guid}[{k}]" if f.shanks else f.guid, x))
     pts.sort()
     rows: list[list[tuple[float, float, str, float]]] = []
     for z, y, g, x in pts:

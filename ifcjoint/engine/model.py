@@ -133,6 +133,9 @@ class Fastener:
     nominal_diameter: float | None = None  # from IfcMechanicalFastener or properties, mm
     nominal_length: float | None = None
     texts: tuple[str, ...] = ()
+    #: one element holding several bolts (a bolt group exported as one fastener): the centre
+    #: of each shank; empty for a single bolt
+    shanks: tuple[Vec3, ...] = ()
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

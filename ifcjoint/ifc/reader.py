@@ -465,9 +465,12 @@ class _Reader:
     @staticmethod
     def _flat_and_short(size_mm: np.ndarray, prof) -> bool:
         """A solid flat no thicker than 60 mm, at least 4 x wider than thick and at most 2 m
-        long: a plate, whatever its IFC class (common practice, no source)."""
-        if prof is None or prof.ifc_type not in ("IfcRectangleProfileDef",
-                                                 "IfcArbitraryClosedProfileDef"):
+        long: a plate, whatever its IFC class (common practice, no source).
+        """
+        if prof is None or prof.ifc_type not in (
+            "IfcRectangleProfileDef",
+            "IfcArbitraryClosedProfileDef",
+        ):
             return False
         if prof.fill is not None and prof.fill < 0.9:
             return False
@@ -695,14 +698,40 @@ class _Reader:
             return
         main = max(boxes, key=lambda b: b.size[2])
         axis = _unit(main.axes[:, 2])
-        base = main.center()
+        dia = float(min(main.size[0], main.size[1]))
+        # Several parallel shanks far apart: a bolt group exported as one element.
+        shanks = [
+            b
+            for b in boxes
+            if b.size[2] > 0.8 * main.size[2] and abs(float(_unit(b.axes[:, 2]) @ axis)) > 0.99
+        ]
+        centres = [b.center() for b in shanks]
+        lateral = [c - axis * float((c - centres[0]) @ axis) for c in centres]
+        spread = max((float(np.linalg.norm(p - lateral[0])) for p in lateral), default=0.0)
+        group = len(shanks) >= 2 and spread > 2 * dia
+        base = np.mean(centres, axis=0) if group else main.center()
         pts = np.vstack([b.corners() for b in boxes])
         t = (pts - base) @ axis
         lo, hi = float(t.min()), float(t.max())
+        if group:
+            lo = min(
+                float((c - base) @ axis) - b.size[2] / 2
+                for c, b in zip(centres, shanks, strict=True)
+            )
+            hi = max(
+                float((c - base) @ axis) + b.size[2] / 2
+                for c, b in zip(centres, shanks, strict=True)
+            )
         center = base + axis * (lo + hi) / 2
-        dia = float(min(main.size[0], main.size[1]))
         self._add_fastener(
-            el, kind, center * self.s, axis, (hi - lo) * self.s, dia * self.s, "extrusion"
+            el,
+            kind,
+            center * self.s,
+            axis,
+            (hi - lo) * self.s,
+            dia * self.s,
+            "extrusion",
+            shanks=tuple(tuple(float(x) for x in c * self.s) for c in centres) if group else (),
         )
 
     def _fastener_from_placement(self, el, kind: str) -> None:
@@ -722,7 +751,7 @@ class _Reader:
             el, kind, center * self.s, axis, length * self.s, dia * self.s, "placement"
         )
 
-    def _add_fastener(self, el, kind, center, axis, length, dia, source) -> None:
+    def _add_fastener(self, el, kind, center, axis, length, dia, source, shanks=()) -> None:
         nd = nl = None
         if el.is_a("IfcMechanicalFastener"):
             nd = att(el, "NominalDiameter")
@@ -744,6 +773,7 @@ class _Reader:
                 nominal_diameter=float(nd) * self.s if nd else None,
                 nominal_length=float(nl) * self.s if nl else None,
                 texts=self.lookups.all_texts(el, mat),
+                shanks=shanks,
             )
         )
 
@@ -958,8 +988,10 @@ def _read(f, path, sha, scale, unit_source, rules, progress) -> ModelContents:
     notes = list(r.notes)
     if r.plate_members:
         counts["plates_from_members"] = r.plate_members
-        notes.append(f"{r.plate_members} beam/member element(s) read as plates (flat, at most "
-                     "60 mm thick and 2 m long)")
+        notes.append(
+            f"{r.plate_members} beam/member element(s) read as plates (flat, at most "
+            "60 mm thick and 2 m long)"
+        )
     for cls, n in sorted(ignored.items()):
         notes.append(f"{n} {cls} element(s) not recognised as plates or fasteners (ignored)")
     return ModelContents(

@@ -48,6 +48,8 @@ VARIANTS = [
     dict(beams_to_axis=True),
     dict(haunch=True, relations="assembly"),
     dict(plates_as_members=True, relations="none"),
+    dict(bolt_groups=True, relations="realizing"),
+    dict(bolt_groups=True, schema="IFC2X3", rotation_deg=41.0, relations="none"),
     dict(plates_as_members=True, schema="IFC2X3", profiles="brep"),
     dict(split_columns=True),
     dict(schema="IFC2X3", profiles="brep", rotation_deg=-61.0, relations="none", unit="m"),
