@@ -464,8 +464,10 @@ class _Reader:
 
     @staticmethod
     def _flat_and_short(size_mm: np.ndarray, prof) -> bool:
-        """A solid flat no thicker than 60 mm, at least 4 x wider than thick and at most 2 m
-        long: a plate, whatever its IFC class (common practice, no source).
+        """Whether a member's body is really a plate, whatever its IFC class.
+
+        A solid flat no thicker than 60 mm, at least 4 x wider than thick and at most 2 m long
+        (common practice, no source).
         """
         if prof is None or prof.ifc_type not in (
             "IfcRectangleProfileDef",
