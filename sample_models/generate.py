@@ -78,6 +78,7 @@ class Options:
     haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch: unsupported
     plates_as_members: bool = False  # plates exported as flat IfcMember/IfcBeam bars
     bolt_groups: bool = False  # all bolts of a joint in one IfcMechanicalFastener
+    stiffeners: bool = False  # column web stiffeners at the level-1 beam flanges of line A
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -822,9 +823,33 @@ class Frame:
                                z, key + "/e")
         if opt.demo_details:
             self.extras(cols)
+        if opt.stiffeners:
+            self.add_stiffeners(cols)
         self.pair_partners()
         self.finish_relations()
         self.flush_materials()
+
+    def add_stiffeners(self, cols):
+        """Pairs of transverse web stiffeners at the level-1 beam flanges on grid line A."""
+        h, b, tw, tf, r = SECTIONS[self.col_section]
+        hb, _, _, tfb, _ = SECTIONS["IPE 400"]
+        z_top = self.levels[0]
+        for i in range(self.opt.bays_x + 1):
+            col, p0, _ = cols[(i, 0)]
+            found = []
+            for zc in (z_top - tfb / 2, z_top - hb + tfb / 2):
+                for side in (-1, 1):
+                    c = np.array([p0[0], p0[1] + side * (tw / 2 + (b / 2 - tw / 2) / 2), zc])
+                    m = frame_matrix(c, (1, 0, 0), (0, 0, 1))
+                    st = self.plate(f"stiff/{i}/{zc}/{side}", self.name("ST"), h - 2 * tf,
+                                    b / 2 - tw / 2 - 5, tfb, m, (None, None))
+                    found.append(st.GlobalId)
+            # A plate inside the column serves every joint at that column and level (the
+            # minor-axis beam there too).
+            for j in self.truth.joints:
+                if j["column"] == col.GlobalId and j["level_z"] == z_top:
+                    j["plates"] = sorted(j["plates"] + found)
+                    j["stiffened"] = True
 
     def pair_partners(self):
         """Joints on opposite faces of one column at one level are double-sided partners."""
