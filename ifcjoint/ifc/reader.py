@@ -216,6 +216,7 @@ class _Lookups:
                     for el in rel.RelatedObjects:
                         self.material_of.setdefault(el.id(), m)
         self._text_cache: dict[int, tuple[str, str]] = {}
+        self._texts_cache: dict[int, dict[str, str]] = {}
         # Designation-like single-value properties, read once for every element.
         self.props: dict[int, dict[str, object]] = {}
         for rel in f.by_type("IfcRelDefinesByProperties"):
@@ -234,6 +235,11 @@ class _Lookups:
                     self.props.setdefault(el.id(), {}).update(found)
 
     def texts(self, el) -> dict[str, str]:
+        """Name, ObjectType, Description, Tag, PredefinedType, type name, property values."""
+        key = el.id()
+        hit = self._texts_cache.get(key)
+        if hit is not None:
+            return hit
         out = {}
         for a in ("Name", "ObjectType", "Description", "Tag", "PredefinedType"):
             try:
@@ -248,6 +254,7 @@ class _Lookups:
         props = self.props.get(el.id())
         if props:
             out["Properties"] = " ".join(str(v) for v in props.values())
+        self._texts_cache[key] = out
         return out
 
     def all_texts(self, el, *extra: str) -> tuple[str, ...]:
@@ -315,9 +322,10 @@ def _material_text(mat) -> tuple[str, str]:
     return " | ".join(dict.fromkeys(names)), " | ".join(dict.fromkeys(profiles))
 
 
-def _unit(v: np.ndarray) -> np.ndarray:
-    n = float(np.linalg.norm(v))
-    return v / n if n > 0 else v
+def _unit(v) -> np.ndarray:
+    x, y, z = float(v[0]), float(v[1]), float(v[2])
+    n = math.sqrt(x * x + y * y + z * z)
+    return np.array((x / n, y / n, z / n)) if n > 0 else np.array((x, y, z))
 
 
 def _orient(axis: np.ndarray) -> np.ndarray:
