@@ -127,6 +127,7 @@ class EndPlateJointInput:
     stiffeners: tuple[str, ...] = ()
     supplementary_web_plates: tuple[str, ...] = ()
     washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
+    sigma_com_Ed: float = 0.0  # noqa: N815 - longitudinal compression in the column web, MPa
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -600,7 +601,10 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     beff = cmp.b_eff_c_wc_end_plate(beam.tf, a_c, col.tf, col.s, s_p)
     dwc = col.h - 2 * (col.tf + col.r)
     om_c = cmp.omega(inp.beta, beff, col.tw, a_vc)
-    fcwc = cmp.F_c_wc_Rd(b_eff=beff, t_wc=col.tw, d_wc=dwc, fy_wc=col.fy, omega_=om_c, params=p)
+    kwc = cmp.k_wc(inp.sigma_com_Ed, col.fy)
+    fcwc = cmp.F_c_wc_Rd(
+        b_eff=beff, t_wc=col.tw, d_wc=dwc, fy_wc=col.fy, omega_=om_c, k_wc_=kwc, params=p
+    )
     wpl = beam.Wpl_y or _wpl(beam)
     fcfb = cmp.F_c_fb_Rd(wpl * beam.fy / p.gamma_M0, beam.h, beam.tf)
     compression = {"column web in compression": fcwc, "beam flange and web in compression": fcfb}
@@ -609,7 +613,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
             clause="6.2.6.2",
             name="column web in compression",
             F_Rd=fcwc,
-            inputs={"b_eff_c_wc": beff, "omega": om_c, "s_p": s_p},
+            inputs={"b_eff_c_wc": beff, "omega": om_c, "s_p": s_p, "k_wc": kwc},
         )
     )
     comps.append(
@@ -742,6 +746,7 @@ class WeldedJointInput:
     braced: bool = True
     stiffeners: tuple[str, ...] = ()
     supplementary_web_plates: tuple[str, ...] = ()
+    sigma_com_Ed: float = 0.0  # noqa: N815 - longitudinal compression in the column web, MPa
 
 
 def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
@@ -776,6 +781,7 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
             d_wc=dc,
             fy_wc=col.fy,
             omega_=cmp.omega(inp.beta, beff_c, col.tw, a_vc),
+            k_wc_=cmp.k_wc(inp.sigma_com_Ed, col.fy),
             params=p,
         )
         ftwc = cmp.F_t_wc_Rd(

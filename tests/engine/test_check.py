@@ -165,3 +165,13 @@ def test_welded_joint_invariants():
     assert base.hogging.M_j_Rd == pytest.approx(base.sagging.M_j_Rd)  # same welds both ways
     balanced = check_welded_joint(welded(beta=0.0))
     assert balanced.hogging.S_j_ini > base.hogging.S_j_ini
+
+
+def test_column_compression_reduces_the_web_in_compression():
+    # EN 1993-1-8 6.2.6.2(2): k_wc = 1.7 - sigma / fy above 0.7 fy (0.8 * 265 -> k_wc = 0.9).
+    base = check_end_plate_joint(p398()).hogging
+    loaded = check_end_plate_joint(p398(sigma_com_Ed=0.8 * 265)).hogging
+    f0 = next(c.F_Rd for c in base.components if c.name == "column web in compression")
+    f1 = next(c.F_Rd for c in loaded.components if c.name == "column web in compression")
+    assert f1 == pytest.approx(0.9 * f0)
+    assert loaded.M_j_Rd <= base.M_j_Rd
