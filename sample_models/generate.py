@@ -79,6 +79,7 @@ class Options:
     plates_as_members: bool = False  # plates exported as flat IfcMember/IfcBeam bars
     bolt_groups: bool = False  # all bolts of a joint in one IfcMechanicalFastener
     stiffeners: bool = False  # column web stiffeners at the level-1 beam flanges of line A
+    haunch_member: bool = False  # with haunch: the haunch is a short IPE 200 beam, not plates
     detail_parts: bool = True  # model plates and bolts at all
 
 
@@ -317,6 +318,7 @@ class Frame:
         self.counter = 0
         self.rel_index = 0
         self.upper_cols: dict = {}
+        self.pending_others: list = []
         self.material_members: dict[str, list] = {}
         w = self.w
         f = w.f
@@ -644,7 +646,15 @@ class Frame:
                                 (beam, bworld), holes=holes)
                 parts.append(pl)
                 plates.append(pl.GlobalId)
-            if spec.haunch:
+            if spec.haunch and opt.haunch_member:
+                # the haunch as a short beam of its own under the beam end
+                p0 = end_pt.copy()
+                p1 = end_pt - t * 600.0
+                hinfo = self.beam(key + "/haunch", "IPE 200", (p0[0], p0[1], top_z - h),
+                                  (p1[0], p1[1], top_z - h), name="Haunch " + key)
+                self.pending_others.append((hinfo, "start", "haunch", beam))
+                self.pending_others.append((hinfo, "end", "free_end", None))
+            elif spec.haunch:
                 # haunch web (beside nothing: below the beam) and its bottom flange
                 hw = frame_matrix(np.array([*(end_pt - t * 250.0)[:2], top_z - h - 125.0]), t,
                                   lat)
@@ -825,6 +835,8 @@ class Frame:
             self.extras(cols)
         if opt.stiffeners:
             self.add_stiffeners(cols)
+        for info, end, kind, other in self.pending_others:
+            self.other_end(info, end, kind, other)
         self.pair_partners()
         self.finish_relations()
         self.flush_materials()

@@ -414,6 +414,8 @@ def analyse_joint(
         bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
     archetype, why = _archetype(j, plate_r, bolt_r, bsec, main_role)
     odd = _unsupported_parts(j, fr, plates, col, bsec)
+    if j.haunch_members:
+        odd.append(f"haunch below the beam ({len(j.haunch_members)} member(s))")
     if odd:
         archetype, why = (
             "unsupported",

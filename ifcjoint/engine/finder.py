@@ -253,6 +253,15 @@ def find_joints(
         if progress and k % 2 == 1 and (k // 2) % 200 == 0:
             progress("joints", k // 2 + 1, nb)
 
+    haunches = _haunches(joints_raw, st)
+    for j in [j for j in joints_raw if j["k"] in haunches]:
+        top = haunches[j["k"]]
+        others.append(_other(j["beam"], j["beam_end"], "haunch", top["beam"].guid, ends[j["k"]]))
+    raw_by_k = {j["k"]: j for j in joints_raw}
+    haunch_of: dict[int, list[str]] = defaultdict(list)
+    for k, top in haunches.items():
+        haunch_of[top["k"]].append(raw_by_k[k]["beam"].guid)
+    joints_raw = [j for j in joints_raw if j["k"] not in haunches]
     others.extend(_classify_free_ends(beams, ends, approach, beam_of_end, unresolved, st))
 
     partners = _pair_double_sided(joints_raw, st)
@@ -282,6 +291,7 @@ def find_joints(
                 point=tuple(round(float(x), 3) for x in j["point"]),
                 gap=round(j["gap"], 3),
                 partner=partners.get(j["k"]),
+                haunch_members=tuple(sorted(haunch_of.get(j["k"], ()))),
                 archetype=arche,
                 archetype_reason=why,
                 plates=plates,
@@ -366,6 +376,34 @@ def _classify_free_ends(
             out.append(_other(beam, end_name, kname, beams[other_i].guid, ends[e]))
         else:
             out.append(_other(beam, end_name, "free_end", None, ends[e]))
+    return out
+
+
+def _haunches(joints: list[dict], st: FinderSettings) -> dict[int, dict]:
+    """Short members that meet a column face right under another beam's end: haunches.
+
+    A haunch exported as a beam of its own would otherwise count as a joint. It is one when its
+    beam is at most 2.5 m long (common practice, no source: haunches run a fraction of the
+    span), meets the same column face on the same side, and its top lies within the
+    tolerance of the other beam's underside.
+    """
+    out: dict[int, dict] = {}
+    by_face: dict[tuple[int, str, float], list[dict]] = defaultdict(list)
+    for j in joints:
+        by_face[(j["col_idx"], j["axis"], j["side"])].append(j)
+    for group in by_face.values():
+        for h in group:
+            if h["beam"].length > 2500.0:
+                continue
+            for top in group:
+                if top is h or top["k"] in out:
+                    continue
+                under = top["point"][2] - top["beam"].depth / 2
+                h_top = h["point"][2] + h["beam"].depth / 2
+                lateral = np.linalg.norm(np.subtract(top["point"][:2], h["point"][:2]))
+                if abs(under - h_top) <= st.tolerance + 5 and lateral <= st.tolerance + 50:
+                    out[h["k"]] = top
+                    break
     return out
 
 

@@ -12,6 +12,7 @@ OTHER_END_KINDS = (
     "splice",  # meets the end of a collinear beam
     "column_cap",  # sits on top of a column rather than against its side
     "column_base",  # lands at the foot of a column
+    "haunch",  # a short member under another beam's end at the same column face
     "free_end",  # touches no member within the tolerance (cantilever, wall bearing...)
 )
 
@@ -67,6 +68,7 @@ class Joint:
     bolts: tuple[PartLink, ...] = ()
     findings: tuple[dict, ...] = ()
     storey: str = ""
+    haunch_members: tuple[str, ...] = ()  # short members under the beam end read as a haunch
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

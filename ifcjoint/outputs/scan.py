@@ -47,6 +47,7 @@ def scan_to_dict(result: ScanResult) -> dict:
                 "point_mm": _pt(j.point),
                 "gap_mm": round(j.gap, 3),
                 "partner": j.partner,
+                "haunch_members": list(j.haunch_members),
                 "archetype": j.archetype,
                 "archetype_reason": j.archetype_reason,
                 "plates": [p.guid for p in j.plates],

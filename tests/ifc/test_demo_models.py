@@ -47,6 +47,7 @@ VARIANTS = [
     dict(grid_placed_columns=True, schema="IFC4X3", split_columns=True),
     dict(beams_to_axis=True),
     dict(haunch=True, relations="assembly"),
+    dict(haunch=True, haunch_member=True, relations="none"),
     dict(plates_as_members=True, relations="none"),
     dict(bolt_groups=True, relations="realizing"),
     dict(stiffeners=True, relations="assembly"),
