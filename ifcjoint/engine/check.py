@@ -405,22 +405,41 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     m_p = b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w
     e_p = (pl.bp - b.gauge) / 2
     alpha = inp.alpha or ALPHA_DEFAULT
+
+    def col_tstub(cp: float, nc: float, n_rows: int):
+        """Column flange T-stub of n_rows rows (6.2.6.4, Table 6.2)."""
+        return t_stub(
+            l_eff_1=min(cp, nc),
+            l_eff_2=nc,
+            tf=col.tf,
+            fy=col.fy,
+            m=m_c,
+            e_min=e_c,
+            sum_F_t_Rd=ft_row * n_rows,
+            e_w=ew,
+            params=p,
+        )
+
+    def plate_tstub(cp: float, nc: float, m: float, e_min: float, n_rows: int):
+        """End plate T-stub of n_rows rows (6.2.6.5, Table 6.2)."""
+        return t_stub(
+            l_eff_1=min(cp, nc),
+            l_eff_2=nc,
+            tf=pl.tp,
+            fy=pl.fy,
+            m=m,
+            e_min=e_min,
+            sum_F_t_Rd=ft_row * n_rows,
+            e_w=ew,
+            params=p,
+        )
+
     comps: list[ComponentResult] = []
     alone: list[dict[str, float]] = []
     kinds = []
     # The column side of a row alone is the same for every row of an unstiffened column.
     cp, nc = el.column_flange_row_alone(m_c, e_c)
-    ts = t_stub(
-        l_eff_1=min(cp, nc),
-        l_eff_2=nc,
-        tf=col.tf,
-        fy=col.fy,
-        m=m_c,
-        e_min=e_c,
-        sum_F_t_Rd=ft_row,
-        e_w=ew,
-        params=p,
-    )
+    ts = col_tstub(cp, nc, 1)
     om_alone = cmp.omega(inp.beta, min(cp, nc), col.tw, a_vc)
     fwc_alone = cmp.F_t_wc_Rd(
         b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om_alone, params=p
@@ -454,17 +473,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
             mx = -z - 0.8 * leg_f
             ex = proj + z if proj is not None else -z
             cpp, ncp = el.end_plate_extension_row(mx, ex, e_p, b.gauge, pl.bp)
-            tsp = t_stub(
-                l_eff_1=min(cpp, ncp),
-                l_eff_2=ncp,
-                tf=pl.tp,
-                fy=pl.fy,
-                m=mx,
-                e_min=min(ex, e_p),
-                sum_F_t_Rd=ft_row,
-                e_w=ew,
-                params=p,
-            )
+            tsp = plate_tstub(cpp, ncp, mx, min(ex, e_p), 1)
             d["end plate in bending"] = tsp.F_T_Rd
             comps.append(
                 ComponentResult(
@@ -483,17 +492,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
                 cpp, ncp = el.end_plate_first_row_below_flange(m_p, e_p, alpha)
             else:
                 cpp, ncp = el.end_plate_other_row(m_p, e_p)
-            tsp = t_stub(
-                l_eff_1=min(cpp, ncp),
-                l_eff_2=ncp,
-                tf=pl.tp,
-                fy=pl.fy,
-                m=m_p,
-                e_min=e_p,
-                sum_F_t_Rd=ft_row,
-                e_w=ew,
-                params=p,
-            )
+            tsp = plate_tstub(cpp, ncp, m_p, e_p, 1)
             d["end plate in bending"] = tsp.F_T_Rd
             comps.append(
                 ComponentResult(
@@ -533,17 +532,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
                 share = _pitch_share(tension, i, j, k)
                 a_, b_ = el.column_flange_row_in_group(m_c, e_c, share, end_row=k in (i, j))
                 cp_s, nc_s = cp_s + a_, nc_s + b_
-            ts = t_stub(
-                l_eff_1=min(cp_s, nc_s),
-                l_eff_2=nc_s,
-                tf=col.tf,
-                fy=col.fy,
-                m=m_c,
-                e_min=e_c,
-                sum_F_t_Rd=ft_row * (j - i + 1),
-                e_w=ew,
-                params=p,
-            )
+            ts = col_tstub(cp_s, nc_s, (j - i + 1))
             g["column flange in bending"] = ts.F_T_Rd
             om = cmp.omega(inp.beta, min(cp_s, nc_s), col.tw, a_vc)
             g["column web in tension"] = cmp.F_t_wc_Rd(
@@ -568,17 +557,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
                     else:
                         a_, b_ = el.end_plate_other_row(m_p, e_p, p=share, end_row=k in (i, j))
                     cp_s, nc_s = cp_s + a_, nc_s + b_
-                tsp = t_stub(
-                    l_eff_1=min(cp_s, nc_s),
-                    l_eff_2=nc_s,
-                    tf=pl.tp,
-                    fy=pl.fy,
-                    m=m_p,
-                    e_min=e_p,
-                    sum_F_t_Rd=ft_row * (j - i + 1),
-                    e_w=ew,
-                    params=p,
-                )
+                tsp = plate_tstub(cp_s, nc_s, m_p, e_p, (j - i + 1))
                 g["end plate in bending"] = tsp.F_T_Rd
                 g["beam web in tension"] = cmp.F_t_wb_Rd(
                     b_eff=min(cp_s, nc_s), t_wb=beam.tw, fy_wb=beam.fy, params=p

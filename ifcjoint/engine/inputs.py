@@ -59,6 +59,13 @@ def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> fl
     return float(-(-a // 1))  # up to the whole mm
 
 
+def _assumed_welds(beam: MemberInput, st: CheckSettings) -> WeldsInput:
+    """Beam-to-plate (or -column) welds when the model has none: both flanges and the web."""
+    a_f = _throat(beam.tf, beam.grade, beam.fy, beam.fu, st)
+    a_w = _throat(beam.tw, beam.grade, beam.fy, beam.fu, st)
+    return WeldsInput(top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True)
+
+
 def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
     # A rolled section's strength is read at its thickest element (the flange), as product
     # certificates and the published worked examples do; common practice, no source.
@@ -145,8 +152,6 @@ def end_plate_input(
     fyb, fub = BOLT_CLASSES[b.bolt_class]
     del fyb
     sec = a.beam_section
-    a_f = _throat(sec.tf, beam.grade, beam.fy, beam.fu, st)
-    a_w = _throat(sec.tw, beam.grade, beam.fy, beam.fu, st)
     grip = p.tp + a.column_section.tf
     return EndPlateJointInput(
         column=col,
@@ -171,9 +176,7 @@ def end_plate_input(
             rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
             L_b=grip + 8.0 + 0.5 * (0.65 * b.d + 0.9 * b.d),
         ),
-        welds=WeldsInput(
-            top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True
-        ),
+        welds=_assumed_welds(beam, st),
         params=st.params,
         beta=1.0,
         braced=st.braced,
@@ -191,15 +194,10 @@ def welded_input(
     if isinstance(members_in, str):
         return members_in
     beam, col = members_in
-    sec = a.beam_section
-    a_f = _throat(sec.tf, beam.grade, beam.fy, beam.fu, st)
-    a_w = _throat(sec.tw, beam.grade, beam.fy, beam.fu, st)
     return WeldedJointInput(
         column=col,
         beam=beam,
-        welds=WeldsInput(
-            top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True
-        ),
+        welds=_assumed_welds(beam, st),
         params=st.params,
         beta=1.0,
         braced=st.braced,
