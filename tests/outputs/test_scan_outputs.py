@@ -40,3 +40,11 @@ def test_json_has_tool_model_and_joint_fields(tmp_path):
     p = tmp_path / "sub" / "o.json"
     write_scan_json(r, p)
     assert p.exists() and not list(p.parent.glob(".*tmp"))
+
+
+def test_csv_side_is_a_number_not_a_formula_lookalike(tmp_path):
+    r = _result("Level 1")
+    p = tmp_path / "s.csv"
+    write_scan_csv(r, p)
+    df = pd.read_csv(p)
+    assert list(df["side_sign"]) == [1]
