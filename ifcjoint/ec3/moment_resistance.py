@@ -86,3 +86,29 @@ def M_j_Rd(rows: list[RowResult]) -> float:  # noqa: N802
     EN 1993-1-8:2005, 6.2.7.2(1), Eq. (6.25).
     """
     return sum(r.h_r * r.F_tr_Rd for r in rows)
+
+
+def M_N_interaction(  # noqa: N802
+    M_j_Ed: float,  # noqa: N803
+    M_j_Rd: float,  # noqa: N803
+    N_j_Ed: float,  # noqa: N803
+    N_j_Rd: float,  # noqa: N803
+) -> float:
+    """Utilisation of a joint under bending and axial force, Mj,Ed/Mj,Rd + Nj,Ed/Nj,Rd.
+
+    EN 1993-1-8:2005, 6.2.7.1(3), Eq. (6.24): the joint is verified when the value is at most
+    1.0. Use it when the axial force exceeds 5 % of the beam's Npl,Rd (6.2.7.1(2)).
+
+    Args:
+        M_j_Ed: design moment, N mm (its magnitude is used).
+        M_j_Rd: moment resistance for the same sign, N mm.
+        N_j_Ed: design axial force, N (its magnitude is used).
+        N_j_Rd: axial resistance of the joint for the same sense (tension or compression), N.
+
+    Example:
+        >>> round(M_N_interaction(100e6, 200e6, 50e3, 500e3), 3)
+        0.6
+    """
+    if M_j_Rd <= 0 or N_j_Rd <= 0:
+        return float("inf")
+    return abs(M_j_Ed) / M_j_Rd + abs(N_j_Ed) / N_j_Rd

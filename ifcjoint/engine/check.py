@@ -165,6 +165,8 @@ class SideResult:
     components: tuple[ComponentResult, ...]
     S_j_ini: float  # noqa: N815 - N mm / rad
     governing: str
+    F_t_half_Rd: float = 0.0  # noqa: N815 - tension of this half's rows, no compression limit, N
+    F_c_flange_Rd: float = 0.0  # noqa: N815 - compression resistance at this sign's flange, N
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -181,6 +183,29 @@ class CheckResult:
     notes: tuple[str, ...] = ()
     input: EndPlateJointInput | None = None
     welded_input: WeldedJointInput | None = None
+
+    @property
+    def N_j_Rd_tension(self) -> float | None:  # noqa: N802
+        """Axial tension resistance of the joint with no moment, N (for 6.2.7.1(3)).
+
+        Common practice, no source: every bolt row in tension, each half of the joint by the
+        row distribution of 6.2.7.2 without the compression-side limit (welded: the flange
+        tension components), both halves added.
+        """
+        if self.hogging is None or self.sagging is None:
+            return None
+        return self.hogging.F_t_half_Rd + self.sagging.F_t_half_Rd
+
+    @property
+    def N_j_Rd_compression(self) -> float | None:  # noqa: N802
+        """Axial compression resistance of the joint with no moment, N (for 6.2.7.1(3)).
+
+        Common practice, no source: both beam flanges bearing, each limited by the column web
+        in compression and the beam flange and web in compression at that flange.
+        """
+        if self.hogging is None or self.sagging is None:
+            return None
+        return self.hogging.F_c_flange_Rd + self.sagging.F_c_flange_Rd
 
     @property
     def inputs(self) -> dict:
@@ -200,6 +225,8 @@ class CheckResult:
                 "Mj_Rd_sagging_kNm": round(float(s.M_j_Rd) / 1e6, 2) if s else None,
                 "Vj_Rd_kN": round(float(self.V_j_Rd) / 1e3, 2),
                 "Vwp_Rd_kN": round(float(self.V_wp_Rd) / 1e3, 2),
+                "Nj_Rd_tension_kN": round(float(self.N_j_Rd_tension) / 1e3, 2),
+                "Nj_Rd_compression_kN": round(float(self.N_j_Rd_compression) / 1e3, 2),
                 "Sj_ini_kNm_per_rad": round(float(h.S_j_ini) / 1e6, 1),
                 "Sj_ini_sagging_kNm_per_rad": round(float(s.S_j_ini) / 1e6, 1) if s else None,
                 "z_mm": round(float(h.z), 1),
@@ -615,6 +642,11 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     )
     rr = distribute_tension(h=h_r, alone=alone, groups=groups, compression=compression, F_t_Rd=ft)
     mj = M_j_Rd(rr)
+    # For the axial resistance (6.2.7.1(3)): the same rows with no compression-side limit and
+    # no triangular limit (6.2.7.2(9) concerns the bending distribution only).
+    rr_n = distribute_tension(
+        h=h_r, alone=alone, groups=groups, compression={}, F_t_Rd=float("inf")
+    )
     gov = min(rr, key=lambda r: r.F_tr_Rd).limited_by if rr else ""
     # stiffness (6.3): per row k3, k4, k5, k10; k1, k2 for the compression side
     lb = b.L_b or (pl.tp + col.tf + 8.0 + 0.5 * (0.65 * b.d + 0.8 * b.d))
@@ -645,6 +677,8 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
         components=tuple(comps),
         S_j_ini=sj,
         governing=gov,
+        F_t_half_Rd=sum(r.F_tr_Rd for r in rr_n),
+        F_c_flange_Rd=min(fcwc, fcfb),
     )
 
 
@@ -812,6 +846,8 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
                 components=tuple(comps),
                 S_j_ini=sj,
                 governing=gov.name,
+                F_t_half_Rd=min(ftwc, ffc, fweld),
+                F_c_flange_Rd=min(fcwc, fcfb),
             )
         )
     hog, sag = sides

@@ -175,3 +175,18 @@ def test_column_compression_reduces_the_web_in_compression():
     f1 = next(c.F_Rd for c in loaded.components if c.name == "column web in compression")
     assert f1 == pytest.approx(0.9 * f0)
     assert loaded.M_j_Rd <= base.M_j_Rd
+
+
+def test_axial_resistances_of_the_joint_for_m_n_interaction():
+    # EN 1993-1-8 6.2.7.1(3): Nj,Rd is the joint's resistance with no moment. Invariants: pure
+    # tension engages the rows of both halves, so it exceeds what the hogging half carries in
+    # bending; compression is at most both flanges' beam-side limit, 2 Fc,fb,Rd.
+    r = check_end_plate_joint(p398())
+    hog_rows = sum(x.F_tr_Rd for x in r.hogging.rows)
+    assert r.N_j_Rd_tension > hog_rows
+    fcfb = [c.F_Rd for c in r.hogging.components if c.clause == "6.2.6.7"][0]
+    assert 0 < r.N_j_Rd_compression <= 2 * fcfb * (1 + 1e-9)
+    d = r.as_dict()["resistance"]
+    assert d["Nj_Rd_tension_kN"] == pytest.approx(r.N_j_Rd_tension / 1e3, abs=0.01)
+    thicker = check_end_plate_joint(p398(plate=replace(p398().plate, tp=30)))
+    assert thicker.N_j_Rd_tension >= r.N_j_Rd_tension * (1 - 1e-9)
