@@ -34,3 +34,14 @@ class NoSteelError(IfcjointError):
 
 class ConfigError(IfcjointError):
     """A configuration value or rules file is not usable."""
+
+
+class DemandsError(IfcjointError):
+    """The demands CSV cannot be used at all (missing, not text, wrong header)."""
+
+    def __init__(self, path: str, line: int, problem: str) -> None:
+        self.path = path
+        self.line = line
+        self.problem = problem
+        where = f"{path}:{line}" if line else path
+        super().__init__(f"{where}: {problem}")

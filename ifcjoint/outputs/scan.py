@@ -6,8 +6,6 @@ All three render the same result object; none recomputes anything.
 from __future__ import annotations
 
 import json
-import os
-import tempfile
 from collections import Counter
 from pathlib import Path
 from typing import TextIO
@@ -16,6 +14,8 @@ import pandas as pd
 
 from ifcjoint import TOOL_NAME, __version__
 from ifcjoint.engine.results import ScanResult
+from ifcjoint.fileio import atomic_write_text as _atomic_write
+from ifcjoint.fileio import safe_cell
 
 SCAN_SCHEMA_VERSION = "1.0"
 CAUTION = (
@@ -95,31 +95,9 @@ def scan_to_dict(result: ScanResult) -> dict:
     }
 
 
-def _atomic_write(path: str | Path, text: str) -> None:
-    """Write to a temporary file beside the target, then rename over it."""
-    path = Path(path)
-    path.parent.mkdir(parents=True, exist_ok=True)
-    fd, tmp = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="") as fh:
-            fh.write(text)
-        os.replace(tmp, path)
-    except BaseException:
-        if os.path.exists(tmp):
-            os.unlink(tmp)
-        raise
-
-
 def write_scan_json(result: ScanResult, path: str | Path) -> None:
     """Write the scan JSON (atomically)."""
     _atomic_write(path, json.dumps(scan_to_dict(result), indent=2, ensure_ascii=False) + "\n")
-
-
-def safe_cell(value: object) -> object:
-    """Neutralise text that a spreadsheet would run as a formula (=, +, -, @, tab, CR)."""
-    if isinstance(value, str) and value[:1] in ("=", "+", "-", "@", "\t", "\r"):
-        return "'" + value
-    return value
 
 
 def scan_dataframe(result: ScanResult) -> pd.DataFrame:

@@ -1,0 +1,212 @@
+"""The issue list as BCF (buildingSMART BCF 3.0 by default, 2.1 on request), via bcf-client.
+
+One topic per problem (``ifcjoint.engine.problems``): stable GUIDs (uuid5 of the beam, its end
+and the kind of problem), the beam/column/plate/bolt GlobalIds selected, and a camera looking
+at the joint. Writing over an earlier BCF of ours keeps what people added there: comments stay,
+topics whose problem is gone are set to ``Closed`` with a comment, never deleted.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import uuid
+from pathlib import Path
+
+import numpy as np
+from xsdata.models.datatype import XmlDateTime
+
+from ifcjoint.engine.problems import NAMESPACE
+from ifcjoint.fileio import atomic_write_bytes
+
+AUTHOR = "ifcjoint"
+LABEL = "ifcjoint"
+PRIORITIES = {"critical": "Critical", "major": "Major", "minor": "Minor"}
+TOPIC_TYPES = {
+    "resistance": "Joint fails check",
+    "incomplete": "Joint incomplete",
+    "unchecked": "Joint not checked",
+    "detailing": "Joint detailing",
+    "assumption": "Analysis assumption",
+}
+OPEN, CLOSED = "Open", "Closed"
+#: Camera offset from the joint, metres: up, back and to the side, so the joint is in view.
+CAMERA_OFFSET_M = np.array((3.0, -4.0, 2.5))
+BCF_VERSIONS = ("3.0", "2.1")
+
+
+def _modules(version: str):
+    if version == "2.1":
+        import bcf.v2.bcfxml as bx
+        import bcf.v2.model as mdl
+        import bcf.v2.topic as tp
+        import bcf.v2.visinfo as vi
+    elif version == "3.0":
+        import bcf.v3.bcfxml as bx
+        import bcf.v3.model as mdl
+        import bcf.v3.topic as tp
+        import bcf.v3.visinfo as vi
+    else:
+        raise ValueError(f"BCF version {version!r}: expected one of {BCF_VERSIONS}")
+    return bx, mdl, tp, vi
+
+
+def _when(dt: _dt.datetime) -> XmlDateTime:
+    return XmlDateTime.from_datetime(dt)
+
+
+def _viewpoint(vi, mdl, key: str, point_mm, elements):
+    from bcf.geometry import camera_vectors_from_target_position
+
+    target = np.asarray(point_mm, dtype=float) / 1000.0
+    pos, direction, up = camera_vectors_from_target_position(target, CAMERA_OFFSET_M)
+    info = mdl.VisualizationInfo(
+        guid=str(uuid.uuid5(NAMESPACE, key + "/viewpoint")),
+        components=vi.build_components(*elements),
+        perspective_camera=vi.build_camera_from_vectors(pos, direction, up),
+    )
+    return vi.VisualizationInfoHandler(visualization_info=info)
+
+
+def _labels(mdl, version: str, labels: list[str]):
+    return labels if version == "2.1" else mdl.TopicLabels(label=labels)
+
+
+def _add_comment(mdl, version: str, handler, text: str, when: _dt.datetime, key: str) -> None:
+    c = mdl.Comment(
+        date=_when(when),
+        author=AUTHOR,
+        comment=text,
+        guid=str(uuid.uuid5(NAMESPACE, key)),
+    )
+    if version == "2.1":
+        handler.markup.comment.append(c)
+    else:
+        t = handler.topic
+        if t.comments is None:
+            t.comments = mdl.TopicComments()
+        t.comments.comment.append(c)
+
+
+def _comment_guids(version: str, handler) -> set[str]:
+    if version == "2.1":
+        return {c.guid for c in handler.markup.comment}
+    cs = handler.topic.comments
+    return {c.guid for c in cs.comment} if cs is not None else set()
+
+
+def _labels_of(version: str, topic) -> list[str]:
+    if version == "2.1":
+        return list(topic.labels or [])
+    return list(topic.labels.label) if topic.labels is not None else []
+
+
+def write_bcf(mc, path: str | Path, *, version: str = "3.0") -> dict[str, int]:
+    """Write (or update) the BCF issue list of a check; returns counts of what was done.
+
+    Keys of the returned dict: ``new``, ``updated``, ``closed``, ``kept`` (topics not ours).
+    """
+    bx, mdl, tp, vi = _modules(version)
+    target = Path(path)
+    old = None
+    if target.exists() and target.stat().st_size > 0:
+        old = bx.BcfXml.load(target)
+        try:
+            _ = old.version
+            old_topics = dict(old.topics)
+        except Exception as exc:  # noqa: BLE001 - a file of another kind or version
+            raise ValueError(
+                f"{target}: exists but is not a BCF {version} file this tool can update "
+                f"({type(exc).__name__}); choose another path or delete it"
+            ) from exc
+    else:
+        old_topics = {}
+    project_name = Path(mc.scan.model.path).name
+    if old is not None:
+        doc = old
+    else:
+        doc = bx.BcfXml.create_new(project_name)
+        pid = str(uuid.uuid5(NAMESPACE, "project/" + project_name))
+        if version == "2.1":
+            doc.project_info = mdl.ProjectExtension(
+                project=mdl.Project(name=project_name, project_id=pid), extension_schema=""
+            )
+        else:
+            doc.project_info = mdl.ProjectInfo(
+                project=mdl.Project(name=project_name, project_id=pid)
+            )
+            doc.extensions = mdl.Extensions(
+                topic_types=mdl.ExtensionsTopicTypes(topic_type=list(TOPIC_TYPES.values())),
+                topic_statuses=mdl.ExtensionsTopicStatuses(topic_status=[OPEN, CLOSED]),
+                priorities=mdl.ExtensionsPriorities(priority=list(PRIORITIES.values())),
+                topic_labels=mdl.ExtensionsTopicLabels(
+                    topic_label=[LABEL, *TOPIC_TYPES, "extended_end_plate", "flush_end_plate",
+                                 "welded", "fin_plate", "incomplete", "undetailed", "unsupported"]
+                ),
+            )
+    when = mc.created
+    counts = {"new": 0, "updated": 0, "closed": 0, "kept": 0}
+    current = set()
+    for jc, p in mc.problems():
+        guid = p.guid
+        current.add(guid)
+        labels = [LABEL, p.kind, jc.joint.archetype]
+        desc = p.description + f"\n\nJoint {jc.joint.id}; input fingerprint {jc.fingerprint}."
+        if guid in old_topics:
+            h = old_topics[guid]
+            t = h.topic
+            changed = (t.title, t.description, t.priority) != (
+                p.title, desc, PRIORITIES[p.severity]
+            )
+            t.title, t.description = p.title, desc
+            t.priority = PRIORITIES[p.severity]
+            t.topic_type = TOPIC_TYPES[p.kind]
+            t.labels = _labels(mdl, version, labels)
+            if t.topic_status == CLOSED:
+                t.topic_status = OPEN
+                _add_comment(mdl, version, h, f"Reopened by {AUTHOR} {mc.tool_version}: the "
+                             "problem is found again.", when, f"{guid}/reopen/{when.isoformat()}")
+            if changed:
+                t.modified_date, t.modified_author = _when(when), AUTHOR
+            counts["updated"] += 1
+            continue
+        topic = mdl.Topic(
+            guid=guid,
+            title=p.title,
+            description=desc,
+            priority=PRIORITIES[p.severity],
+            labels=_labels(mdl, version, labels),
+            creation_date=_when(when),
+            creation_author=AUTHOR,
+            topic_type=TOPIC_TYPES[p.kind],
+            topic_status=OPEN,
+        )
+        h = tp.TopicHandler(topic_dir=Path(guid))
+        h.markup = mdl.Markup(topic=topic)
+        if version == "3.0":
+            h.markup.topic.viewpoints = None
+        h.add_visinfo_handler(_viewpoint(vi, mdl, p.key, jc.joint.point, p.elements))
+        doc.topics[guid] = h
+        counts["new"] += 1
+    for guid, h in old_topics.items():
+        if guid in current:
+            continue
+        t = h.topic
+        if LABEL not in _labels_of(version, t):
+            counts["kept"] += 1
+            continue
+        if t.topic_status != CLOSED:
+            t.topic_status = CLOSED
+            t.modified_date, t.modified_author = _when(when), AUTHOR
+            key = f"{guid}/closed/{when.isoformat()}"
+            if str(uuid.uuid5(NAMESPACE, key)) not in _comment_guids(version, h):
+                _add_comment(mdl, version, h, f"Closed by {AUTHOR} {mc.tool_version}: the "
+                             "problem is no longer found.", when, key)
+            counts["closed"] += 1
+    # Save beside the target, then rename: the old file is read until the end.
+    tmp = target.with_name(f".{target.name}.writing")
+    doc.save(tmp)
+    data = tmp.read_bytes()
+    tmp.unlink()
+    doc.close()
+    atomic_write_bytes(target, data)
+    return counts

@@ -1,0 +1,1 @@
+"""Tables people edit: the demands CSV."""

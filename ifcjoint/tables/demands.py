@@ -1,0 +1,319 @@
+"""The demands CSV: reading it (every problem with its line) and writing a template.
+
+Format (docs/demands.md): one row per joint and load combination; lines starting with ``#``
+are comments; units are the column-name suffixes and no other unit is accepted. Comma or
+semicolon separated (a semicolon file may use decimal commas, as spreadsheets in many
+locales write it).
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import math
+from dataclasses import dataclass, field
+from pathlib import Path
+
+from ifcjoint.engine.demands import JOINT_MODELS, Demand
+from ifcjoint.engine.results import Joint
+from ifcjoint.errors import DemandsError
+from ifcjoint.fileio import atomic_write_text, safe_cell
+
+#: column -> (base quantity, factor to N or N mm). Units are part of the name.
+NUMERIC_COLUMNS = {
+    "M_Ed_kNm": ("M_Ed", 1e6),
+    "V_Ed_kN": ("V_Ed", 1e3),
+    "N_Ed_kN": ("N_Ed", 1e3),
+    "M_Ed_other_side_kNm": ("M_other", 1e6),
+    "Vc_above_kN": ("Vc_above", 1e3),
+    "Vc_below_kN": ("Vc_below", 1e3),
+}
+REQUIRED_VALUES = ("combination", "M_Ed_kNm", "V_Ed_kN")
+TEXT_COLUMNS = ("joint_id", "beam_guid", "beam_end", "combination", "frame", "assumed_joint")
+#: Columns the template writes for people; read and ignored.
+INFO_COLUMNS = ("label", "archetype", "column_guid", "note")
+TEMPLATE_COLUMNS = (
+    "joint_id",
+    "beam_guid",
+    "beam_end",
+    "label",
+    "archetype",
+    "combination",
+    "M_Ed_kNm",
+    "V_Ed_kN",
+    "N_Ed_kN",
+    "M_Ed_other_side_kNm",
+    "Vc_above_kN",
+    "Vc_below_kN",
+    "frame",
+    "assumed_joint",
+)
+_BASES = {
+    "M_Ed": "M_Ed_kNm",
+    "V_Ed": "V_Ed_kN",
+    "N_Ed": "N_Ed_kN",
+    "M_Ed_other_side": "M_Ed_other_side_kNm",
+    "Vc_above": "Vc_above_kN",
+    "Vc_below": "Vc_below_kN",
+}
+
+TEMPLATE_HEADER = """\
+# ifcjoint demands: one row per joint and load combination (docs/demands.md).
+# Identify a joint by joint_id, or by beam_guid + beam_end (start|end).
+# Units are in the column names: kNm, kN. Signs: M_Ed < 0 hogging (top flange in tension),
+# M_Ed > 0 sagging; M_Ed_other_side: the moment of the beam on the opposite column face, same
+# convention seen from that beam (double-sided joints). N_Ed > 0 tension in the beam.
+# Vc_above_kN / Vc_below_kN: column shears above and below (EN 1993-1-8 5.3(3)); leave empty
+# if unknown (taken as 0, reported). frame: braced|unbraced. assumed_joint: what the analysis
+# model assumed, rigid|semi-rigid|pinned (compared with the joint's stiffness class).
+# Several combinations per joint: add one row each. Lines starting with # are ignored.
+"""
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class DemandProblem:
+    """A rejected row (or a warning about one), with where it is."""
+
+    path: str
+    line: int
+    message: str
+    severity: str = "error"  # error: row rejected | warning: row used
+
+    def __str__(self) -> str:
+        return f"{self.path}:{self.line}: {self.message}"
+
+
+@dataclass(slots=True, kw_only=True)
+class DemandsTable:
+    """Demands read from a CSV, by joint id, with what was rejected."""
+
+    path: str
+    by_joint: dict[str, list[Demand]] = field(default_factory=dict)
+    problems: list[DemandProblem] = field(default_factory=list)
+    rows_read: int = 0
+    rows_rejected: int = 0
+
+    @property
+    def rows_used(self) -> int:
+        """Rows that became demands."""
+        return sum(len(v) for v in self.by_joint.values())
+
+
+def _number(text: str, decimal_comma: bool) -> float:
+    t = text.strip().replace("\u2212", "-")
+    if decimal_comma:
+        t = t.replace(".", "").replace(",", ".") if "," in t else t
+    v = float(t)
+    if not math.isfinite(v):
+        raise ValueError(text)
+    return v
+
+
+def _header_problems(header: list[str]) -> list[str]:
+    """Wrong units and missing columns in the header line."""
+    problems = []
+    names = set(header)
+    for h in header:
+        if h in NUMERIC_COLUMNS or h in TEXT_COLUMNS or h in INFO_COLUMNS:
+            continue
+        for base, proper in sorted(_BASES.items(), key=lambda kv: -len(kv[0])):
+            if h == base or (h.startswith(base + "_") and h not in NUMERIC_COLUMNS):
+                unit = h[len(base) + 1 :] or "(none)"
+                if base == "M_Ed" and unit.startswith("other_side"):
+                    continue
+                problems.append(
+                    f"column '{h}': unit {unit!r} is not accepted; name it '{proper}' and give "
+                    "the values in that unit (no conversion is guessed)"
+                )
+                break
+    for col in REQUIRED_VALUES:
+        if col not in names:
+            problems.append(f"required column '{col}' missing")
+    if "joint_id" not in names and not {"beam_guid", "beam_end"} <= names:
+        problems.append("no way to identify joints: give 'joint_id', or 'beam_guid' and 'beam_end'")
+    return problems
+
+
+def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> DemandsTable:
+    """Read a demands CSV against the joints of a scan.
+
+    Every row problem is recorded with its line number and the row is skipped; the other rows
+    are used. A file that cannot be used at all raises.
+
+    Raises:
+        ifcjoint.errors.DemandsError: the file is missing, unreadable, empty or its header is
+            wrong (message names the file, the line and what was expected).
+    """
+    p = str(path)
+    try:
+        raw = Path(path).read_bytes()
+    except OSError as exc:
+        raise DemandsError(p, 0, f"cannot read the file ({exc.strerror or exc})") from exc
+    try:
+        text = raw.decode("utf-8-sig")
+    except UnicodeDecodeError:
+        try:
+            text = raw.decode("cp1252")
+        except UnicodeDecodeError as exc:
+            raise DemandsError(p, 0, "not a text file (expected UTF-8 CSV)") from exc
+    lines = text.splitlines()
+    numbered = [(i, ln) for i, ln in enumerate(lines, start=1) if ln.strip()]
+    numbered = [(i, ln) for i, ln in numbered if not ln.lstrip().startswith("#")]
+    if not numbered:
+        raise DemandsError(p, 0, "no header line (expected a CSV with a header row)")
+    head_line, head = numbered[0]
+    delim = ";" if head.count(";") > head.count(",") else ","
+    decimal_comma = delim == ";"
+    header = [h.strip() for h in next(csv.reader([head], delimiter=delim))]
+    hp = _header_problems(header)
+    if hp:
+        raise DemandsError(p, head_line, "; ".join(hp))
+    unknown = [h for h in header if h not in (*NUMERIC_COLUMNS, *TEXT_COLUMNS, *INFO_COLUMNS)]
+    table = DemandsTable(path=p)
+    if unknown:
+        table.problems.append(
+            DemandProblem(
+                path=p,
+                line=head_line,
+                message=f"column(s) not used: {', '.join(unknown)}",
+                severity="warning",
+            )
+        )
+    by_id = {j.id: j for j in joints}
+    by_beam = {(j.beam, j.beam_end): j for j in joints}
+    seen: dict[tuple[str, str], int] = {}
+    body = [ln for _, ln in numbered[1:]]
+    rows = csv.reader(io.StringIO("\n".join(body)), delimiter=delim)
+    for (line, _), cells in zip(numbered[1:], rows, strict=True):
+        table.rows_read += 1
+        row = {h: (cells[k].strip() if k < len(cells) else "") for k, h in enumerate(header)}
+
+        def reject(msg: str, line: int = line) -> None:
+            table.problems.append(DemandProblem(path=p, line=line, message=msg))
+            table.rows_rejected += 1
+
+        if len(cells) > len(header) and any(c.strip() for c in cells[len(header) :]):
+            reject(f"{len(cells)} cells but the header has {len(header)} columns")
+            continue
+        jid = row.get("joint_id", "")
+        bg, be = row.get("beam_guid", ""), row.get("beam_end", "").lower()
+        joint = None
+        if jid:
+            joint = by_id.get(jid)
+            if joint is None:
+                reject(f"unknown joint_id {jid!r} (not a joint of this model's scan)")
+                continue
+            if bg and (joint.beam != bg or (be and joint.beam_end != be)):
+                reject(
+                    f"joint_id {jid!r} is beam {joint.beam} {joint.beam_end}, but the row "
+                    f"says beam {bg} {be or '?'}"
+                )
+                continue
+        elif bg:
+            if be not in ("start", "end"):
+                reject(f"beam_end {row.get('beam_end', '')!r}: expected 'start' or 'end'")
+                continue
+            joint = by_beam.get((bg, be))
+            if joint is None:
+                reject(f"no joint at the {be} of beam {bg!r} in this model")
+                continue
+        else:
+            reject("no joint_id and no beam_guid: the row names no joint")
+            continue
+        missing = [c for c in REQUIRED_VALUES if not row.get(c, "")]
+        if missing:
+            reject(f"missing required value(s): {', '.join(missing)}")
+            continue
+        values: dict[str, float | None] = {}
+        bad = []
+        for col, (key, factor) in NUMERIC_COLUMNS.items():
+            cell = row.get(col, "")
+            if not cell:
+                values[key] = None
+                continue
+            try:
+                values[key] = _number(cell, decimal_comma) * factor
+            except ValueError:
+                bad.append(f"{col} = {cell!r} is not a number")
+        if bad:
+            reject("; ".join(bad))
+            continue
+        frame = row.get("frame", "").lower()
+        if frame not in ("", "braced", "unbraced"):
+            reject(f"frame {row['frame']!r}: expected 'braced' or 'unbraced'")
+            continue
+        assumed = row.get("assumed_joint", "").lower().replace("semirigid", "semi-rigid")
+        if assumed not in ("", *JOINT_MODELS):
+            reject(f"assumed_joint {row['assumed_joint']!r}: expected one of {JOINT_MODELS}")
+            continue
+        comb = row["combination"]
+        key2 = (joint.id, comb)
+        if key2 in seen:
+            reject(
+                f"joint {joint.id} ({joint.label}) has combination {comb!r} already on line "
+                f"{seen[key2]}"
+            )
+            continue
+        seen[key2] = line
+        if values["M_other"] is not None and joint.partner is None:
+            table.problems.append(
+                DemandProblem(
+                    path=p,
+                    line=line,
+                    message=(
+                        f"M_Ed_other_side_kNm given but joint {joint.id} has no beam on the "
+                        "opposite face: ignored"
+                    ),
+                    severity="warning",
+                )
+            )
+            values["M_other"] = None
+        table.by_joint.setdefault(joint.id, []).append(
+            Demand(
+                combination=comb,
+                M_Ed=values["M_Ed"],
+                V_Ed=values["V_Ed"],
+                N_Ed=values["N_Ed"] or 0.0,
+                M_other=values["M_other"],
+                Vc_above=values["Vc_above"],
+                Vc_below=values["Vc_below"],
+                braced=None if not frame else frame == "braced",
+                assumed_joint=assumed or None,
+                source=f"{Path(p).name}:{line}",
+            )
+        )
+    return table
+
+
+def write_template(joints, path: str | Path) -> int:
+    """Write a demands template: one row per joint, values empty, ready to fill.
+
+    Returns the number of rows written. Written to a temporary file and renamed.
+    """
+    buf = io.StringIO()
+    buf.write(TEMPLATE_HEADER)
+    w = csv.writer(buf, lineterminator="\n")
+    w.writerow(TEMPLATE_COLUMNS)
+    n = 0
+    for j in joints:
+        w.writerow(
+            [
+                j.id,
+                j.beam,
+                j.beam_end,
+                safe_cell(j.label),
+                j.archetype,
+                "",
+                "",
+                "",
+                "",
+                "",
+                "",
+                "",
+                "",
+                "",
+            ]
+        )
+        n += 1
+    atomic_write_text(path, buf.getvalue())
+    return n
