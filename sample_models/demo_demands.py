@@ -10,8 +10,8 @@ demo, not from any project): first floor 30 kN/m on the edge lines A and C, 62 k
   the sway moment exceeds the gravity moment).
 
 The analysis assumed rigid joints on line A of the first floor (to show the assumption check)
-and semi-rigid elsewhere; roof line C is left out ("analysis pending"), so those joints stay
-unchecked. Reads the generator's truth file so it does not depend on ifcjoint.
+and semi-rigid elsewhere; roof line C and the cantilever are left out ("analysis pending"), so
+those joints stay unchecked. Reads the generator's truth file so it does not depend on ifcjoint.
 
 Run: ``python sample_models/demo_demands.py`` (rewrites kestrel-workshop-demands.csv).
 """

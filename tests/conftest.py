@@ -61,3 +61,21 @@ def corpus_files() -> list[Path]:
     if not CORPUS.is_dir():
         return []
     return sorted(p for p in CORPUS.iterdir() if p.suffix.lower() in (".ifc", ".ifczip"))
+
+
+DEMO_CREATED = "2026-12-01T09:00:00"
+
+
+@pytest.fixture(scope="session")
+def demo_check():
+    """The bundled demo checked against its demo demands (a fixed timestamp)."""
+    import datetime as dt
+
+    import ifcjoint
+
+    when = dt.datetime.fromisoformat(DEMO_CREATED).replace(tzinfo=dt.UTC)
+    return ifcjoint.check(
+        SAMPLES / "kestrel-workshop-ifc4-mm.ifc",
+        demands=SAMPLES / "kestrel-workshop-demands.csv",
+        created=when,
+    )

@@ -55,9 +55,6 @@ class _Units:
         for u in self.f.by_type("IfcSIUnit"):
             if (u.UnitType, u.Prefix, u.Name) == (unit_type, prefix, name):
                 return u
-        dims = self.f.createIfcDimensionalExponents(0, 0, 0, 0, 0, 0, 0)
-        if self.f.schema == "IFC2X3":
-            return self.f.createIfcSIUnit(dims, unit_type, prefix, name)
         return self.f.createIfcSIUnit(UnitType=unit_type, Prefix=prefix, Name=name)
 
     def _derived(self, unit_type: str, parts):

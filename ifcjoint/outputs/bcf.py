@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import datetime as _dt
 import uuid
+import zipfile
 from pathlib import Path
 
 import numpy as np
@@ -109,6 +110,11 @@ def write_bcf(mc, path: str | Path, *, version: str = "3.0") -> dict[str, int]:
     target = Path(path)
     old = None
     if target.exists() and target.stat().st_size > 0:
+        if not zipfile.is_zipfile(target):
+            raise ValueError(
+                f"{target}: exists but is not a BCF file (not a zip archive); choose another "
+                "path or delete it"
+            )
         old = bx.BcfXml.load(target)
         try:
             _ = old.version
