@@ -209,6 +209,7 @@ def write_bcf(mc, path: str | Path, *, version: str = "3.0") -> dict[str, int]:
                              "problem is no longer found.", when, key)
             counts["closed"] += 1
     # Save beside the target, then rename: the old file is read until the end.
+    target.parent.mkdir(parents=True, exist_ok=True)
     tmp = target.with_name(f".{target.name}.writing")
     doc.save(tmp)
     data = tmp.read_bytes()

@@ -2,11 +2,15 @@
 
 from __future__ import annotations
 
+import json
+
+import jsonschema
 import pandas as pd
 
 from ifcjoint.engine.finder import find_joints
 from ifcjoint.engine.model import Member, ModelContents
 from ifcjoint.outputs.scan import safe_cell, scan_to_dict, write_scan_csv, write_scan_json
+from tests.conftest import ROOT
 
 
 def _result(storey: str):
@@ -48,3 +52,14 @@ def test_csv_side_is_a_number_not_a_formula_lookalike(tmp_path):
     write_scan_csv(r, p)
     df = pd.read_csv(p)
     assert list(df["side_sign"]) == [1]
+
+
+def test_results_json_validates_against_both_schemas(demo_check):
+    # The results JSON is the scan JSON plus each joint's check: both schemas hold.
+    from ifcjoint.outputs.results import results_to_dict
+
+    data = json.loads(json.dumps(results_to_dict(demo_check)))
+    scan_schema = json.loads((ROOT / "docs" / "scan-json.schema.json").read_text())
+    res_schema = json.loads((ROOT / "docs" / "results-json.schema.json").read_text())
+    jsonschema.validate(data, scan_schema)
+    jsonschema.validate(data, res_schema)
