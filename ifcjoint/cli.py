@@ -306,6 +306,15 @@ def gate_fails(mc, fail_on: str) -> list[str]:
 )
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Results, a row per joint.")
 @click.option(
+    "--html",
+    "html_out",
+    type=click.Path(dir_okay=False),
+    help="Self-contained HTML report: summary, joint table, calculation sheets, drawings.",
+)
+@click.option(
+    "--md", "md_out", type=click.Path(dir_okay=False), help="Short Markdown summary (for a review)."
+)
+@click.option(
     "--params",
     "params_file",
     type=click.Path(exists=True, dir_okay=False),
@@ -344,6 +353,8 @@ def check(
     issues_out,
     json_out,
     csv_out,
+    html_out,
+    md_out,
     params_file,
     frame,
     fail_on,
@@ -393,6 +404,10 @@ def check(
     bar.close()
     _write_check_outputs(mc, ifc_out, in_place, bcf_out, bcf_version, issues_out, json_out,
                          csv_out, quiet)
+    if html_out or md_out:
+        from ifcjoint.outputs.results import results_to_dict
+
+        _write_reports(results_to_dict(mc), html_out, md_out, quiet)
     if not quiet:
         from ifcjoint.outputs.results import write_check_summary
 
@@ -402,6 +417,54 @@ def check(
     if why:
         click.echo(f"ifcjoint: gate ({fail_on}) failed: {'; '.join(why)}", err=True)
         sys.exit(EXIT_GATE)
+    sys.exit(EXIT_OK)
+
+
+def _write_reports(results: dict, html_out, md_out, quiet) -> None:
+    """HTML and Markdown reports from a results dict (shared by check and report)."""
+    from ifcjoint.fileio import atomic_write_text
+    from ifcjoint.outputs.report import render_markdown, write_html
+
+    try:
+        if html_out:
+            n = write_html(results, html_out)
+            if not quiet:
+                click.echo(f"wrote {html_out} ({n / 1e6:.1f} MB)", err=True)
+        if md_out:
+            atomic_write_text(md_out, render_markdown(results))
+            if not quiet:
+                click.echo(f"wrote {md_out}", err=True)
+    except OSError as exc:
+        _fail(EXIT_USAGE, f"cannot write report: {exc}")
+
+
+@main.command()
+@click.argument("results_json", type=click.Path(dir_okay=False, path_type=str))
+@click.option("--html", "html_out", type=click.Path(dir_okay=False), help="HTML report to write.")
+@click.option("--md", "md_out", type=click.Path(dir_okay=False), help="Markdown summary to write.")
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
+def report(results_json, html_out, md_out, quiet):
+    """Render the reports again from a results JSON written by `check --json` (no re-check)."""
+    import json
+
+    if not html_out and not md_out:
+        _fail(EXIT_USAGE, "nothing to write: give --html and/or --md")
+    try:
+        data = json.loads(Path(results_json).read_text(encoding="utf-8"))
+    except OSError as exc:
+        _fail(EXIT_MODEL, f"{results_json}: cannot read ({exc.strerror or exc})")
+    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
+        _fail(EXIT_MODEL, f"{results_json}: not JSON ({exc})")
+    if not isinstance(data, dict) or "results_schema_version" not in data:
+        _fail(
+            EXIT_MODEL,
+            f"{results_json}: not a results JSON of `ifcjoint check --json` (a scan JSON has no "
+            "check results; run check first)",
+        )
+    if data["results_schema_version"] != "1.0":
+        _fail(EXIT_MODEL, f"{results_json}: results schema {data['results_schema_version']!r} "
+              "is not one this version reads (1.0)")
+    _write_reports(data, html_out, md_out, quiet)
     sys.exit(EXIT_OK)
 
 

@@ -151,6 +151,10 @@ class ComponentResult:
             "rows": list(self.rows),
             "F_Rd_kN": round(float(self.F_Rd) / 1e3, 2),
             "mode": self.mode,
+            "inputs": {
+                k: (round(float(v), 3) if isinstance(v, (int, float)) else v)
+                for k, v in self.inputs.items()
+            },
         }
 
 
@@ -238,6 +242,9 @@ class CheckResult:
                     "h_r_mm": round(float(r.h_r), 1),
                     "F_tr_Rd_kN": round(float(r.F_tr_Rd) / 1e3, 2),
                     "limited_by": r.limited_by,
+                    "candidates_kN": {
+                        k: round(float(v) / 1e3, 2) for k, v in r.candidates.items()
+                    },
                 }
                 for r in h.rows
             ],

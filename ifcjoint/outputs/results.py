@@ -69,6 +69,9 @@ def joint_check_dict(jc) -> dict:
         "tension_rows": r.get("tension_rows", []),
         "classification": r.get("classification", {}),
         "engine_notes": r.get("notes", []),
+        "m_phi": r.get("m_phi"),
+        "sagging": r.get("sagging"),
+        "inputs": r.get("inputs") or None,
         "demands": [_demand_dict(d) for d in jc.demands],
         "combinations": [
             {

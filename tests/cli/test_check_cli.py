@@ -153,3 +153,28 @@ def test_params_file_changes_the_resistance(tmp_path, demo_check):
         if res:
             ref = base[j["id"]].result.as_dict()["resistance"]
             assert res["Vj_Rd_kN"] <= ref["Vj_Rd_kN"] + 1e-9
+
+
+def test_html_and_markdown_from_check_and_again_from_the_json(tmp_path):
+    js, html, md, html2 = (tmp_path / n for n in ("r.json", "r.html", "r.md", "again.html"))
+    r = run("check", DEMO, "--demands", DEMANDS, "--json", js, "--html", html, "--md", md,
+            "--fail-on", "never", "--timestamp", DEMO_CREATED)
+    assert r.exit_code == 0, r.output
+    r2 = run("report", js, "--html", html2)
+    assert r2.exit_code == 0, r2.output
+    assert html.read_bytes() == html2.read_bytes()  # no second calculation path
+    assert "qualified engineer" in md.read_text()
+
+
+def test_report_refuses_what_is_not_a_results_json(tmp_path):
+    scan_json = tmp_path / "scan.json"
+    assert run("scan", DEMO, "--json", scan_json, "-q").exit_code == 0
+    r = run("report", scan_json, "--html", tmp_path / "x.html")
+    assert r.exit_code == 3 and "not a results JSON" in r.output
+    bad = tmp_path / "bad.json"
+    bad.write_text("{not json")
+    r = run("report", bad, "--html", tmp_path / "x.html")
+    assert r.exit_code == 3 and "not JSON" in r.output
+    r = run("report", bad)
+    assert r.exit_code == 2 and "nothing to write" in r.output
+    assert not (tmp_path / "x.html").exists()
