@@ -30,6 +30,7 @@ STAGE_NAMES = {
     "tessellate": "tessellating bodies",
     "joints": "finding joints",
     "check": "checking joints",
+    "report": "plotting M-phi curves",
 }
 
 
@@ -420,14 +421,18 @@ def check(
     sys.exit(EXIT_OK)
 
 
-def _write_reports(results: dict, html_out, md_out, quiet) -> None:
+def _write_reports(results: dict, html_out, md_out, quiet) -> None:  # noqa: C901
     """HTML and Markdown reports from a results dict (shared by check and report)."""
     from ifcjoint.fileio import atomic_write_text
     from ifcjoint.outputs.report import render_markdown, write_html
 
     try:
         if html_out:
-            n = write_html(results, html_out)
+            bar = _Bar(sys.stderr.isatty() and not quiet)
+            try:
+                n = write_html(results, html_out, progress=bar)
+            finally:
+                bar.close()
             if not quiet:
                 click.echo(f"wrote {html_out} ({n / 1e6:.1f} MB)", err=True)
         if md_out:

@@ -18,6 +18,8 @@ from ifcjoint.fileio import atomic_write_text
 from ifcjoint.outputs.drawing import plate_svg
 from ifcjoint.outputs.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
 
+#: From this many joints on, calculation sheets are built in the page only when opened.
+LAZY_FROM = 300
 STATUS_WORDS = {
     "pass": "pass",
     "fail": "fail",
@@ -76,16 +78,26 @@ def _num(v, digits: int = 1) -> str:
     return str(v)
 
 
-def _m_phi_all(checks: list[dict]) -> list[str | None]:
-    """Every joint's M-phi plot; on both cores for big models (matplotlib is the slow part)."""
-    if len(checks) < 150:
-        return [m_phi_svg(c) for c in checks]
+def _m_phi_all(checks: list[dict], progress=None) -> list[str | None]:
+    """Every joint's M-phi plot; on all cores for big models (matplotlib is the slow part)."""
+    n = len(checks)
+    out: list[str | None] = []
+    if n < 150:
+        for k, c in enumerate(checks, start=1):
+            out.append(m_phi_svg(c))
+            if progress:
+                progress("report", k, n)
+        return out
     import os
     from concurrent.futures import ProcessPoolExecutor
 
     workers = max(1, min(4, os.cpu_count() or 1))
     with ProcessPoolExecutor(max_workers=workers) as ex:
-        return list(ex.map(m_phi_svg, checks, chunksize=25))
+        for k, svg in enumerate(ex.map(m_phi_svg, checks, chunksize=25), start=1):
+            out.append(svg)
+            if progress:
+                progress("report", k, n)
+    return out
 
 
 def _sheet(j: dict, svg_mphi: str | None) -> dict:
@@ -126,7 +138,7 @@ def _sheet(j: dict, svg_mphi: str | None) -> dict:
     }
 
 
-def report_context(results: dict) -> dict:
+def report_context(results: dict, progress=None) -> dict:
     """Everything the HTML template shows, from the results dict."""
     joints = results["joints"]
     ck = results["check"]
@@ -134,7 +146,7 @@ def report_context(results: dict) -> dict:
     arche = Counter(j["archetype"] for j in joints)
     hist = utilisation_histogram_svg(joints)
     checked = [j["check"] if j["check"].get("engine_status") == "checked" else {} for j in joints]
-    plots = _m_phi_all(checked)
+    plots = _m_phi_all(checked, progress)
     return {
         "r": results,
         "ck": ck,
@@ -144,17 +156,19 @@ def report_context(results: dict) -> dict:
         "histogram": Markup(hist) if hist else None,
         "sheets": [_sheet(j, svg) for j, svg in zip(joints, plots, strict=True)],
         "statuses": STATUS_WORDS,
+        # Large reports keep each sheet in a <template>, built when opened: the page loads fast.
+        "lazy": len(joints) > LAZY_FROM,
     }
 
 
-def render_html(results: dict) -> str:
-    """The self-contained HTML report."""
-    return _env().get_template("report.html.j2").render(**report_context(results))
+def render_html(results: dict, progress=None) -> str:
+    """The self-contained HTML report (``progress(stage, done, total)`` while plotting)."""
+    return _env().get_template("report.html.j2").render(**report_context(results, progress))
 
 
-def write_html(results: dict, path) -> int:
+def write_html(results: dict, path, progress=None) -> int:
     """Write the HTML report atomically; returns its size in bytes."""
-    html = render_html(results)
+    html = render_html(results, progress)
     atomic_write_text(path, html)
     return len(html.encode("utf-8"))
 

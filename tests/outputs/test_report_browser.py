@@ -63,3 +63,18 @@ def test_status_filter_from_the_address(report_file, demo_check, tmp_path):
     assert f"{n_fail} of {len(demo_check.joints)} joints shown" in r.stdout
     visible = re.findall(r'<tr data-status="([a-z_]+)" data-joint="J-[0-9a-f]{12}">', r.stdout)
     assert set(visible) == {"fail"} and len(visible) == n_fail
+
+
+def test_large_report_builds_a_sheet_when_it_is_opened(demo_check, tmp_path, monkeypatch):
+    # Big reports keep sheets in <template>s; following a link to one builds and opens it.
+    import ifcjoint.outputs.report as rep
+
+    monkeypatch.setattr(rep, "LAZY_FROM", 10)
+    page = tmp_path / "lazy.html"
+    page.write_text(rep.render_html(json.loads(json.dumps(results_to_dict(demo_check)))))
+    jid = demo_check.top(1)[0].joint.id
+    r = _chromium(tmp_path, "--dump-dom", page.as_uri() + f"#sheet-{jid}")
+    assert 'data-ready="ok"' in r.stdout
+    opened = re.search(rf'<details[^>]*id="sheet-{jid}"[^>]*>', r.stdout).group(0)
+    assert 'data-filled="1"' in opened and "open" in opened
+    assert r.stdout.count('data-filled="1"') == 1  # the others stay unbuilt
