@@ -86,7 +86,8 @@ def S_j_ini(z: float, ks: Sequence[float], params: Parameters = RECOMMENDED) -> 
 
     EN 1993-1-8:2005, 6.3.1(4), Eq. (6.27) with mu = 1.
     """
-    return params.E * z * z / sum(1.0 / k for k in ks if k != float("inf"))
+    flex = sum(1.0 / k for k in ks if k != float("inf"))
+    return params.E * z * z / flex if flex > 0 else float("inf")
 
 
 def stiffness_ratio_mu(M_j_Ed: float, M_j_Rd: float, joint: str = "bolted_end_plate") -> float:  # noqa: N803

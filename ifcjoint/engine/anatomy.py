@@ -152,6 +152,7 @@ class JointAnatomy:
     bolts: BoltReading | None
     stiffeners: tuple[str, ...] = ()
     web_plates: tuple[str, ...] = ()
+    stiffener_depths: tuple[float, ...] = ()  # centre of each transverse stiffener below beam top
     findings: tuple[Finding, ...] = ()
     unread: tuple[str, ...] = ()
     assumed: tuple[str, ...] = ()
@@ -223,6 +224,7 @@ class JointAnatomy:
                 ],
             },
             "stiffeners": list(self.stiffeners),
+            "stiffener_depths_mm": [round(float(x), 1) for x in self.stiffener_depths],
             "web_plates": list(self.web_plates),
             "unread": list(self.unread),
             "assumed": list(self.assumed),
@@ -395,12 +397,13 @@ def analyse_joint(
         if "end_plate" in roles.values()
         else ("fin_plate" if "fin_plate" in roles.values() else None)
     )
-    stiff, web_plates = [], []
+    stiff, web_plates, depths = [], [], []
     for g, role in roles.items():
         if role == "column_plate":
             p = plates[g]
             if abs(np.dot(p.normal, _unit(np.subtract(col.end, col.start)))) > 0.9:
                 stiff.append(g)
+                depths.append(float((fr.beam_top - np.asarray(p.center)).dot(fr.n)))
             else:
                 web_plates.append(g)
     main = None
@@ -436,6 +439,7 @@ def analyse_joint(
         bolts=bolt_r,
         stiffeners=tuple(sorted(stiff)),
         web_plates=tuple(sorted(web_plates)),
+        stiffener_depths=tuple(sorted(depths)),
         findings=tuple(findings),
         unread=tuple(unread),
         assumed=tuple(assumed),

@@ -126,6 +126,7 @@ class EndPlateJointInput:
     braced: bool = True
     stiffeners: tuple[str, ...] = ()
     supplementary_web_plates: tuple[str, ...] = ()
+    stiffener_depths: tuple[float, ...] = ()  # transverse stiffeners, mm below the beam top
     washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
     sigma_com_Ed: float = 0.0  # noqa: N815 - longitudinal compression in the column web, MPa
 
@@ -231,8 +232,8 @@ class CheckResult:
                 "Vwp_Rd_kN": round(float(self.V_wp_Rd) / 1e3, 2),
                 "Nj_Rd_tension_kN": round(float(self.N_j_Rd_tension) / 1e3, 2),
                 "Nj_Rd_compression_kN": round(float(self.N_j_Rd_compression) / 1e3, 2),
-                "Sj_ini_kNm_per_rad": round(float(h.S_j_ini) / 1e6, 1),
-                "Sj_ini_sagging_kNm_per_rad": round(float(s.S_j_ini) / 1e6, 1) if s else None,
+                "Sj_ini_kNm_per_rad": _finite(h.S_j_ini, 1e6, 1),
+                "Sj_ini_sagging_kNm_per_rad": _finite(s.S_j_ini, 1e6, 1) if s else None,
                 "z_mm": round(float(h.z), 1),
             },
             "components": [c.as_dict() for c in h.components],
@@ -274,10 +275,15 @@ class CheckResult:
     def m_phi(self, sign: str = "hogging") -> list[tuple[float, float]]:
         """Design M-phi curve (rad, N mm) for one sign, EN 1993-1-8 6.3.1(4)."""
         side = self.hogging if sign == "hogging" else self.sagging
-        if side is None or side.S_j_ini <= 0:
+        if side is None or side.S_j_ini <= 0 or not math.isfinite(side.S_j_ini):
             return []
         kind = "welded" if self.welded_input is not None else "bolted_end_plate"
         return stf.m_phi_curve(side.M_j_Rd, side.S_j_ini, kind)
+
+
+def _finite(x: float, scale: float, digits: int) -> float | None:
+    """x / scale rounded, or None when x is infinite (a joint with no flexible component)."""
+    return round(float(x) / scale, digits) if math.isfinite(x) else None
 
 
 def _not_checked(reason: str, inp: EndPlateJointInput | None = None) -> CheckResult:
@@ -318,6 +324,7 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
         )
     if inp.bolts.L_b is None:
         notes.append("bolt elongation length not known: prying assumed (Table 6.2)")
+    notes.extend(_column_plate_notes(inp))
     col = inp.column
     p = inp.params
     a_vc = _shear_area(col)
@@ -371,11 +378,6 @@ def _out_of_scope(inp: EndPlateJointInput) -> str:
     col, beam, b = inp.column, inp.beam, inp.bolts
     if len(b.rows_from_beam_top) < 2:
         return "fewer than two bolt rows"
-    if inp.stiffeners or inp.supplementary_web_plates:
-        return (
-            "column stiffeners or supplementary web plates are not handled yet "
-            f"({', '.join(inp.stiffeners + inp.supplementary_web_plates)})"
-        )
     dc = col.h - 2 * col.tf - 2 * col.r
     if not cmp.web_panel_slenderness_ok(dc, col.tw, col.fy):
         return (
@@ -387,6 +389,39 @@ def _out_of_scope(inp: EndPlateJointInput) -> str:
     if beam.h <= 0 or col.h <= 0:
         return "section dimensions missing"
     return ""
+
+
+#: How far (mm, beyond half the flange thickness) a transverse stiffener may sit from a beam
+#: flange's mid-plane and still count as the stiffener of that flange (common practice).
+STIFFENER_REACH = 25.0
+
+
+def stiffened_at(depths: tuple[float, ...], flange_depth: float, t_f: float) -> bool:
+    """Whether a transverse column stiffener lines up with a beam flange.
+
+    Common practice, no source: within t_f / 2 + 25 mm of the flange's mid-plane.
+    """
+    return any(abs(d - flange_depth) <= t_f / 2 + STIFFENER_REACH for d in depths)
+
+
+def _column_plate_notes(inp) -> list[str]:
+    """What the check does with column stiffeners and web plates (EN 1993-1-8 6.2.6, 6.3.2)."""
+    notes = []
+    if inp.stiffeners:
+        notes.append(
+            f"{len(inp.stiffeners)} transverse column stiffener(s): the resistances are those "
+            "of the unstiffened column (stiffeners ignored, on the safe side: a stiffener cannot "
+            "lower the plastic resistance); stiffness with k2 = infinite where the compression "
+            "flange and k3 = infinite for the rows next to a tension flange that a stiffener "
+            "lines up with (Table 6.11, stiffened web)"
+        )
+    if inp.supplementary_web_plates:
+        notes.append(
+            f"{len(inp.supplementary_web_plates)} supplementary web plate(s): ignored "
+            "(6.2.6.1(6)-(8) would raise Avc and the web resistances; on the safe side), "
+            "stiffness of the unreinforced web"
+        )
+    return notes
 
 
 def _shear_area(s: MemberInput) -> float:
@@ -658,10 +693,27 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     # stiffness (6.3): per row k3, k4, k5, k10; k1, k2 for the compression side
     lb = b.L_b or (pl.tp + col.tf + 8.0 + 0.5 * (0.65 * b.d + 0.8 * b.d))
     keff = []
+    # Stiffeners (Table 6.11, stiffened web): at the compression flange k2 = infinite; at the
+    # tension flange k3 = infinite for the nearest row on each side of it.
+    comp_depth = beam.h - beam.tf / 2 if sign == "hogging" else beam.tf / 2
+    tens_depth = beam.tf / 2 if sign == "hogging" else beam.h - beam.tf / 2
+    comp_stiff = stiffened_at(inp.stiffener_depths, comp_depth, beam.tf)
+    tens_stiff = stiffened_at(inp.stiffener_depths, tens_depth, beam.tf)
+    # rows are measured from the tension face here: the flange sits at tf / 2
+    above = [k for k, z in enumerate(tension) if z < beam.tf / 2]
+    below = [k for k, z in enumerate(tension) if z >= beam.tf / 2]
+    next_to_stiffener = set()
+    if tens_stiff:
+        next_to_stiffener = {above[-1]} if above else set()
+        next_to_stiffener |= {below[0]} if below else set()
     for i in range(len(tension)):
         cp, nc = el.column_flange_row_alone(m_c, e_c)
         lmin = min(cp, nc)
-        k3 = stf.k3_web_tension(lmin, col.tw, dwc)
+        k3 = (
+            float("inf")
+            if i in next_to_stiffener
+            else stf.k3_web_tension(lmin, col.tw, dwc)
+        )
         k4 = stf.k4_column_flange(lmin, col.tf, m_c)
         c_a = [c for c in comps if c.name == "end plate in bending" and c.row == i + 1][0]
         lp = min(c_a.inputs["l_eff_cp"], c_a.inputs["l_eff_nc"])
@@ -674,7 +726,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     else:
         zeq, keq = cc, float("inf")
     k1 = stf.k1_web_panel(a_vc, inp.beta, zeq)
-    k2 = stf.k2_web_compression(beff, col.tw, dwc)
+    k2 = float("inf") if comp_stiff else stf.k2_web_compression(beff, col.tw, dwc)
     sj = stf.S_j_ini(zeq, [k1, k2, keq], p)
     return SideResult(
         sign=sign,
@@ -766,6 +818,7 @@ class WeldedJointInput:
     braced: bool = True
     stiffeners: tuple[str, ...] = ()
     supplementary_web_plates: tuple[str, ...] = ()
+    stiffener_depths: tuple[float, ...] = ()  # transverse stiffeners, mm below the beam top
     sigma_com_Ed: float = 0.0  # noqa: N815 - longitudinal compression in the column web, MPa
 
 
@@ -779,8 +832,6 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
     Sj,ini from k1, k2, k3 (6.3.1, Table 6.11); Vj,Rd from the web welds.
     """
     col, beam, w, p = inp.column, inp.beam, inp.welds, inp.params
-    if inp.stiffeners or inp.supplementary_web_plates:
-        return _not_checked("column stiffeners or supplementary web plates are not handled yet")
     dc = col.h - 2 * col.tf - 2 * col.r
     if not cmp.web_panel_slenderness_ok(dc, col.tw, col.fy):
         return _not_checked("column web too slender for 6.2.6.1")
@@ -841,8 +892,18 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
             candidates={c.name: c.F_Rd for c in comps},
         )
         k1 = stf.k1_web_panel(a_vc, inp.beta, z)
-        k2 = stf.k2_web_compression(beff_c, col.tw, dc)
-        k3 = stf.k3_web_tension(beff_t, col.tw, dc)
+        d_t = beam.tf / 2 if sign == "hogging" else beam.h - beam.tf / 2
+        d_c = beam.h - beam.tf / 2 if sign == "hogging" else beam.tf / 2
+        k2 = (
+            float("inf")
+            if stiffened_at(inp.stiffener_depths, d_c, beam.tf)
+            else stf.k2_web_compression(beff_c, col.tw, dc)
+        )
+        k3 = (
+            float("inf")
+            if stiffened_at(inp.stiffener_depths, d_t, beam.tf)
+            else stf.k3_web_tension(beff_t, col.tw, dc)
+        )
         sj = stf.S_j_ini(z, [k1, k2, k3], p)
         sides.append(
             SideResult(
@@ -861,6 +922,7 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
     fvw_web = cmp.f_vw_d(min(beam.fu, col.fu), cmp.BETA_W.get(beam.grade, 1.0), p)
     vjrd = 2 * w.web_throat * (beam.h - 2 * beam.tf) * fvw_web
     notes = ["Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"]
+    notes.extend(_column_plate_notes(inp))
     if w.assumed:
         notes.append(
             f"weld throats assumed (not modelled): flanges a = {w.top_flange_throat:g}"

@@ -182,6 +182,7 @@ def end_plate_input(
         braced=st.braced,
         stiffeners=a.stiffeners,
         supplementary_web_plates=a.web_plates,
+        stiffener_depths=a.stiffener_depths,
     )
 
 
@@ -203,6 +204,7 @@ def welded_input(
         braced=st.braced,
         stiffeners=a.stiffeners,
         supplementary_web_plates=a.web_plates,
+        stiffener_depths=a.stiffener_depths,
     )
 
 

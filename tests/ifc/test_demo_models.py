@@ -144,9 +144,9 @@ def test_demo_anatomy_matches_what_was_built(scan_cached):
     assert checked >= 25
 
 
-def test_stiffened_columns_are_recorded_and_not_checked_yet(build_variant, scan_cached):
-    """Transverse web stiffeners built at the level-1 joints of line A: recorded in the
-    anatomy; the check says it does not handle them yet rather than ignoring them."""
+def test_stiffened_columns_are_recorded_and_checked_with_a_note(build_variant, scan_cached):
+    """Transverse web stiffeners built at the level-1 beam flanges of line A: recorded in the
+    anatomy at the flange levels; the check uses them for the stiffness and says so."""
     from ifcjoint.engine.inputs import check_joint
     from tests.support.truth import end_map
 
@@ -162,8 +162,12 @@ def test_stiffened_columns_are_recorded_and_not_checked_yet(build_variant, scan_
         j = by_key[(t["beam"], emap[(t["beam"], t["beam_end"])])]
         a = r.anatomy[j.id]
         assert len(a.stiffeners) == 4
+        h, tf = a.beam_section.h, a.beam_section.tf
+        for d in a.stiffener_depths:  # each lines up with one of the beam's flanges
+            assert min(abs(d - tf / 2), abs(d - (h - tf / 2))) <= tf / 2 + 1.0
         if a.archetype in ("extended_end_plate", "flush_end_plate"):
             res = check_joint(j, a, members)
-            assert res.status == "not_checked" and "stiffeners" in res.reason
+            assert res.status == "checked"
+            assert any("transverse column stiffener" in n for n in res.notes)
             seen += 1
     assert seen >= 4
