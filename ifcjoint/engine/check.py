@@ -282,7 +282,7 @@ class CheckResult:
 
 
 def _finite(x: float, scale: float, digits: int) -> float | None:
-    """x / scale rounded, or None when x is infinite (a joint with no flexible component)."""
+    """The value divided by scale and rounded; None when infinite (nothing flexible)."""
     return round(float(x) / scale, digits) if math.isfinite(x) else None
 
 
