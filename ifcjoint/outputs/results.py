@@ -8,6 +8,7 @@ from __future__ import annotations
 import csv
 import io
 import json
+import math
 from pathlib import Path
 from typing import TextIO
 
@@ -91,6 +92,20 @@ def joint_check_dict(jc) -> dict:
     }
 
 
+def _finite(obj):
+    """Replace non-finite floats by None so the JSON stays strict.
+
+    An infinite utilisation (a resistance of zero) becomes null; the status still says fail.
+    """
+    if isinstance(obj, float):
+        return obj if math.isfinite(obj) else None
+    if isinstance(obj, dict):
+        return {k: _finite(v) for k, v in obj.items()}
+    if isinstance(obj, (list, tuple)):
+        return [_finite(v) for v in obj]
+    return obj
+
+
 def results_to_dict(mc) -> dict:
     """The scan JSON extended with the check of every joint (docs/results.md)."""
     d = scan_to_dict(mc.scan)
@@ -120,12 +135,13 @@ def results_to_dict(mc) -> dict:
         "notes": list(mc.notes),
     }
     d["caution"] = CAUTION
-    return d
+    return _finite(d)
 
 
 def write_results_json(mc, path: str | Path) -> None:
     """Write the results JSON atomically."""
-    atomic_write_text(path, json.dumps(results_to_dict(mc), indent=1, default=float) + "\n")
+    text = json.dumps(results_to_dict(mc), indent=1, default=float, allow_nan=False)
+    atomic_write_text(path, text + "\n")
 
 
 def results_dataframe(mc) -> pd.DataFrame:

@@ -63,3 +63,23 @@ def test_results_json_validates_against_both_schemas(demo_check):
     res_schema = json.loads((ROOT / "docs" / "results-json.schema.json").read_text())
     jsonschema.validate(data, scan_schema)
     jsonschema.validate(data, res_schema)
+
+
+def test_results_json_is_strict_when_a_resistance_is_zero(demo_check, tmp_path):
+    # A zero resistance gives an infinite utilisation: written as null, status still fail.
+    import dataclasses
+
+    from ifcjoint.outputs.results import write_results_json
+
+    jc = next(j for j in demo_check.joints if j.verdict.combinations)
+    c0 = jc.verdict.combinations[0]
+    bad_u = dataclasses.replace(c0.utilisations[0], utilisation=float("inf"))
+    c_bad = dataclasses.replace(c0, utilisations=(bad_u, *c0.utilisations[1:]))
+    v = dataclasses.replace(jc.verdict, status="fail", combinations=(c_bad,))
+    mc = dataclasses.replace(demo_check, joints=tuple(
+        dataclasses.replace(x, verdict=v) if x is jc else x for x in demo_check.joints))
+    out = tmp_path / "r.json"
+    write_results_json(mc, out)
+    data = json.loads(out.read_text())  # strict JSON: no Infinity
+    j = next(x for x in data["joints"] if x["id"] == jc.joint.id)
+    assert j["check"]["status"] == "fail" and j["check"]["utilisation"] is None
