@@ -311,12 +311,7 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     if why:
         return _not_checked(why, inp)
     notes = []
-    if inp.welds.assumed:
-        notes.append(
-            f"weld throats assumed (not modelled): flanges a = "
-            f"{inp.welds.top_flange_throat:g} / {inp.welds.bottom_flange_throat:g} mm, "
-            f"web a = {inp.welds.web_throat:g} mm"
-        )
+    notes.extend(_weld_notes(inp.welds))
     if inp.alpha is None:
         notes.append(
             f"alpha (EN 1993-1-8 Fig 6.11) taken as {ALPHA_DEFAULT} (the chart's lowest "
@@ -402,6 +397,16 @@ def stiffened_at(depths: tuple[float, ...], flange_depth: float, t_f: float) -> 
     Common practice, no source: within t_f / 2 + 25 mm of the flange's mid-plane.
     """
     return any(abs(d - flange_depth) <= t_f / 2 + STIFFENER_REACH for d in depths)
+
+
+def _weld_notes(w: WeldsInput) -> list[str]:
+    """Say so when the weld throats were assumed rather than read from the model."""
+    if not w.assumed:
+        return []
+    return [
+        f"weld throats assumed (not modelled): flanges a = {w.top_flange_throat:g} / "
+        f"{w.bottom_flange_throat:g} mm, web a = {w.web_throat:g} mm"
+    ]
 
 
 def _column_plate_notes(inp) -> list[str]:
@@ -923,11 +928,7 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
     vjrd = 2 * w.web_throat * (beam.h - 2 * beam.tf) * fvw_web
     notes = ["Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"]
     notes.extend(_column_plate_notes(inp))
-    if w.assumed:
-        notes.append(
-            f"weld throats assumed (not modelled): flanges a = {w.top_flange_throat:g}"
-            f" / {w.bottom_flange_throat:g} mm, web a = {w.web_throat:g} mm"
-        )
+    notes.extend(_weld_notes(w))
     cls = _classify(inp, hog, sag)
     return CheckResult(
         status="checked",

@@ -119,6 +119,19 @@ def _beam_and_column(
     return beam, col
 
 
+def _shared_fields(a: JointAnatomy, beam: MemberInput, st: CheckSettings) -> dict:
+    """Fields both joint inputs take the same way: welds, factors, beta, column plates."""
+    return {
+        "welds": _assumed_welds(beam, st),
+        "params": st.params,
+        "beta": 1.0,
+        "braced": st.braced,
+        "stiffeners": a.stiffeners,
+        "supplementary_web_plates": a.web_plates,
+        "stiffener_depths": a.stiffener_depths,
+    }
+
+
 def end_plate_input(
     joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
 ) -> EndPlateJointInput | str:
@@ -176,13 +189,7 @@ def end_plate_input(
             rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
             L_b=grip + 8.0 + 0.5 * (0.65 * b.d + 0.9 * b.d),
         ),
-        welds=_assumed_welds(beam, st),
-        params=st.params,
-        beta=1.0,
-        braced=st.braced,
-        stiffeners=a.stiffeners,
-        supplementary_web_plates=a.web_plates,
-        stiffener_depths=a.stiffener_depths,
+        **_shared_fields(a, beam, st),
     )
 
 
@@ -198,13 +205,7 @@ def welded_input(
     return WeldedJointInput(
         column=col,
         beam=beam,
-        welds=_assumed_welds(beam, st),
-        params=st.params,
-        beta=1.0,
-        braced=st.braced,
-        stiffeners=a.stiffeners,
-        supplementary_web_plates=a.web_plates,
-        stiffener_depths=a.stiffener_depths,
+        **_shared_fields(a, beam, st),
     )
 
 

@@ -17,17 +17,10 @@ from ifcjoint.engine.demands import STATUSES, UNCHECKED
 from ifcjoint.fileio import atomic_write_text
 from ifcjoint.outputs.drawing import plate_svg
 from ifcjoint.outputs.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
+from ifcjoint.outputs.results import STATUS_WORDS
 
 #: From this many joints on, calculation sheets are built in the page only when opened.
 LAZY_FROM = 300
-STATUS_WORDS = {
-    "pass": "pass",
-    "fail": "fail",
-    "no_demands": "unchecked: no demands",
-    "incomplete": "unchecked: incomplete",
-    "unsupported": "unchecked: unsupported",
-    "unreadable": "unchecked: unreadable",
-}
 
 #: How each component's resistance is found (EN 1993-1-8:2005 clause in the sheet's column).
 FORMULAS = {
