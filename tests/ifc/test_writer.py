@@ -118,3 +118,17 @@ def test_results_json_numbers_match_the_engine(demo_check):
         g = jc.verdict.governing
         if g is not None:
             assert j["check"]["governing"]["utilisation"] == pytest.approx(g.utilisation, abs=5e-4)
+
+
+def test_ifc4x3_model_gets_valid_psets(build_variant, tmp_path):
+    path, _ = build_variant(schema="IFC4X3", relations="assembly")
+    mc = ifcjoint.check(path, created=WHEN)
+    out = tmp_path / "x.ifc"
+    counts = write_results_ifc(mc, out)
+    assert counts["beams"] == len(mc.joints) > 0
+    f = ifcopenshell.open(str(out))
+    assert f.schema.startswith("IFC4X3")
+    log = ifcopenshell.validate.json_logger()
+    ifcopenshell.validate.validate(f, log)
+    assert log.statements == []
+    assert len(_our_psets(f)) >= len(mc.joints)
