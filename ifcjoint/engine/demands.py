@@ -60,6 +60,7 @@ class Demand:
     braced: bool | None = None
     assumed_joint: str | None = None
     source: str = ""
+    other_source: str = ""  # where M_other came from when taken from the partner's row
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -145,7 +146,8 @@ def transformation_beta(demand: Demand, double_sided: bool) -> tuple[float, str]
             "unconservative if the two moments are opposed)"
         )
     b = cmp.beta_from_moments(demand.M_Ed, demand.M_other)
-    return b, f"beta = {b:g} from the moments of both sides (Table 5.4)"
+    src = f" (other side from {demand.other_source})" if demand.other_source else ""
+    return b, f"beta = {b:g} from the moments of both sides (Table 5.4){src}"
 
 
 def web_panel_shear(demand: Demand, z: float) -> tuple[float, str]:

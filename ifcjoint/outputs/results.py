@@ -44,6 +44,7 @@ def _demand_dict(d) -> dict:
         "frame": None if d.braced is None else ("braced" if d.braced else "unbraced"),
         "assumed_joint": d.assumed_joint,
         "source": d.source,
+        "other_side_source": d.other_source or None,
     }
 
 

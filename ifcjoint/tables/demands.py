@@ -282,7 +282,45 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
                 source=f"{Path(p).name}:{line}",
             )
         )
+    _pair_partners(table, by_id)
     return table
+
+
+def _pair_partners(table: DemandsTable, by_id: dict[str, Joint]) -> None:
+    """Fill the other side's moment of a double-sided joint from the partner's own row.
+
+    When both beams of a double-sided joint have a row for the same combination and the row
+    does not give ``M_Ed_other_side_kNm``, the partner's M_Ed is used (EN 1993-1-8 5.3: beta
+    and the web panel shear need both moments). A given value that disagrees with the partner's
+    row by more than 1 % (and 1 kNm) is kept and warned about.
+    """
+    from dataclasses import replace
+
+    for jid, rows in table.by_joint.items():
+        partner = by_id[jid].partner
+        if partner is None or partner not in table.by_joint:
+            continue
+        theirs = {d.combination: d for d in table.by_joint[partner]}
+        for k, d in enumerate(rows):
+            o = theirs.get(d.combination)
+            if o is None:
+                continue
+            if d.M_other is None:
+                rows[k] = replace(d, M_other=o.M_Ed, other_source=o.source)
+            elif abs(d.M_other - o.M_Ed) > max(0.01 * abs(o.M_Ed), 1e6):
+                line = int(d.source.rsplit(":", 1)[1]) if ":" in d.source else 0
+                table.problems.append(
+                    DemandProblem(
+                        path=table.path,
+                        line=line,
+                        message=(
+                            f"M_Ed_other_side_kNm {d.M_other / 1e6:g} differs from the "
+                            f"opposite beam's own M_Ed {o.M_Ed / 1e6:g} ({o.source}) for "
+                            f"{d.combination!r}: the value on this row is used"
+                        ),
+                        severity="warning",
+                    )
+                )
 
 
 def write_template(joints, path: str | Path) -> int:

@@ -133,3 +133,26 @@ def test_unreadable_header_line_number_counts_comments(tmp_path):
     with pytest.raises(DemandsError) as e:
         read_demands(p, [])
     assert e.value.line == 4 and "V_Ed_kN" in str(e.value)
+
+
+def test_other_side_moment_comes_from_the_partner_row(tmp_path, ids):
+    # Both beams of a double-sided joint have rows for the same combination: each takes the
+    # other's M_Ed for beta and the web panel shear (EN 1993-1-8 5.3); a given value that
+    # disagrees with the partner's row is kept and warned about.
+    a = next(j for j in ids if j.partner is not None and j.partner in {x.id for x in ids})
+    p = tmp_path / "d.csv"
+    p.write_text(
+        "joint_id,combination,M_Ed_kNm,V_Ed_kN,M_Ed_other_side_kNm\n"
+        f"{a.id},C1,-150,40,\n"  # line 2
+        f"{a.partner},C1,-90,40,\n"  # line 3
+        f"{a.id},C2,-150,40,-20\n"  # line 4: says -20 but the partner's row says -90
+        f"{a.partner},C2,-90,40,\n"  # line 5
+    )
+    t = read_demands(p, ids)
+    mine = {d.combination: d for d in t.by_joint[a.id]}
+    theirs = {d.combination: d for d in t.by_joint[a.partner]}
+    assert mine["C1"].M_other == pytest.approx(-90e6) and mine["C1"].other_source.endswith(":3")
+    assert theirs["C1"].M_other == pytest.approx(-150e6)
+    assert mine["C2"].M_other == pytest.approx(-20e6)
+    warn = [x for x in t.problems if x.line == 4]
+    assert warn and warn[0].severity == "warning" and "differs" in warn[0].message
