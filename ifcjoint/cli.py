@@ -329,6 +329,15 @@ def gate_fails(mc, fail_on: str) -> list[str]:
     help="Frame type for the stiffness classification where the demands do not say.",
 )
 @click.option(
+    "--alpha",
+    "alpha_method",
+    type=click.Choice(["conservative", "approximation"]),
+    default="conservative",
+    show_default=True,
+    help="alpha of EN 1993-1-8 Fig. 6.11: the chart's lowest value 4.45, or a representation "
+    "of the chart (docs/check-engine.md).",
+)
+@click.option(
     "--fail-on",
     type=click.Choice(list(GATES)),
     default="unchecked",
@@ -358,6 +367,7 @@ def check(
     md_out,
     params_file,
     frame,
+    alpha_method,
     fail_on,
     top,
     timestamp,
@@ -393,7 +403,7 @@ def check(
         if timestamp
         else dt.datetime.now(dt.UTC).replace(microsecond=0)
     )
-    settings = CheckSettings(params=params, braced=frame == "braced")
+    settings = CheckSettings(params=params, braced=frame == "braced", alpha_method=alpha_method)
     try:
         mc = check_scan(result, table, settings, created=when, progress=bar)
     except Exception as exc:  # noqa: BLE001 - last resort: a clear message, not a traceback

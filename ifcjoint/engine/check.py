@@ -121,7 +121,8 @@ class EndPlateJointInput:
     welds: WeldsInput
     params: Parameters = RECOMMENDED
     beta: float = 1.0  # transformation parameter (5.3(7), Table 5.4): 1 single-sided
-    alpha: float | None = None  # Figure 6.11 for the row below the tension flange
+    alpha: float | None = None  # Figure 6.11 for the row below the tension flange (fixed)
+    alpha_method: str = "conservative"  # "conservative" (4.45) | "approximation" (Fig 6.11)
     column_continues_above: bool = True
     braced: bool = True
     stiffeners: tuple[str, ...] = ()
@@ -312,10 +313,16 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
         return _not_checked(why, inp)
     notes = []
     notes.extend(_weld_notes(inp.welds))
-    if inp.alpha is None:
+    if inp.alpha is None and inp.alpha_method == "approximation":
+        notes.append(
+            "alpha (EN 1993-1-8 Fig 6.11) from a closed-form representation of the chart "
+            "recalled from memory (7.36 where the published example reads 7.5); values per row "
+            "in the end-plate components"
+        )
+    elif inp.alpha is None:
         notes.append(
             f"alpha (EN 1993-1-8 Fig 6.11) taken as {ALPHA_DEFAULT} (the chart's lowest "
-            "value, conservative): the chart is not yet represented"
+            "value, conservative); --alpha approximation uses a representation of the chart"
         )
     if inp.bolts.L_b is None:
         notes.append("bolt elongation length not known: prying assumed (Table 6.2)")
@@ -478,7 +485,18 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     e_c = (col.b - b.gauge) / 2
     m_p = b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w
     e_p = (pl.bp - b.gauge) / 2
-    alpha = inp.alpha or ALPHA_DEFAULT
+    lam_base = m_p + e_p
+
+    def alpha_for(z_row: float) -> float:
+        """Alpha for the first row below the tension flange at z_row from the tension face."""
+        if inp.alpha is not None:
+            return inp.alpha
+        if inp.alpha_method != "approximation" or lam_base <= 0:
+            return ALPHA_DEFAULT
+        m2 = z_row - beam.tf - 0.8 * leg_f
+        return el.alpha_fig_6_11(m_p / lam_base, max(m2, 0.0) / lam_base)
+
+    alpha = ALPHA_DEFAULT
 
     def col_tstub(cp: float, nc: float, n_rows: int):
         """Column flange T-stub of n_rows rows (6.2.6.4, Table 6.2)."""
@@ -563,6 +581,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
             first = not kinds or kinds[-1] == "extension"
             kinds.append("first" if first else "other")
             if first:
+                alpha = alpha_for(z)
                 cpp, ncp = el.end_plate_first_row_below_flange(m_p, e_p, alpha)
             else:
                 cpp, ncp = el.end_plate_other_row(m_p, e_p)

@@ -40,12 +40,16 @@ class CheckSettings:
             (EN 1993-1-8 4.5.3.3), rounded up to the mm.
         strength_basis: ``EN 1993-1-1`` (Table 3.1) or ``EN 10025`` (product standard).
         braced: frame braced (kb = 8) or not (kb = 25) for the stiffness classification.
+        alpha_method: alpha of EN 1993-1-8 Figure 6.11: ``conservative`` (4.45, the chart's
+            lowest value) or ``approximation`` (a representation of the chart, see
+            ``ifcjoint.ec3.effective_lengths.alpha_fig_6_11``).
     """
 
     params: Parameters = RECOMMENDED
     weld_throat_ratio: float | None = None
     strength_basis: str = "EN 1993-1-1"
     braced: bool = True
+    alpha_method: str = "conservative"
 
 
 def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> float:
@@ -189,6 +193,7 @@ def end_plate_input(
             rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
             L_b=grip + 8.0 + 0.5 * (0.65 * b.d + 0.9 * b.d),
         ),
+        alpha_method=st.alpha_method,
         **_shared_fields(a, beam, st),
     )
 
