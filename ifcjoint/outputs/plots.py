@@ -72,12 +72,12 @@ def m_phi_svg(check: dict) -> str | None:
         ax.plot([0, mj / sj * 1000], [0, mj], color=CURVE, lw=0.8, ls="--",
                 label=f"Sj,ini = {sj:,.0f} kNm/rad")
     cls = check.get("classification") or {}
-    for key, label in (("rigid_from_kNm_per_rad", "rigid boundary"),
-                       ("pinned_up_to_kNm_per_rad", "pinned boundary")):
+    for key, label, style in (("rigid_from_kNm_per_rad", "rigid boundary", "-."),
+                              ("pinned_up_to_kNm_per_rad", "pinned boundary", ":")):
         s = cls.get(key)
         if s:
             x_end = min(xmax, mj * 1.15 / s * 1000)
-            ax.plot([0, x_end], [0, s * x_end / 1000], color=BOUND, lw=0.9, ls="-.",
+            ax.plot([0, x_end], [0, s * x_end / 1000], color=BOUND, lw=1.0, ls=style,
                     label=label)
     g = check.get("governing") or {}
     demand = _design_moment(check, g.get("combination"))

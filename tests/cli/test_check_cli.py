@@ -178,3 +178,25 @@ def test_report_refuses_what_is_not_a_results_json(tmp_path):
     r = run("report", bad)
     assert r.exit_code == 2 and "nothing to write" in r.output
     assert not (tmp_path / "x.html").exists()
+
+
+def test_results_do_not_depend_on_the_model_length_unit():
+    # The demo frame written in mm and in m (rotated and moved in plan): the same joints get
+    # the same resistances, stiffnesses and classes.
+    import ifcjoint
+
+    a = ifcjoint.check(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    b = ifcjoint.check(SAMPLES / "kestrel-workshop-ifc4-m.ifc")
+    ra = {(jc.joint.beam, jc.joint.beam_end): jc.capacity.as_dict() for jc in a.joints}
+    rb = {(jc.joint.beam, jc.joint.beam_end): jc.capacity.as_dict() for jc in b.joints}
+    assert ra.keys() == rb.keys()
+    compared = 0
+    for key, x in ra.items():
+        y = rb[key]
+        assert x["status"] == y["status"]
+        if x["status"] == "checked":
+            for k, v in x["resistance"].items():
+                assert y["resistance"][k] == pytest.approx(v, rel=1e-3, abs=0.05), (key, k)
+            assert x["classification"] == y["classification"]
+            compared += 1
+    assert compared >= 30

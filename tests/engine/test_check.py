@@ -208,3 +208,27 @@ def test_axial_resistances_of_the_joint_for_m_n_interaction():
     assert d["Nj_Rd_tension_kN"] == pytest.approx(r.N_j_Rd_tension / 1e3, abs=0.01)
     thicker = check_end_plate_joint(p398(plate=replace(p398().plate, tp=30)))
     assert thicker.N_j_Rd_tension >= r.N_j_Rd_tension * (1 - 1e-9)
+
+
+@settings(max_examples=40, deadline=None)
+@given(z=st.floats(50, 1500), k=st.lists(st.floats(0.5, 50), min_size=1, max_size=6),
+       f=st.floats(0.2, 5))
+def test_initial_stiffness_scales_with_z_squared(z, k, f):
+    # EN 1993-1-8 6.3.1(4), Eq. (6.27): Sj,ini = E z^2 / sum(1/k_i), so scaling z by f scales
+    # Sj,ini by f^2 for the same stiffness coefficients.
+    from ifcjoint.ec3.stiffness import S_j_ini
+
+    assert S_j_ini(f * z, k) == pytest.approx(f * f * S_j_ini(z, k), rel=1e-9)
+
+
+def test_two_tension_rows_midway_lever_arm_is_conservative():
+    # Common practice, no source (stated in a lecture on this check, EN 1993-1-8 Figure 6.15):
+    # for an extended end plate with two rows active in tension, z may conservatively be taken
+    # from the centre of compression to midway between the two rows. With the outer row the
+    # stronger one, (F1 + F2) z_mid never exceeds Mj,Rd = F1 h1 + F2 h2.
+    inp = p398(bolts=replace(p398().bolts, rows_from_beam_top=(-40.0, 60.0, 473.1)))
+    r = check_end_plate_joint(inp).hogging
+    assert len(r.rows) == 2
+    (f1, h1), (f2, h2) = ((x.F_tr_Rd, x.h_r) for x in r.rows)
+    assert f1 >= f2
+    assert (f1 + f2) * (h1 + h2) / 2 <= r.M_j_Rd * (1 + 1e-12)
