@@ -36,6 +36,7 @@ def distribute_tension(
     groups: dict[tuple[int, int], dict[str, float]],
     compression: dict[str, float],
     F_t_Rd: float,  # noqa: N803
+    explain: bool = True,
 ) -> list[RowResult]:
     """Effective tension resistance of each bolt row, row by row from the top.
 
@@ -52,7 +53,11 @@ def distribute_tension(
         groups: (first, last) 1-based rows of a group -> component name -> group resistance.
         compression: component name -> resistance of the compression side, N.
         F_t_Rd: tension resistance of one bolt, N (for the 1.9 Ft,Rd rule).
+        explain: False skips naming every candidate (``limited_by`` and ``candidates`` stay
+            empty): the same numbers, faster, for resistances nobody reads row by row.
     """
+    if not explain:
+        return _distribute_numbers(h, alone, groups, compression, F_t_Rd)
     out: list[RowResult] = []
     taken: list[float] = []
     for r in range(1, len(h) + 1):
@@ -77,6 +82,28 @@ def distribute_tension(
         f = max(f, 0.0)
         taken.append(f)
         out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=name, candidates=cands))
+    return out
+
+
+def _distribute_numbers(h, alone, groups, compression, F_t_Rd) -> list[RowResult]:  # noqa: N803
+    """``distribute_tension`` without the names (same rules, same order)."""
+    out: list[RowResult] = []
+    taken: list[float] = []
+    comp = list(compression.values())
+    for r in range(1, len(h) + 1):
+        best = min(alone[r - 1].values())
+        for (i, j), comps in groups.items():
+            if j == r and i < r:
+                above = sum(taken[i - 1 : r - 1])
+                best = min(best, min(comps.values()) - above)
+        if comp:
+            best = min(best, min(comp) - sum(taken))
+        for x, prev in enumerate(out):
+            if prev.F_tr_Rd > 1.9 * F_t_Rd:
+                best = min(best, prev.F_tr_Rd * h[r - 1] / h[x])
+        f = max(best, 0.0)
+        taken.append(f)
+        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by="", candidates={}))
     return out
 
 

@@ -711,7 +711,7 @@ def _side(inp: EndPlateJointInput, sign: str, a_vc: float, vwp: float) -> SideRe
     # For the axial resistance (6.2.7.1(3)): the same rows with no compression-side limit and
     # no triangular limit (6.2.7.2(9) concerns the bending distribution only).
     rr_n = distribute_tension(
-        h=h_r, alone=alone, groups=groups, compression={}, F_t_Rd=float("inf")
+        h=h_r, alone=alone, groups=groups, compression={}, F_t_Rd=float("inf"), explain=False
     )
     gov = min(rr, key=lambda r: r.F_tr_Rd).limited_by if rr else ""
     # stiffness (6.3): per row k3, k4, k5, k10; k1, k2 for the compression side

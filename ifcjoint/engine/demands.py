@@ -167,8 +167,18 @@ def web_panel_shear(demand: Demand, z: float) -> tuple[float, str]:
     return v, note
 
 
-def _recheck(inp: EndPlateJointInput | WeldedJointInput, beta: float, braced: bool):
-    new = replace(inp, beta=beta, braced=braced)
+def _recheck(inp: EndPlateJointInput | WeldedJointInput, beta: float, braced: bool, cache=None):
+    """The engine result for this beta and bracing (one run per distinct pair and joint)."""
+    key = (beta, braced)
+    if cache is not None and key in cache:
+        return cache[key]
+    r = _run(replace(inp, beta=beta, braced=braced))
+    if cache is not None:
+        cache[key] = r
+    return r
+
+
+def _run(new: EndPlateJointInput | WeldedJointInput) -> CheckResult:
     if isinstance(new, WeldedJointInput):
         return check_welded_joint(new)
     return check_end_plate_joint(new)
@@ -180,6 +190,7 @@ def verify_combination(
     *,
     double_sided: bool,
     braced_default: bool = True,
+    _cache: dict | None = None,
 ) -> CombinationResult:
     """Check a joint for one load combination.
 
@@ -189,7 +200,7 @@ def verify_combination(
     """
     beta, beta_note = transformation_beta(demand, double_sided)
     braced = braced_default if demand.braced is None else demand.braced
-    r = _recheck(inp, beta, braced)
+    r = _recheck(inp, beta, braced, _cache)
     notes = [beta_note]
     if r.status != "checked":
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=(), notes=())
@@ -296,8 +307,11 @@ def verify_joint(
     """
     if not demands:
         return JointVerdict(status="no_demands", reason="no demand row for this joint")
+    cache: dict = {}  # combinations with the same beta and bracing share one engine run
     combos = tuple(
-        verify_combination(inp, d, double_sided=double_sided, braced_default=braced_default)
+        verify_combination(
+            inp, d, double_sided=double_sided, braced_default=braced_default, _cache=cache
+        )
         for d in demands
     )
     bad = [c for c in combos if c.result.status != "checked"]

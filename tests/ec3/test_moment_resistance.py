@@ -22,3 +22,22 @@ def test_compression_side_limits_the_lower_rows():
                               compression={"web": 400e3}, F_t_Rd=1e9)
     assert [r.F_tr_Rd for r in rows] == [pytest.approx(300e3), pytest.approx(100e3)]
     assert "compression" in rows[1].limited_by
+
+
+def test_unnamed_distribution_gives_the_same_numbers():
+    # explain=False is the same rules without the names (used for Nj,Rd): random cases.
+    import random
+
+    rnd = random.Random(7)
+    for _ in range(300):
+        n = rnd.randint(1, 5)
+        h = sorted((rnd.uniform(50, 900) for _ in range(n)), reverse=True)
+        alone = [{"a": rnd.uniform(50e3, 500e3), "b": rnd.uniform(50e3, 500e3)} for _ in range(n)]
+        groups = {(i, j): {"g": rnd.uniform(100e3, 1500e3)}
+                  for i in range(1, n + 1) for j in range(i + 1, n + 1)}
+        comp = rnd.choice([{}, {"c": rnd.uniform(200e3, 2000e3)}])
+        ft = rnd.uniform(100e3, 300e3)
+        full = distribute_tension(h=h, alone=alone, groups=groups, compression=comp, F_t_Rd=ft)
+        fast = distribute_tension(h=h, alone=alone, groups=groups, compression=comp, F_t_Rd=ft,
+                                  explain=False)
+        assert [r.F_tr_Rd for r in fast] == pytest.approx([r.F_tr_Rd for r in full], rel=1e-12)
