@@ -182,9 +182,10 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
     by_id = {j.id: j for j in joints}
     by_beam = {(j.beam, j.beam_end): j for j in joints}
     seen: dict[tuple[str, str], int] = {}
-    body = [ln for _, ln in numbered[1:]]
-    rows = csv.reader(io.StringIO("\n".join(body)), delimiter=delim)
-    for (line, _), cells in zip(numbered[1:], rows, strict=True):
+    for line, text_line in numbered[1:]:
+        cells = next(csv.reader([text_line], delimiter=delim), [])
+        if not any(c.strip() for c in cells):
+            continue  # a row of empty cells, as spreadsheets leave below the data
         table.rows_read += 1
         row = {h: (cells[k].strip() if k < len(cells) else "") for k, h in enumerate(header)}
 

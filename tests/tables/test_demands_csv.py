@@ -156,3 +156,12 @@ def test_other_side_moment_comes_from_the_partner_row(tmp_path, ids):
     assert mine["C2"].M_other == pytest.approx(-20e6)
     warn = [x for x in t.problems if x.line == 4]
     assert warn and warn[0].severity == "warning" and "differs" in warn[0].message
+
+
+def test_empty_spreadsheet_rows_are_not_counted(tmp_path, ids):
+    a = ids[0]
+    p = tmp_path / "d.csv"
+    p.write_text(f"joint_id,combination,M_Ed_kNm,V_Ed_kN\n{a.id},C1,-5,5\n,,,\n;;;\n,,,\n")
+    t = read_demands(p, ids)
+    assert t.rows_read == 2 and t.rows_rejected == 1  # ';;;' is one cell of text
+    assert t.rows_used == 1
