@@ -85,6 +85,8 @@ def test_rerun_on_own_output_replaces_not_duplicates(tmp_path):
     assert g1 == g2  # GlobalIds derive from stable inputs
     assert [jc.status for jc in mc1.joints] == [jc.status for jc in mc2.joints]
     assert [jc.fingerprint for jc in mc1.joints] == [jc.fingerprint for jc in mc2.joints]
+    # and the issue list has the same topics (GUIDs) when checked from our own output
+    assert [p.guid for _, p in mc1.problems()] == [p.guid for _, p in mc2.problems()]
 
 
 def test_assemblies_get_the_joint_pset():
