@@ -6,7 +6,7 @@ reason) or taken from a documented default that is reported as assumed. No IFC h
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA
 from ifcjoint.ec3.params import RECOMMENDED, Parameters
@@ -233,17 +233,7 @@ def check_joint(
             if joint.partner
             else "beta = 1: single-sided joint"
         )
-        r = CheckResult(
-            status=r.status,
-            reason=r.reason,
-            hogging=r.hogging,
-            sagging=r.sagging,
-            V_j_Rd=r.V_j_Rd,
-            V_wp_Rd=r.V_wp_Rd,
-            classification=r.classification,
-            notes=(*r.notes, note),
-            input=r.input,
-        )
+        r = replace(r, notes=(*r.notes, note))
     return r
 
 

@@ -60,7 +60,7 @@ def test_demo_statuses_are_the_designed_ones(tmp_path):
         if c["status"] in ("no_demands", "incomplete", "unsupported"):
             assert c["governing"] is None and c["utilisation"] is None
     assert data["check"]["created"].startswith("2026-12-01T09:00:00")
-    assert data["check"]["params"]["gamma_M2"] == 1.25
+    assert data["check"]["params"]["gamma_M2"] == 1.25  # EN 1993-1-8 Table 2.1 note, recommended
 
 
 def test_analysis_assumption_mismatch_is_its_own_problem(demo_check):
