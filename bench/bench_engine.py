@@ -18,13 +18,14 @@ sys.path.insert(0, str(ROOT))
 
 
 def main() -> None:
-    from ifcjoint.engine.check import check_end_plate_joint
-    from tests.engine.test_check import p398
+    from tests.engine.test_end_plate import p398
+
+    from ifcjoint.engine.end_plate import check_end_plate_joint
 
     ap = argparse.ArgumentParser()
     ap.add_argument("--n", type=int, default=3000)
     args = ap.parse_args()
-    from ifcjoint.engine.sections import ISection
+    from ifcjoint.catalogue.sections import ISection
 
     base = p398(beta=1.0)
     # as from a scan: the plastic moduli come with the sections

@@ -20,10 +20,9 @@ sys.path.insert(0, str(ROOT))
 
 def main() -> None:
     from bench.bench_scan import bays_for
-    from ifcjoint.checker import check_scan
-    from ifcjoint.outputs.report import write_html
-    from ifcjoint.outputs.results import results_to_dict
-    from ifcjoint.scanner import scan
+    from ifcjoint.pipeline import check_scan, scan
+    from ifcjoint.report.html import write_html
+    from ifcjoint.report.results import build_results
     from ifcjoint.tables.demands import read_demands
     from sample_models.generate import Options, build
 
@@ -47,9 +46,9 @@ def main() -> None:
         table = read_demands(dem, sc.joints)
         mc = check_scan(sc, table)
         t2 = time.perf_counter()
-        data = results_to_dict(mc)
+        data = build_results(mc)
         t3 = time.perf_counter()
-        size = write_html(data, Path(d) / "report.html")
+        size = write_html(data, Path(d) / "report.html")["bytes"]
         t4 = time.perf_counter()
         if args.keep:
             Path(args.keep).write_bytes((Path(d) / "report.html").read_bytes())

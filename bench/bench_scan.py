@@ -21,7 +21,7 @@ CHILD = r"""
 import sys, time, resource, json
 what, path = sys.argv[1], sys.argv[2]
 import ifcopenshell
-from ifcjoint.scanner import scan
+from ifcjoint.pipeline import scan
 t = time.perf_counter()  # imports are not timed: only the work on the file
 if what == "open":
     f = ifcopenshell.open(path)

@@ -1,28 +1,34 @@
 """ifcjoint: scan IFC steel models for beam-to-column joints and check them.
 
-Layers (imports point down only)::
+The pipeline, one package per stage, imports pointing down the list only (tests/test_layering)::
 
-    ifcjoint.cli       thin click commands
-    ifcjoint.outputs   renderers (text summary, JSON, CSV, BCF)
-    ifcjoint.tables    the demands CSV people edit
-    ifcjoint.ifc       everything that touches ifcopenshell
-    ifcjoint.engine    joint model dataclasses and the joint finder (no IFC)
-    ifcjoint.ec3       EN 1993-1-8 formulas (no IFC)
+    ifcjoint.cli          thin click commands
+    ifcjoint.pipeline     scan() and check(): the stages in order, one ModelCheck
+    ifcjoint.report       renderers of one results dictionary (JSON, CSV, BCF, HTML, psets)
+    ifcjoint.archetypes   one object per kind of joint: recognise, build input, check
+    ifcjoint.engine       EN 1993-1-8 check engines, verification against demands, problems
+    ifcjoint.anatomy      a joint as read: sections, plate, bolts, detailing rules
+    ifcjoint.ifc          everything that touches ifcopenshell (read, write psets)
+    ifcjoint.find         beam ends against columns, parts, labels
+    ifcjoint.tables       the demands CSV people edit
+    ifcjoint.catalogue    sections, steel grades, bolt classes
+    ifcjoint.ec3          EN 1993-1-8 formulas and the design-code object
+    ifcjoint.model        plain data and typed codes every stage shares
 """
 
 __version__ = "0.1.0"
 TOOL_NAME = "ifcjoint"
 
-
-def check(path, **kwargs):
-    """Scan a model and check every joint against its demands (see ``ifcjoint.checker.check``)."""
-    from ifcjoint.checker import check as _check
-
-    return _check(path, **kwargs)
+__all__ = ["TOOL_NAME", "__version__", "check", "scan"]
 
 
-def scan(path, **kwargs):
-    """Scan a model for beam-to-column joints (see ``ifcjoint.scanner.scan``)."""
-    from ifcjoint.scanner import scan as _scan
+def __getattr__(name: str):
+    """``ifcjoint.engine`` and ``ifcjoint.scan`` are the pipeline's, imported on first use.
 
-    return _scan(path, **kwargs)
+    Lazy so that the formulas and the engine import without ifcopenshell.
+    """
+    if name in ("check", "scan"):
+        from ifcjoint import pipeline
+
+        return getattr(pipeline, name)
+    raise AttributeError(f"module 'ifcjoint' has no attribute {name!r}")

@@ -1,11 +1,13 @@
 """Command line: thin click commands that parse, call the library and render.
 
-Exit codes (also in the README and ``ifcjoint --help``):
+Exit codes (also in the README and ``ifcjoint --help``) come from the exceptions
+(``ifcjoint.errors``):
     0  done; for ``check``: the gate passed (see --fail-on)
     1  ``check`` only: the gate failed (failing joints, or unchecked ones, per --fail-on)
-    2  usage error (bad option or value, or an output that cannot be written)
+    2  usage error (bad option or value, an output that cannot be written, or one that would
+       replace the input)
     3  model unusable: missing, not IFC, truncated, unsupported schema, no length unit;
-       or a rules, parameters or demands file that cannot be used at all
+       or a rules, parameters, demands or results file that cannot be used at all
     4  model read, but it holds no steel beams or columns to scan (outputs still written)
     5  internal error (a bug: please report it with the model if you can)
 """
@@ -14,16 +16,22 @@ from __future__ import annotations
 
 import sys
 import traceback
+from collections.abc import Callable
 from pathlib import Path
 
 import click
 
 from ifcjoint import __version__
-from ifcjoint.engine.finder import FinderSettings
-from ifcjoint.errors import ConfigError, ModelError
-from ifcjoint.ifc.reader import LENGTH_UNITS
-
-EXIT_OK, EXIT_GATE, EXIT_USAGE, EXIT_MODEL, EXIT_NO_STEEL, EXIT_INTERNAL = 0, 1, 2, 3, 4, 5
+from ifcjoint.errors import (
+    EXIT_GATE,
+    EXIT_INTERNAL,
+    EXIT_OK,
+    ConfigError,
+    IfcjointError,
+    ResultsFileError,
+    UsageError,
+)
+from ifcjoint.ifc.units import LENGTH_UNITS
 
 STAGE_NAMES = {
     "read": "reading elements",
@@ -64,9 +72,34 @@ class _Bar:
             self.bar = None
 
 
-def _fail(code: int, msg: str) -> None:
-    click.echo(f"ifcjoint: error: {msg}", err=True)
-    sys.exit(code)
+def _exit(exc: IfcjointError):
+    """Say what went wrong and exit with the error's code."""
+    click.echo(f"ifcjoint: error: {exc}", err=True)
+    sys.exit(exc.exit_code)
+
+
+def _guarded(what: str, debug: bool, bar: _Bar | None, fn: Callable):
+    """Run a step; an ifcjoint error exits with its code, anything else as an internal error."""
+    try:
+        return fn()
+    except IfcjointError as exc:
+        if bar is not None:
+            bar.close()
+        _exit(exc)
+    except Exception as exc:  # last resort: a clear message, not a traceback
+        if bar is not None:
+            bar.close()
+        if debug:
+            traceback.print_exc()
+        click.echo(
+            f"ifcjoint: error: internal error while {what} ({type(exc).__name__}: {exc}); "
+            "rerun with --debug and please report it",
+            err=True,
+        )
+        sys.exit(EXIT_INTERNAL)
+    finally:
+        if bar is not None:
+            bar.close()
 
 
 @click.group(
@@ -127,13 +160,17 @@ def _model_options(func):
     return func
 
 
-def _run_scan(model, bar, debug, **kw):
-    """Scan with the shared error handling: exit 3 for unusable input, 5 for a bug."""
-    from ifcjoint.engine.anatomy import AnatomySettings
-    from ifcjoint.scanner import scan as run_scan
+def _scan(model, bar, debug, **kw):
+    """Scan MODEL with the options every command shares."""
+    from ifcjoint.anatomy import AnatomySettings
+    from ifcjoint.find import FinderSettings
+    from ifcjoint.pipeline import scan
 
-    try:
-        return run_scan(
+    return _guarded(
+        "scanning",
+        debug,
+        bar,
+        lambda: scan(
             model,
             settings=FinderSettings(tolerance=kw["tolerance"]),
             assume_length_unit=kw["length_unit"],
@@ -142,35 +179,23 @@ def _run_scan(model, bar, debug, **kw):
             anatomy=AnatomySettings(
                 assume_steel_grade=kw["assume_grade"], assume_bolt_class=kw["assume_bolt_class"]
             ),
-        )
-    except (ModelError, ConfigError) as exc:
-        bar.close()
-        _fail(EXIT_MODEL, str(exc))
-    except Exception as exc:  # noqa: BLE001 - last resort: a clear message, not a traceback
-        bar.close()
-        if debug:
-            traceback.print_exc()
-        _fail(
-            EXIT_INTERNAL,
-            f"{model}: internal error while scanning ({type(exc).__name__}: "
-            f"{exc}); rerun with --debug and please report it",
-        )
-    finally:
-        bar.close()
+        ),
+    )
 
 
-def _no_steel_exit(result, model) -> None:
-    candidates = [
-        m for m in result.model.members if m.kind in ("beam", "column") and m.steel != "non_steel"
-    ]
-    if not candidates:
-        c = result.model.counts
-        _fail(
-            EXIT_NO_STEEL,
-            f"{model}: no steel beams or columns found to scan "
-            f"({c.get('beams', 0)} beams, {c.get('columns', 0)} columns read, "
-            f"{c.get('non_steel_members', 0)} of them not steel)",
-        )
+def _wrote(quiet: bool):
+    """Report each output written (on stderr)."""
+
+    def done(kind: str, path, counts: dict[str, int]) -> None:
+        if quiet:
+            return
+        if "bytes" in counts:
+            extra = f" ({counts['bytes'] / 1e6:.1f} MB)"
+        else:
+            extra = f" ({', '.join(f'{k} {v}' for k, v in counts.items())})" if counts else ""
+        click.echo(f"wrote {path}{extra}", err=True)
+
+    return done
 
 
 @main.command()
@@ -191,20 +216,26 @@ def _no_steel_exit(result, model) -> None:
 @_model_options
 def scan(model, json_out, csv_out, brief, quiet, debug, **kw):
     """Find every beam-to-column joint in MODEL (.ifc or .ifczip) and account for every beam end."""
-    from ifcjoint.outputs.scan import write_scan_csv, write_scan_json, write_scan_summary
+    from ifcjoint.errors import OutputError
+    from ifcjoint.pipeline import require_steel
+    from ifcjoint.report.scan import build_scan, write_scan_csv, write_scan_json, write_scan_summary
 
     bar = _Bar(sys.stderr.isatty() and not quiet)
-    result = _run_scan(model, bar, debug, **kw)
-    try:
-        if json_out:
-            write_scan_json(result, json_out)
-        if csv_out:
-            write_scan_csv(result, csv_out)
-    except OSError as exc:
-        _fail(EXIT_USAGE, f"cannot write output: {exc}")
+    result = _scan(model, bar, debug, **kw)
+    scan_dict = build_scan(result)
+
+    def write() -> None:
+        for out, render in ((json_out, write_scan_json), (csv_out, write_scan_csv)):
+            if out:
+                try:
+                    render(scan_dict, out)
+                except OSError as exc:
+                    raise OutputError(f"cannot write output: {exc}") from exc
+
+    _guarded("writing the outputs", debug, None, write)
     if not quiet:
-        write_scan_summary(result, sys.stdout, brief=brief)
-    _no_steel_exit(result, model)
+        write_scan_summary(scan_dict, sys.stdout, brief=brief)
+    _guarded("scanning", debug, None, lambda: require_steel(result))
     sys.exit(EXIT_OK)
 
 
@@ -221,24 +252,26 @@ def scan(model, json_out, csv_out, brief, quiet, debug, **kw):
 @_model_options
 def demands(model, out, quiet, debug, **kw):
     """Write a demands template for MODEL: one row per joint, ready to fill (docs/demands.md)."""
+    from ifcjoint.errors import OutputError
+    from ifcjoint.pipeline import require_steel
     from ifcjoint.tables.demands import write_template
 
     bar = _Bar(sys.stderr.isatty() and not quiet)
-    result = _run_scan(model, bar, debug, **kw)
-    if Path(out).exists() and not _same_kind_of_file(out):
-        _fail(EXIT_USAGE, f"{out}: exists and is not a CSV; refusing to overwrite it")
-    try:
-        n = write_template(result.joints, out)
-    except OSError as exc:
-        _fail(EXIT_USAGE, f"cannot write {out}: {exc}")
+    result = _scan(model, bar, debug, **kw)
+
+    def write() -> int:
+        if Path(out).exists() and not str(out).lower().endswith((".csv", ".txt")):
+            raise UsageError(f"{out}: exists and is not a CSV; refusing to overwrite it")
+        try:
+            return write_template(result.joints, out)
+        except OSError as exc:
+            raise OutputError(f"cannot write {out}: {exc}") from exc
+
+    n = _guarded("writing the template", debug, None, write)
     if not quiet:
         click.echo(f"{out}: {n} joints, one row each; fill in M_Ed_kNm, V_Ed_kN, combination")
-    _no_steel_exit(result, model)
+    _guarded("scanning", debug, None, lambda: require_steel(result))
     sys.exit(EXIT_OK)
-
-
-def _same_kind_of_file(path) -> bool:
-    return str(path).lower().endswith((".csv", ".txt"))
 
 
 GATES = {
@@ -251,22 +284,45 @@ GATES = {
 
 def gate_fails(mc, fail_on: str) -> list[str]:
     """Why the gate fails (empty: it passes)."""
+    from ifcjoint.model.codes import Priority, ProblemKind, Status
+
     c = mc.counts()
     why = []
     if fail_on == "never":
         return why
-    if c["fail"]:
-        why.append(f"{c['fail']} joint(s) fail")
+    if c[Status.FAIL]:
+        why.append(f"{c[Status.FAIL]} joint(s) fail")
     if fail_on in ("unchecked", "problems"):
         n = len(mc.unchecked())
         if n:
             why.append(f"{n} joint(s) unchecked")
     if fail_on == "problems":
-        n = sum(1 for _, p in mc.problems() if p.kind in ("detailing", "assumption")
-                and p.severity != "minor")
+        kinds = (ProblemKind.DETAILING, ProblemKind.ASSUMPTION)
+        n = sum(
+            1 for _, p in mc.problems() if p.kind in kinds and p.priority != Priority.MINOR
+        )
         if n:
             why.append(f"{n} detailing or assumption problem(s)")
     return why
+
+
+def _settings(params_file, frame, alpha_method):
+    """The check settings from the options; a parameters file that cannot be used is exit 3."""
+    import tomllib
+
+    from ifcjoint.ec3.code import EN_1993_1_8
+    from ifcjoint.ec3.params import Parameters
+    from ifcjoint.engine.settings import CheckSettings
+
+    code = EN_1993_1_8
+    if params_file:
+        try:
+            code = code.with_params(Parameters.from_toml(params_file))
+        except tomllib.TOMLDecodeError as exc:
+            raise ConfigError(f"{params_file}: not valid TOML ({exc})") from exc
+        except (ValueError, OSError) as exc:
+            raise ConfigError(f"parameters: {exc}") from exc
+    return CheckSettings(code=code, braced=frame == "braced", alpha_method=alpha_method)
 
 
 @main.command()
@@ -378,52 +434,38 @@ def check(
     """Check every joint of MODEL against the demands; write results, property sets and BCF."""
     import datetime as dt
 
-    from ifcjoint.checker import check_scan
-    from ifcjoint.ec3.params import RECOMMENDED, Parameters
-    from ifcjoint.engine.inputs import CheckSettings
-    from ifcjoint.errors import DemandsError
+    from ifcjoint.pipeline import check_scan, require_steel
+    from ifcjoint.report.outputs import write_outputs
+    from ifcjoint.report.results import write_check_summary
     from ifcjoint.tables.demands import read_demands
 
-    try:
-        params = Parameters.from_toml(params_file) if params_file else RECOMMENDED
-    except (ValueError, OSError) as exc:
-        _fail(EXIT_MODEL, f"parameters: {exc}")
+    settings = _guarded("reading the parameters", debug, None,
+                        lambda: _settings(params_file, frame, alpha_method))
     if ifc_out and not in_place and Path(ifc_out).resolve() == Path(model).resolve():
-        _fail(EXIT_USAGE, f"--ifc-out {ifc_out} is the input model; use another path or --in-place")
+        _exit(UsageError(f"--ifc-out {ifc_out} is the input model; use another path or --in-place"))
     bar = _Bar(sys.stderr.isatty() and not quiet)
-    result = _run_scan(model, bar, debug, **kw)
+    result = _scan(model, bar, debug, **kw)
     table = None
     if demands_file:
-        try:
-            table = read_demands(demands_file, result.joints)
-        except DemandsError as exc:
-            _fail(EXIT_MODEL, str(exc))
+        table = _guarded("reading the demands", debug, None,
+                         lambda: read_demands(demands_file, result.joints))
     when = (
         timestamp.replace(tzinfo=dt.UTC)
         if timestamp
         else dt.datetime.now(dt.UTC).replace(microsecond=0)
     )
-    settings = CheckSettings(params=params, braced=frame == "braced", alpha_method=alpha_method)
-    try:
-        mc = check_scan(result, table, settings, created=when, progress=bar)
-    except Exception as exc:  # noqa: BLE001 - last resort: a clear message, not a traceback
-        bar.close()
-        if debug:
-            traceback.print_exc()
-        _fail(EXIT_INTERNAL, f"{model}: internal error while checking ({type(exc).__name__}: "
-              f"{exc}); rerun with --debug and please report it")
-    bar.close()
-    _write_check_outputs(mc, ifc_out, in_place, bcf_out, bcf_version, issues_out, json_out,
-                         csv_out, quiet)
-    if html_out or md_out:
-        from ifcjoint.outputs.results import results_to_dict
-
-        _write_reports(results_to_dict(mc), html_out, md_out, quiet)
+    mc = _guarded("checking", debug, bar,
+                  lambda: check_scan(result, table, settings, created=when, progress=bar))
+    targets = {"json": json_out, "csv": csv_out, "issues": issues_out, "bcf": bcf_out,
+               "ifc": ifc_out, "html": html_out, "md": md_out}
+    html_bar = _Bar(sys.stderr.isatty() and not quiet)
+    options = {"bcf": {"version": bcf_version}, "ifc": {"in_place": in_place},
+               "html": {"progress": html_bar}}
+    _guarded("writing the outputs", debug, html_bar,
+             lambda: write_outputs(mc.results, targets, options, done=_wrote(quiet)))
     if not quiet:
-        from ifcjoint.outputs.results import write_check_summary
-
-        write_check_summary(mc, sys.stdout, top=top)
-    _no_steel_exit(result, model)
+        write_check_summary(mc.results, sys.stdout, top=top)
+    _guarded("scanning", debug, None, lambda: require_steel(result))
     why = gate_fails(mc, fail_on)
     if why:
         click.echo(f"ifcjoint: gate ({fail_on}) failed: {'; '.join(why)}", err=True)
@@ -431,26 +473,34 @@ def check(
     sys.exit(EXIT_OK)
 
 
-def _write_reports(results: dict, html_out, md_out, quiet) -> None:  # noqa: C901
-    """HTML and Markdown reports from a results dict (shared by check and report)."""
-    from ifcjoint.fileio import atomic_write_text
-    from ifcjoint.outputs.report import render_markdown, write_html
+def _read_results(results_json: str) -> dict:
+    """A results JSON written by ``check --json``.
+
+    Raises:
+        ResultsFileError: unreadable, not JSON, not a results JSON, or of another version.
+    """
+    import json
+
+    from ifcjoint.report.results import READABLE_SCHEMA_VERSIONS
 
     try:
-        if html_out:
-            bar = _Bar(sys.stderr.isatty() and not quiet)
-            try:
-                n = write_html(results, html_out, progress=bar)
-            finally:
-                bar.close()
-            if not quiet:
-                click.echo(f"wrote {html_out} ({n / 1e6:.1f} MB)", err=True)
-        if md_out:
-            atomic_write_text(md_out, render_markdown(results))
-            if not quiet:
-                click.echo(f"wrote {md_out}", err=True)
+        data = json.loads(Path(results_json).read_text(encoding="utf-8"))
     except OSError as exc:
-        _fail(EXIT_USAGE, f"cannot write report: {exc}")
+        raise ResultsFileError(f"{results_json}: cannot read ({exc.strerror or exc})") from exc
+    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
+        raise ResultsFileError(f"{results_json}: not JSON ({exc})") from exc
+    if not isinstance(data, dict) or "results_schema_version" not in data:
+        raise ResultsFileError(
+            f"{results_json}: not a results JSON of `ifcjoint check --json` (a scan JSON has no "
+            "check results; run check first)"
+        )
+    version = data["results_schema_version"]
+    if version not in READABLE_SCHEMA_VERSIONS:
+        raise ResultsFileError(
+            f"{results_json}: results schema {version!r} is not one this version reads "
+            f"({', '.join(READABLE_SCHEMA_VERSIONS)})"
+        )
+    return data
 
 
 @main.command()
@@ -460,59 +510,16 @@ def _write_reports(results: dict, html_out, md_out, quiet) -> None:  # noqa: C90
 @click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
 def report(results_json, html_out, md_out, quiet):
     """Render the reports again from a results JSON written by `check --json` (no re-check)."""
-    import json
+    from ifcjoint.report.outputs import write_outputs
 
     if not html_out and not md_out:
-        _fail(EXIT_USAGE, "nothing to write: give --html and/or --md")
-    try:
-        data = json.loads(Path(results_json).read_text(encoding="utf-8"))
-    except OSError as exc:
-        _fail(EXIT_MODEL, f"{results_json}: cannot read ({exc.strerror or exc})")
-    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
-        _fail(EXIT_MODEL, f"{results_json}: not JSON ({exc})")
-    if not isinstance(data, dict) or "results_schema_version" not in data:
-        _fail(
-            EXIT_MODEL,
-            f"{results_json}: not a results JSON of `ifcjoint check --json` (a scan JSON has no "
-            "check results; run check first)",
-        )
-    if data["results_schema_version"] != "1.0":
-        _fail(EXIT_MODEL, f"{results_json}: results schema {data['results_schema_version']!r} "
-              "is not one this version reads (1.0)")
-    _write_reports(data, html_out, md_out, quiet)
+        _exit(UsageError("nothing to write: give --html and/or --md"))
+    data = _guarded("reading the results", False, None, lambda: _read_results(results_json))
+    bar = _Bar(sys.stderr.isatty() and not quiet)
+    _guarded("writing the reports", False, bar,
+             lambda: write_outputs(data, {"html": html_out, "md": md_out},
+                                   {"html": {"progress": bar}}, done=_wrote(quiet)))
     sys.exit(EXIT_OK)
-
-
-def _write_check_outputs(mc, ifc_out, in_place, bcf_out, bcf_version, issues_out, json_out,
-                         csv_out, quiet) -> None:
-    """Every output asked for; a failure to write one is a usage error naming the file."""
-    from ifcjoint.outputs.results import write_issues, write_results_csv, write_results_json
-
-    jobs = []
-    if json_out:
-        jobs.append((json_out, lambda: write_results_json(mc, json_out)))
-    if csv_out:
-        jobs.append((csv_out, lambda: write_results_csv(mc, csv_out)))
-    if issues_out:
-        jobs.append((issues_out, lambda: write_issues(mc, issues_out)))
-    if bcf_out:
-        from ifcjoint.outputs.bcf import write_bcf
-
-        jobs.append((bcf_out, lambda: write_bcf(mc, bcf_out, version=bcf_version)))
-    if ifc_out:
-        from ifcjoint.ifc.writer import write_results_ifc
-
-        jobs.append((ifc_out, lambda: write_results_ifc(mc, ifc_out, in_place=in_place)))
-    for path, job in jobs:
-        try:
-            done = job()
-        except (OSError, ValueError) as exc:
-            _fail(EXIT_USAGE, f"cannot write {path}: {exc}")
-        except Exception as exc:  # noqa: BLE001 - e.g. the IFC writer's own error
-            _fail(EXIT_USAGE, f"cannot write {path}: {exc}")
-        if not quiet:
-            extra = f" ({', '.join(f'{k} {v}' for k, v in done.items())})" if done else ""
-            click.echo(f"wrote {path}{extra}", err=True)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -44,7 +44,7 @@ def build_variant(tmp_path_factory):
 @pytest.fixture(scope="session")
 def scan_cached():
     """Scan a path once per session."""
-    from ifcjoint.scanner import scan
+    from ifcjoint.pipeline import scan
 
     cache: dict = {}
 

@@ -26,21 +26,32 @@ TENSILE_STRESS_AREA = {
 ALPHA_V = {"4.6": 0.6, "5.6": 0.6, "8.8": 0.6, "4.8": 0.5, "5.8": 0.5, "6.8": 0.5, "10.9": 0.5}
 
 
-def tensile_stress_area(d: float) -> float:
-    """Tensile stress area As of a bolt of nominal diameter d (mm2).
+#: Heights of a bolt head and of a nut as fractions of the diameter: ISO 4014 hexagon heads
+#: (about 0.63 d) and EN 14399-3 preloadable nuts (about 0.9 d). From memory.
+HEAD_HEIGHT, NUT_HEIGHT = 0.65, 0.9
+#: Thickness of one washer, mm (EN 14399-6 washers for M16-M36 are 4-5 mm; from memory).
+WASHER_THICKNESS = 4.0
 
-    EN 1993-1-8:2005, 3.6.1 (As per the bolt product standard; ISO 898-1 values from memory).
 
-    Raises:
-        ValueError: a diameter not in the table.
+def bolt_elongation_length(grip: float, d: float, washers: int = 2) -> float:
+    """Bolt elongation length L_b: the grip, the washers, half the head and half the nut (mm).
+
+    EN 1993-1-8:2005, 6.2.4.1, Table 6.2 (definition of L_b); head 0.65 d, nut 0.9 d and
+    4 mm washers as in ``HEAD_HEIGHT``, ``NUT_HEIGHT`` and ``WASHER_THICKNESS``.
+
+    Args:
+        grip: total thickness of the plies (end plate and column flange), mm.
+        d: bolt diameter, mm.
+        washers: number of washers under the head and the nut.
+
+    Example:
+        >>> bolt_elongation_length(45.5, 24)
+        72.1
     """
-    key = int(round(d))
-    if key not in TENSILE_STRESS_AREA:
-        raise ValueError(f"no tensile stress area for M{d:g}")
-    return TENSILE_STRESS_AREA[key]
+    return grip + washers * WASHER_THICKNESS + 0.5 * (HEAD_HEIGHT * d + NUT_HEIGHT * d)
 
 
-def F_t_Rd(fub: float, As: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+def F_t_Rd(fub: float, As: float, params: Parameters = RECOMMENDED) -> float:
     """Tension resistance of one bolt Ft,Rd = k2 fub As / gamma_M2 (N).
 
     EN 1993-1-8:2005, 3.6.1, Table 3.4.
@@ -57,7 +68,7 @@ def F_t_Rd(fub: float, As: float, params: Parameters = RECOMMENDED) -> float:  #
     return params.k2 * fub * As / params.gamma_M2
 
 
-def B_p_Rd(dm: float, tp: float, fu: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802
+def B_p_Rd(dm: float, tp: float, fu: float, params: Parameters = RECOMMENDED) -> float:
     """Punching shear resistance Bp,Rd = 0.6 pi dm tp fu / gamma_M2 (N).
 
     EN 1993-1-8:2005, 3.6.1, Table 3.4.
@@ -72,7 +83,7 @@ def B_p_Rd(dm: float, tp: float, fu: float, params: Parameters = RECOMMENDED) ->
     return 0.6 * math.pi * dm * tp * fu / params.gamma_M2
 
 
-def F_v_Rd(bolt_class: str, fub: float, As: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+def F_v_Rd(bolt_class: str, fub: float, As: float, params: Parameters = RECOMMENDED) -> float:
     """Shear resistance per shear plane, threads in the shear plane, Fv,Rd (N).
 
     EN 1993-1-8:2005, 3.6.1, Table 3.4: alpha_v fub As / gamma_M2 with alpha_v = 0.6 for
@@ -120,7 +131,7 @@ def F_b_Rd(
     alpha_b_: float,
     fu: float,
     d: float,
-    t: float,  # noqa: N802
+    t: float,
     params: Parameters = RECOMMENDED,
 ) -> float:
     """Bearing resistance of one bolt Fb,Rd = k1 alpha_b fu d t / gamma_M2 (N).

@@ -33,7 +33,7 @@ def web_panel_slenderness_ok(dc: float, tw: float, fy: float) -> bool:
     return dc / tw <= 69.0 * epsilon(fy)
 
 
-def V_wp_Rd(fy_wc: float, A_vc: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802, N803
+def V_wp_Rd(fy_wc: float, A_vc: float, params: Parameters = RECOMMENDED) -> float:
     """Column web panel shear resistance Vwp,Rd = 0.9 fy,wc Avc / (sqrt(3) gamma_M0) (N).
 
     EN 1993-1-8:2005, 6.2.6.1(2), Eq. (6.7), for an unstiffened web panel without
@@ -46,7 +46,7 @@ def V_wp_Rd(fy_wc: float, A_vc: float, params: Parameters = RECOMMENDED) -> floa
     return 0.9 * fy_wc * A_vc / (math.sqrt(3.0) * params.gamma_M0)
 
 
-def omega(beta: float, b_eff: float, t_wc: float, A_vc: float) -> float:  # noqa: N803
+def omega(beta: float, b_eff: float, t_wc: float, A_vc: float) -> float:
     """Reduction factor omega for interaction with shear in the column web panel.
 
     EN 1993-1-8:2005, 6.2.6.2(1), Table 6.3 (omega_1 and omega_2 with the effective width of
@@ -108,7 +108,7 @@ def rho_web(
     return 1.0 if lam <= 0.72 else (lam - 0.2) / lam**2
 
 
-def k_wc(sigma_com_Ed: float, fy_wc: float) -> float:  # noqa: N803
+def k_wc(sigma_com_Ed: float, fy_wc: float) -> float:
     """Factor k_wc for the longitudinal compressive stress in the column web.
 
     EN 1993-1-8:2005, 6.2.6.2(2): 1 when sigma_com,Ed <= 0.7 fy,wc, else
@@ -117,7 +117,7 @@ def k_wc(sigma_com_Ed: float, fy_wc: float) -> float:  # noqa: N803
     return 1.0 if sigma_com_Ed <= 0.7 * fy_wc else 1.7 - sigma_com_Ed / fy_wc
 
 
-def F_c_wc_Rd(  # noqa: N802
+def F_c_wc_Rd(
     *,
     b_eff: float,
     t_wc: float,
@@ -142,7 +142,7 @@ def F_t_wc_Rd(
     b_eff: float,
     t_wc: float,
     fy_wc: float,
-    omega_: float = 1.0,  # noqa: N802
+    omega_: float = 1.0,
     params: Parameters = RECOMMENDED,
 ) -> float:
     """Column web in transverse tension Ft,wc,Rd = omega b_eff t_wc fy,wc / gamma_M0 (N).
@@ -153,7 +153,7 @@ def F_t_wc_Rd(
     return omega_ * b_eff * t_wc * fy_wc / params.gamma_M0
 
 
-def F_c_fb_Rd(M_c_Rd: float, h: float, t_fb: float) -> float:  # noqa: N802, N803
+def F_c_fb_Rd(M_c_Rd: float, h: float, t_fb: float) -> float:
     """Beam flange and web in compression Fc,fb,Rd = Mc,Rd / (h - t_fb) (N).
 
     EN 1993-1-8:2005, 6.2.6.7(1), Eq. (6.21).
@@ -168,7 +168,7 @@ def F_c_fb_Rd(M_c_Rd: float, h: float, t_fb: float) -> float:  # noqa: N802, N80
 
 def F_t_wb_Rd(
     *, b_eff: float, t_wb: float, fy_wb: float, params: Parameters = RECOMMENDED
-) -> float:  # noqa: N802
+) -> float:
     """Beam web in tension Ft,wb,Rd = b_eff,t,wb t_wb fy,wb / gamma_M0 (N).
 
     EN 1993-1-8:2005, 6.2.6.8(1), Eq. (6.22); b_eff,t,wb is the effective length of the end
@@ -204,7 +204,7 @@ def b_eff_b_fc_welded(
 def F_fc_Rd_welded(
     b_eff_b_fc: float,
     t_fb: float,
-    fy_fb: float,  # noqa: N802
+    fy_fb: float,
     params: Parameters = RECOMMENDED,
 ) -> float:
     """Unstiffened column flange in bending for a welded joint Ffc,Rd (N).
@@ -218,7 +218,7 @@ def V_wp_Ed(
     M_b1_Ed: float,
     M_b2_Ed: float,
     z: float,
-    V_c1_Ed: float = 0.0,  # noqa: N802, N803
+    V_c1_Ed: float = 0.0,
     V_c2_Ed: float = 0.0,
 ) -> float:
     """Shear force in the column web panel Vwp,Ed (N).
@@ -230,7 +230,7 @@ def V_wp_Ed(
     return (M_b1_Ed - M_b2_Ed) / z - (V_c1_Ed - V_c2_Ed) / 2.0
 
 
-def beta_from_moments(M_b1_Ed: float, M_b2_Ed: float | None) -> float:  # noqa: N803
+def beta_from_moments(M_b1_Ed: float, M_b2_Ed: float | None) -> float:
     """Approximate transformation parameter beta of the web panel.
 
     EN 1993-1-8:2005, 5.3(7), Table 5.4 (approximate values): single-sided joint 1;
@@ -253,7 +253,7 @@ def beta_from_moments(M_b1_Ed: float, M_b2_Ed: float | None) -> float:  # noqa: 
 def axial_force_significant(
     N_Ed: float,
     A: float,
-    fy: float,  # noqa: N803
+    fy: float,
     params: Parameters = RECOMMENDED,
 ) -> bool:
     """Whether the beam's axial force must be taken into account (N_Ed > 5 % Npl,Rd).

@@ -55,17 +55,6 @@ def p_max(t: float) -> float:
     return min(14.0 * t, 200.0)
 
 
-def e_max_exposed(t: float) -> float:
-    """Maximum end/edge distance for steel exposed to the weather = 4 t + 40 mm (mm).
-
-    EN 1993-1-8:2005, 3.5(1), Table 3.3 (no maximum applies to steel not exposed).
-
-    Args:
-        t: thickness of the thinner outer connected part, mm.
-    """
-    return 4.0 * t + 40.0
-
-
 def normal_hole_clearance(d: float) -> float:
     """Nominal clearance of a normal round hole for a bolt of diameter d (mm).
 

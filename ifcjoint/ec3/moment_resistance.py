@@ -7,7 +7,36 @@ from the component formulas.
 
 from __future__ import annotations
 
+from collections.abc import Hashable
 from dataclasses import dataclass
+from enum import StrEnum
+
+
+class LimitScope(StrEnum):
+    """Which rule of 6.2.7.2 set a row's effective tension resistance."""
+
+    ALONE = "alone"  # a component of the row considered alone
+    GROUP = "group"  # a component of a group of rows ending with this row
+    COMPRESSION = "compression"  # the compression side less the rows above
+    TRIANGULAR = "triangular"  # 6.2.7.2(9): a row above exceeds 1.9 Ft,Rd
+    COMPONENT = "component"  # a single component (a joint with one tension zone, e.g. welded)
+
+
+@dataclass(frozen=True, slots=True)
+class Limit:
+    """What limited (or might have limited) a row: a component in a scope, with its rows.
+
+    Attributes:
+        component: the caller's key of the component (None for the triangular limit).
+        scope: alone, group, compression, triangular or component.
+        first: the row alone, the group's first row, or the row above for the triangular limit.
+        last: the group's last row (the row itself otherwise).
+    """
+
+    component: Hashable | None
+    scope: LimitScope
+    first: int = 0
+    last: int = 0
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -18,24 +47,24 @@ class RowResult:
         row: row number, 1 = farthest from the centre of compression.
         h_r: distance from the row to the centre of compression, mm.
         F_tr_Rd: effective tension resistance, N.
-        limited_by: the component (and rows) that set it, e.g. ``column flange (rows 1-2)``.
-        candidates: every limit considered, name -> N, for the calculation sheet.
+        limited_by: the limit that set it (None when not explained).
+        candidates: every limit considered with its value (N), in the order tried.
     """
 
     row: int
     h_r: float
-    F_tr_Rd: float  # noqa: N815
-    limited_by: str
-    candidates: dict
+    F_tr_Rd: float
+    limited_by: Limit | None = None
+    candidates: tuple[tuple[Limit, float], ...] = ()
 
 
 def distribute_tension(
     *,
     h: list[float],
-    alone: list[dict[str, float]],
-    groups: dict[tuple[int, int], dict[str, float]],
-    compression: dict[str, float],
-    F_t_Rd: float,  # noqa: N803
+    alone: list[dict[Hashable, float]],
+    groups: dict[tuple[int, int], dict[Hashable, float]],
+    compression: dict[Hashable, float],
+    F_t_Rd: float,
     explain: bool = True,
 ) -> list[RowResult]:
     """Effective tension resistance of each bolt row, row by row from the top.
@@ -49,44 +78,46 @@ def distribute_tension(
 
     Args:
         h: distance of each row to the centre of compression, mm, row 1 first.
-        alone: for each row, component name -> resistance of the row alone, N.
-        groups: (first, last) 1-based rows of a group -> component name -> group resistance.
-        compression: component name -> resistance of the compression side, N.
+        alone: for each row, component key -> resistance of the row alone, N.
+        groups: (first, last) 1-based rows of a group -> component key -> group resistance.
+        compression: component key -> resistance of the compression side, N.
         F_t_Rd: tension resistance of one bolt, N (for the 1.9 Ft,Rd rule).
-        explain: False skips naming every candidate (``limited_by`` and ``candidates`` stay
-            empty): the same numbers, faster, for resistances nobody reads row by row.
+        explain: False skips recording the limits (``limited_by`` None, no candidates): the
+            same numbers, faster, for resistances nobody reads row by row.
     """
     if not explain:
         return _distribute_numbers(h, alone, groups, compression, F_t_Rd)
     out: list[RowResult] = []
     taken: list[float] = []
     for r in range(1, len(h) + 1):
-        cands: dict[str, float] = {}
-        for name, f in alone[r - 1].items():
-            cands[f"{name} (row {r} alone)"] = f
+        cands: list[tuple[Limit, float]] = [
+            (Limit(key, LimitScope.ALONE, r, r), f) for key, f in alone[r - 1].items()
+        ]
         for (i, j), comps in groups.items():
             if j != r or i >= r:
                 continue
             above = sum(taken[i - 1 : r - 1])
-            for name, f in comps.items():
-                cands[f"{name} (rows {i}-{r})"] = f - above
+            cands += [(Limit(key, LimitScope.GROUP, i, r), f - above) for key, f in comps.items()]
         done = sum(taken)
-        for name, f in compression.items():
-            cands[f"{name} (compression side)"] = f - done
+        cands += [
+            (Limit(key, LimitScope.COMPRESSION, r, r), f - done) for key, f in compression.items()
+        ]
         for x, prev in enumerate(out, start=1):
             if prev.F_tr_Rd > 1.9 * F_t_Rd:
-                cands[f"triangular limit from row {x} (6.2.7.2(9))"] = (
-                    prev.F_tr_Rd * h[r - 1] / h[x - 1]
+                cands.append(
+                    (Limit(None, LimitScope.TRIANGULAR, x, r), prev.F_tr_Rd * h[r - 1] / h[x - 1])
                 )
-        name, f = min(cands.items(), key=lambda kv: kv[1])
+        limit, f = min(cands, key=lambda kv: kv[1])
         f = max(f, 0.0)
         taken.append(f)
-        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=name, candidates=cands))
+        out.append(
+            RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=limit, candidates=tuple(cands))
+        )
     return out
 
 
-def _distribute_numbers(h, alone, groups, compression, F_t_Rd) -> list[RowResult]:  # noqa: N803
-    """``distribute_tension`` without the names (same rules, same order)."""
+def _distribute_numbers(h, alone, groups, compression, F_t_Rd) -> list[RowResult]:
+    """``distribute_tension`` without the limits (same rules, same order)."""
     out: list[RowResult] = []
     taken: list[float] = []
     comp = list(compression.values())
@@ -103,11 +134,11 @@ def _distribute_numbers(h, alone, groups, compression, F_t_Rd) -> list[RowResult
                 best = min(best, prev.F_tr_Rd * h[r - 1] / h[x])
         f = max(best, 0.0)
         taken.append(f)
-        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by="", candidates={}))
+        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f))
     return out
 
 
-def M_j_Rd(rows: list[RowResult]) -> float:  # noqa: N802
+def M_j_Rd(rows: list[RowResult]) -> float:
     """Design moment resistance Mj,Rd = sum h_r F_tr,Rd (N mm).
 
     EN 1993-1-8:2005, 6.2.7.2(1), Eq. (6.25).
@@ -115,11 +146,11 @@ def M_j_Rd(rows: list[RowResult]) -> float:  # noqa: N802
     return sum(r.h_r * r.F_tr_Rd for r in rows)
 
 
-def M_N_interaction(  # noqa: N802
-    M_j_Ed: float,  # noqa: N803
-    M_j_Rd: float,  # noqa: N803
-    N_j_Ed: float,  # noqa: N803
-    N_j_Rd: float,  # noqa: N803
+def M_N_interaction(
+    M_j_Ed: float,
+    M_j_Rd: float,
+    N_j_Ed: float,
+    N_j_Rd: float,
 ) -> float:
     """Utilisation of a joint under bending and axial force, Mj,Ed/Mj,Rd + Nj,Ed/Nj,Rd.
 

@@ -24,10 +24,10 @@ class Parameters:
         kb_unbraced: the same for other frames.
     """
 
-    gamma_M0: float = 1.0  # noqa: N815 - the code's symbol
-    gamma_M1: float = 1.0  # noqa: N815
-    gamma_M2: float = 1.25  # noqa: N815
-    E: float = 210_000.0  # noqa: N815
+    gamma_M0: float = 1.0  # the code's symbol
+    gamma_M1: float = 1.0
+    gamma_M2: float = 1.25
+    E: float = 210_000.0
     k2: float = 0.9
     kb_braced: float = 8.0
     kb_unbraced: float = 25.0

@@ -13,7 +13,7 @@ from ifcjoint.ec3.params import RECOMMENDED, Parameters
 PSI = {"welded": 2.7, "bolted_end_plate": 2.7, "bolted_angle_flange_cleats": 3.1}
 
 
-def k1_web_panel(A_vc: float, beta: float, z: float) -> float:  # noqa: N803
+def k1_web_panel(A_vc: float, beta: float, z: float) -> float:
     """Column web panel in shear, unstiffened: k1 = 0.38 Avc / (beta z) (mm).
 
     EN 1993-1-8:2005, 6.3.2, Table 6.11 (infinite for a stiffened panel or beta = 0).
@@ -53,7 +53,7 @@ def k5_end_plate(l_eff: float, t_p: float, m: float) -> float:
     return 0.9 * l_eff * t_p**3 / m**3
 
 
-def k10_bolts(As: float, L_b: float) -> float:  # noqa: N803
+def k10_bolts(As: float, L_b: float) -> float:
     """Bolts in tension, one row of two bolts: k10 = 1.6 As / L_b (mm).
 
     EN 1993-1-8:2005, 6.3.2, Table 6.11 (L_b: grip + washers + half the head and nut).
@@ -81,7 +81,7 @@ def equivalent_lever_arm(k_eff: Sequence[float], h: Sequence[float]) -> tuple[fl
     return z, s1 / z
 
 
-def S_j_ini(z: float, ks: Sequence[float], params: Parameters = RECOMMENDED) -> float:  # noqa: N802
+def S_j_ini(z: float, ks: Sequence[float], params: Parameters = RECOMMENDED) -> float:
     """Initial rotational stiffness Sj,ini = E z^2 / sum(1 / k_i) (N mm / rad).
 
     EN 1993-1-8:2005, 6.3.1(4), Eq. (6.27) with mu = 1.
@@ -90,7 +90,7 @@ def S_j_ini(z: float, ks: Sequence[float], params: Parameters = RECOMMENDED) -> 
     return params.E * z * z / flex if flex > 0 else float("inf")
 
 
-def stiffness_ratio_mu(M_j_Ed: float, M_j_Rd: float, joint: str = "bolted_end_plate") -> float:  # noqa: N803
+def stiffness_ratio_mu(M_j_Ed: float, M_j_Rd: float, joint: str = "bolted_end_plate") -> float:
     """Stiffness ratio mu = Sj,ini / Sj for a design moment Mj,Ed.
 
     EN 1993-1-8:2005, 6.3.1(6), Eqs. (6.28a)-(6.28b), Table 6.8: 1 for Mj,Ed <= 2/3 Mj,Rd,
@@ -106,7 +106,7 @@ def classify_stiffness(
     I_b: float,
     L_b: float,
     *,
-    braced: bool,  # noqa: N803
+    braced: bool,
     params: Parameters = RECOMMENDED,
 ) -> tuple[str, dict]:
     """Classification by stiffness: rigid, semi-rigid or nominally pinned.
@@ -134,7 +134,7 @@ def classify_strength(
     M_j_Rd_: float,
     M_pl_b_Rd: float,
     M_pl_c_Rd: float,
-    *,  # noqa: N803
+    *,
     column_continues_above: bool = True,
 ) -> tuple[str, float]:
     """Classification by strength: full-strength, partial-strength or nominally pinned.
@@ -157,7 +157,7 @@ def classify_strength(
 def m_phi_curve(
     M_j_Rd_: float,
     S_j_ini_: float,
-    joint: str = "bolted_end_plate",  # noqa: N803
+    joint: str = "bolted_end_plate",
     n: int = 24,
 ) -> list[tuple[float, float]]:
     """Design moment-rotation curve as (phi in rad, M in N mm) points.

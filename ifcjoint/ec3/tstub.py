@@ -25,16 +25,16 @@ class TStubResult:
         inputs: the values used.
     """
 
-    F_T_1_Rd: float  # noqa: N815
-    F_T_2_Rd: float  # noqa: N815
-    F_T_3_Rd: float  # noqa: N815
-    F_T_Rd: float  # noqa: N815
+    F_T_1_Rd: float
+    F_T_2_Rd: float
+    F_T_3_Rd: float
+    F_T_Rd: float
     mode: str
     prying: bool
     inputs: dict
 
 
-def M_pl_Rd(l_eff: float, tf: float, fy: float, params: Parameters = RECOMMENDED) -> float:  # noqa: N802
+def M_pl_Rd(l_eff: float, tf: float, fy: float, params: Parameters = RECOMMENDED) -> float:
     """Plastic moment of the T-stub flange Mpl,Rd = 0.25 l_eff tf^2 fy / gamma_M0 (N mm).
 
     EN 1993-1-8:2005, 6.2.4, Table 6.2 (Mpl,1,Rd with l_eff,1, Mpl,2,Rd with l_eff,2).
@@ -60,7 +60,7 @@ def n_distance(e_min: float, m: float) -> float:
     return min(e_min, 1.25 * m)
 
 
-def L_b_star(m: float, As: float, n_b: int, l_eff_1: float, tf: float) -> float:  # noqa: N802, N803
+def L_b_star(m: float, As: float, n_b: int, l_eff_1: float, tf: float) -> float:
     """Bolt elongation length limit for prying, Lb* = 8.8 m^3 As nb / (sum l_eff,1 tf^3) (mm).
 
     EN 1993-1-8:2005, 6.2.4, Table 6.2 (prying forces may develop when Lb <= Lb*).
@@ -76,10 +76,10 @@ def t_stub(
     fy: float,
     m: float,
     e_min: float,
-    sum_F_t_Rd: float,  # noqa: N803
+    sum_F_t_Rd: float,
     e_w: float | None = None,
-    L_b: float | None = None,  # noqa: N803
-    As: float | None = None,  # noqa: N803
+    L_b: float | None = None,
+    As: float | None = None,
     n_b: int = 2,
     params: Parameters = RECOMMENDED,
 ) -> TStubResult:

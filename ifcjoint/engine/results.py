@@ -1,99 +1,161 @@
-"""Result objects of a scan: one object for the whole model, rendered by every output."""
+"""What the check engine returns: data in N, mm, N mm, rad, with clauses and codes.
+
+No words and no display units here: the renderers (``ifcjoint.report``) turn these into the
+calculation sheet, the JSON and the property sets.
+"""
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
+from typing import Any
 
-from ifcjoint.engine.model import ModelContents, Unreadable, Vec3
-
-#: Kinds of beam ends that are not beam-to-column joints.
-OTHER_END_KINDS = (
-    "beam_to_beam",  # ends on the side of another beam (secondary beam, knee, apex)
-    "splice",  # meets the end of a collinear beam
-    "column_cap",  # sits on top of a column rather than against its side
-    "column_base",  # lands at the foot of a column
-    "haunch",  # a short member under another beam's end at the same column face
-    "free_end",  # touches no member within the tolerance (cantilever, wall bearing...)
-)
+from ifcjoint.ec3 import stiffness as stf
+from ifcjoint.ec3.code import Component
+from ifcjoint.ec3.moment_resistance import Limit, RowResult
+from ifcjoint.engine.inputs import JointInput
+from ifcjoint.model.codes import NotChecked, Note, StiffnessClass, StrengthClass
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
-class PartLink:
-    """Why a plate or fastener was attached to a joint."""
-
-    guid: str
-    source: str  # realizing | assembly | connects | geometry
-    role: str  # end_plate | fin_plate | column_plate | other_plate | bolt | weld | other_fastener
-
-
-@dataclass(frozen=True, slots=True, kw_only=True)
-class Joint:
-    """A beam end framing into the side of a column.
+class ComponentResult:
+    """One component's resistance (N), its clause and how it was found.
 
     Attributes:
-        id: stable id from the beam GlobalId and the end (survives re-export).
-        label: readable position: storey and grid cell, else storey and coordinates.
-        beam: beam GlobalId.
-        beam_end: ``start`` or ``end`` of the beam's centreline.
-        column: column GlobalId.
-        axis: ``major`` (beam meets a column flange) or ``minor`` (meets the web).
-        face: ``flange`` or ``web``.
-        side: ``+`` or ``-``: which face of the column (sign along its depth or width direction).
-        point: the point of the column face the beam centreline meets, mm.
-        gap: distance from the beam end to the column face along the beam, mm
-            (positive: the beam stops short; negative: it runs into the column).
-        partner: id of the joint of the beam on the opposite face at the same level, or None.
-        archetype: first guess (``end_plate``, ``welded``, ``fin_plate``, ``incomplete``,
-            ``unknown``), refined by the anatomy step.
-        archetype_reason: why, in words.
-        plates: plates attached, with the reason.
-        bolts: fasteners attached (bolts, welds, others: see each link's role), with the reason.
-        findings: detailing findings (filled by the anatomy/detailing step).
+        clause: the clause of EN 1993-1-8 that gives the resistance (``6.2.6.4``).
+        component: which component.
+        F_Rd: its design resistance, N.
+        mode: the governing T-stub mode, when it is one.
+        row: the bolt row, for a row alone.
+        rows: the rows of a group.
+        inputs: the values it was computed with (mm, MPa, N), by their symbols.
     """
 
-    id: str
-    label: str
-    beam: str
-    beam_end: str
-    column: str
-    axis: str
-    face: str
-    side: str
-    point: Vec3
-    gap: float
-    partner: str | None
-    archetype: str
-    archetype_reason: str
-    plates: tuple[PartLink, ...] = ()
-    bolts: tuple[PartLink, ...] = ()
-    findings: tuple[dict, ...] = ()
-    storey: str = ""
-    haunch_members: tuple[str, ...] = ()  # short members under the beam end read as a haunch
+    clause: str
+    component: Component
+    F_Rd: float
+    mode: str = ""
+    row: int | None = None
+    rows: tuple[int, ...] = ()
+    inputs: dict[str, Any] = field(default_factory=dict)
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
-class OtherBeamEnd:
-    """A beam end that is not a beam-to-column joint, and what it is instead."""
+class SideResult:
+    """Resistance and stiffness for one moment sign.
 
-    beam: str
-    beam_end: str
-    kind: str
-    other: str | None
-    point: Vec3
-    label: str = ""
+    Attributes:
+        sign: hogging (top in tension) or sagging (bottom in tension).
+        M_j_Rd: design moment resistance, N mm.
+        z: lever arm, mm (equivalent, 6.3.3.1).
+        rows: the effective tension resistance of each row.
+        components: every component resistance, in the order computed.
+        S_j_ini: initial rotational stiffness, N mm / rad.
+        governing: what limited the resistance.
+        F_t_half_Rd: tension of this half's rows with no compression limit, N (for Nj,Rd).
+        F_c_flange_Rd: compression resistance at this sign's compression flange, N.
+    """
+
+    sign: str
+    M_j_Rd: float
+    z: float
+    rows: tuple[RowResult, ...]
+    components: tuple[ComponentResult, ...]
+    S_j_ini: float
+    governing: Limit | None
+    F_t_half_Rd: float = 0.0
+    F_c_flange_Rd: float = 0.0
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
-class ScanResult:
-    """Everything one scan found, for every renderer."""
+class Classification:
+    """Classification by stiffness (5.2.2.5) and by strength (5.2.3.3), with the boundaries.
 
-    model: ModelContents
-    joints: tuple[Joint, ...]
-    other_beam_ends: tuple[OtherBeamEnd, ...]
-    settings: dict = field(default_factory=dict)
-    anatomy: dict = field(default_factory=dict)  # joint id -> JointAnatomy
+    A class that could not be decided is None, with the reason in ``stiffness_gap`` or
+    ``strength_gap``.
+    """
+
+    stiffness: StiffnessClass | None = None
+    stiffness_gap: NotChecked | None = None
+    kb: float | None = None
+    rigid_from: float | None = None  # N mm / rad
+    pinned_up_to: float | None = None  # N mm / rad
+    strength: StrengthClass | None = None
+    strength_sagging: StrengthClass | None = None
+    strength_gap: NotChecked | None = None
+    full_strength_from: float | None = None  # N mm
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class CheckResult:
+    """The joint check: both signs, shear, stiffness, classification, or why not checked.
+
+    Attributes:
+        not_checked: why the joint was not checked (None: checked).
+        hogging, sagging: the two moment signs.
+        V_j_Rd: shear resistance of the joint, N.
+        V_wp_Rd: shear resistance of the column web panel, N.
+        classification: stiffness and strength classes.
+        notes: how the result was obtained (assumptions, defaults), as codes.
+        input: the engine input used (None when no input could be built).
+        joint_kind: the joint type of EN 1993-1-8 Table 6.8 for the M-phi curve's psi.
+    """
+
+    not_checked: NotChecked | None = None
+    hogging: SideResult | None = None
+    sagging: SideResult | None = None
+    V_j_Rd: float | None = None
+    V_wp_Rd: float | None = None
+    classification: Classification | None = None
+    notes: tuple[Note, ...] = ()
+    input: JointInput | None = None
+    joint_kind: str = "bolted_end_plate"
 
     @property
-    def unreadable(self) -> tuple[Unreadable, ...]:
-        """Elements the reader skipped, with reasons."""
-        return self.model.unreadable
+    def checked(self) -> bool:
+        """True when the engine computed the joint's resistances."""
+        return self.not_checked is None
+
+    @property
+    def status(self) -> str:
+        """``checked`` or ``not_checked`` (the engine's own status, as the outputs name it)."""
+        return "checked" if self.checked else "not_checked"
+
+    def side(self, sign: str) -> SideResult | None:
+        """The result of one moment sign."""
+        return self.hogging if sign == "hogging" else self.sagging
+
+    @property
+    def N_j_Rd_tension(self) -> float | None:
+        """Axial tension resistance of the joint with no moment, N (for 6.2.7.1(3)).
+
+        Common practice, no source: every bolt row in tension, each half of the joint by the
+        row distribution of 6.2.7.2 without the compression-side limit (welded: the flange
+        tension components), both halves added.
+        """
+        if self.hogging is None or self.sagging is None:
+            return None
+        return self.hogging.F_t_half_Rd + self.sagging.F_t_half_Rd
+
+    @property
+    def N_j_Rd_compression(self) -> float | None:
+        """Axial compression resistance of the joint with no moment, N (for 6.2.7.1(3)).
+
+        Common practice, no source: both beam flanges bearing, each limited by the column web
+        in compression and the beam flange and web in compression at that flange.
+        """
+        if self.hogging is None or self.sagging is None:
+            return None
+        return self.hogging.F_c_flange_Rd + self.sagging.F_c_flange_Rd
+
+    def m_phi(self, sign: str = "hogging") -> list[tuple[float, float]]:
+        """Design M-phi curve (rad, N mm) for one sign, EN 1993-1-8 6.3.1(4)."""
+        side = self.side(sign)
+        if side is None or side.S_j_ini <= 0 or not math.isfinite(side.S_j_ini):
+            return []
+        return stf.m_phi_curve(side.M_j_Rd, side.S_j_ini, self.joint_kind)
+
+
+def not_checked(reason: NotChecked, inp: JointInput | None = None) -> CheckResult:
+    """A result that says why the joint was not checked (never a pass)."""
+    return CheckResult(not_checked=reason, input=inp)

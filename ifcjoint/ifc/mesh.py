@@ -42,7 +42,7 @@ def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float)
     try:
         it = ifcopenshell.geom.iterator(settings, model, threads, include=elements)
         ok = it.initialize()
-    except Exception:  # noqa: BLE001 - fall back to one element at a time
+    except Exception:  # fall back to one element at a time
         ok = False
     if ok:
         while True:
@@ -65,7 +65,7 @@ def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float)
                 yield el, None, None, "body has no triangles"
             else:
                 yield el, v, f, None
-        except Exception as exc:  # noqa: BLE001 - the kernel raises many kinds
+        except Exception as exc:  # the kernel raises many kinds
             yield el, None, None, f"geometry kernel could not process the body: {exc}"
 
 

@@ -13,6 +13,7 @@ from importlib import resources
 from pathlib import Path
 
 from ifcjoint.errors import ConfigError
+from ifcjoint.model.codes import FastenerKind, SteelState
 
 
 @dataclass(frozen=True, slots=True)
@@ -22,7 +23,7 @@ class FastenerRule:
     classes: frozenset[str]
     fields: tuple[str, ...]
     pattern: re.Pattern[str]
-    kind: str
+    kind: FastenerKind
 
 
 @dataclass(frozen=True, slots=True)
@@ -55,19 +56,19 @@ class Rules:
         l0, l1 = self.bolt_shape_length
         return d0 <= diameter_mm <= d1 and l0 <= length_mm <= l1 and length_mm > diameter_mm
 
-    def steel_state(self, material: str, profile_type: str, profile_name: str) -> str:
-        """``steel``, ``non_steel`` or ``unknown`` from material and profile text."""
+    def steel_state(self, material: str, profile_type: str, profile_name: str) -> SteelState:
+        """Steel, not steel or unknown from material and profile text."""
         if material and any(p.search(material) for p in self.non_steel):
-            return "non_steel"
+            return SteelState.NON_STEEL
         if material and any(p.search(material) for p in self.steel_material):
-            return "steel"
+            return SteelState.STEEL
         if profile_type in self.steel_profile_types:
-            return "steel"
+            return SteelState.STEEL
         if profile_name and any(p.search(profile_name) for p in self.steel_profile_names):
-            return "steel"
-        return "unknown"
+            return SteelState.STEEL
+        return SteelState.UNKNOWN
 
-    def fastener_kind(self, ifc_class: str, texts: dict[str, str]) -> str | None:
+    def fastener_kind(self, ifc_class: str, texts: dict[str, str]) -> FastenerKind | None:
         """Kind of a fastener-like element, or None when no rule makes it a fastener."""
         for rule in self.fastener_rules:
             if ifc_class not in rule.classes:
@@ -77,9 +78,9 @@ class Rules:
                 if t and rule.pattern.search(t):
                     return rule.kind
         if ifc_class in self.default_bolt:
-            return "bolt"
+            return FastenerKind.BOLT
         if ifc_class in ("IfcFastener",):
-            return "other"
+            return FastenerKind.OTHER
         return None
 
     def is_plate(self, ifc_class: str, texts: dict[str, str]) -> bool:
@@ -97,6 +98,16 @@ def _compile(patterns: list[str], where: str) -> tuple[re.Pattern[str], ...]:
         except re.error as exc:
             raise ConfigError(f"{where}: bad pattern {p!r}: {exc}") from exc
     return tuple(out)
+
+
+def _fastener_kind(kind: object, where: str) -> FastenerKind:
+    try:
+        return FastenerKind(kind)
+    except ValueError:
+        kinds = ", ".join(k.value for k in FastenerKind)
+        raise ConfigError(
+            f"{where}: fastener rule kind {kind!r} is not one of {kinds}"
+        ) from None
 
 
 def _merge(base: dict, extra: dict) -> dict:
@@ -133,7 +144,8 @@ def load_rules(extra: str | Path | None = None) -> Rules:
     rules = []
     for r in f.get("rule", []):
         for pat in _compile([r["pattern"]], where):
-            rules.append(FastenerRule(frozenset(r["classes"]), tuple(r["fields"]), pat, r["kind"]))
+            kind = _fastener_kind(r.get("kind"), where)
+            rules.append(FastenerRule(frozenset(r["classes"]), tuple(r["fields"]), pat, kind))
     plate_pat = _compile([p["pattern"]], where)[0] if p.get("pattern") else None
     shape = f.get("bolt_shape", {})
     return Rules(

@@ -1,19 +1,18 @@
-"""Results written back into the model as property sets, to a new file.
+"""Property sets written into a copy of the model, to a new file.
 
-Each joint's beam gets one property set per checked end (``ifcjoint_JointAtStart`` /
-``ifcjoint_JointAtEnd``); an ``IfcElementAssembly`` that holds the joint's plates or bolts
-gets ``ifcjoint_Joint``. Values are typed: ``IfcRatioMeasure``, ``IfcTorqueMeasure`` for
-moments (the measure IFC's structural loads use for them), ``IfcForceMeasure``,
-``IfcRotationalStiffnessMeasure``, ``IfcLabel``; each carries its unit on the property (kN,
-kN m, kN m/rad), so the project's own units are left alone. Running again on our own output
-replaces these property sets (same GlobalIds, from uuid5), never duplicates them. The input
-file is never written unless asked for.
+Which sets and values come from the report layer (``ifcjoint.report.psets``); this module
+only writes them. Values are typed (``IfcRatioMeasure``, ``IfcTorqueMeasure`` for moments, the
+measure IFC's structural loads use for them, ``IfcForceMeasure``,
+``IfcRotationalStiffnessMeasure``, ``IfcLabel`` ...); each carries its unit on the property
+(kN, kN m, kN m/rad), so the project's own units are left alone. Running again on our own
+output replaces these property sets (same GlobalIds, from uuid5), never duplicates them. The
+input file is never written unless asked for.
 """
 
 from __future__ import annotations
 
 import os
-import uuid
+from dataclasses import dataclass
 from pathlib import Path
 
 import ifcopenshell
@@ -21,20 +20,43 @@ import ifcopenshell.api.pset
 import ifcopenshell.guid
 import ifcopenshell.util.element
 
-from ifcjoint.engine.problems import NAMESPACE
-from ifcjoint.ifc.reader import open_model
+from ifcjoint.errors import OutputError, UsageError
+from ifcjoint.ifc.open import open_model
+from ifcjoint.model.identity import stable_uuid
 
-PSET_PREFIX = "ifcjoint_"
-PSET_BEAM_END = {"start": "ifcjoint_JointAtStart", "end": "ifcjoint_JointAtEnd"}
-PSET_ASSEMBLY = "ifcjoint_Joint"
+#: One property: name, IFC value type, value, unit kind (moment, force, rot or None).
+Prop = tuple[str, str, object, str | None]
 
 
-class OutputError(Exception):
-    """The output model cannot be written where asked."""
+@dataclass(frozen=True, slots=True, kw_only=True)
+class PsetRequest:
+    """One property set to write on an element (and on the assembly holding its parts).
+
+    Attributes:
+        guid: GlobalId of the element that gets the set.
+        name: the property set's name (our own prefix, never ``Pset_``).
+        key: stable identity of the set (its GlobalIds derive from it).
+        values: the properties for IFC4 and later; ``props`` adapts them to the schema.
+        parts: GlobalIds of parts whose IfcElementAssembly also gets the set.
+        assembly_name: the set's name on that assembly, or empty for none.
+    """
+
+    guid: str
+    name: str
+    key: str
+    values: tuple[Prop, ...]
+    parts: tuple[str, ...] = ()
+    assembly_name: str = ""
+
+    def props(self, schema: str) -> list[Prop]:
+        """The properties in a schema's types (IFC2X3 has no IfcDateTime: a label)."""
+        if schema != "IFC2X3":
+            return list(self.values)
+        return [(n, "IfcLabel" if t == "IfcDateTime" else t, v, u) for n, t, v, u in self.values]
 
 
 def _gid(key: str) -> str:
-    return ifcopenshell.guid.compress(uuid.uuid5(NAMESPACE, key).hex)
+    return ifcopenshell.guid.compress(stable_uuid(key).hex)
 
 
 class _Units:
@@ -67,38 +89,6 @@ class _Units:
         return self.f.createIfcDerivedUnit(elems, unit_type, None)
 
 
-def _props(jc, mc, schema: str) -> list[tuple[str, str, object, str | None]]:
-    """(name, IFC type, value, unit kind) for one joint; None values are left out."""
-    j, g = jc.joint, jc.verdict.governing
-    res = jc.result.as_dict()
-    rr = res.get("resistance") or {}
-    cls = res.get("classification") or {}
-    date_type = "IfcLabel" if schema == "IFC2X3" else "IfcDateTime"
-    rows = [
-        ("JointId", "IfcIdentifier", j.id, None),
-        ("Label", "IfcLabel", j.label[:255], None),
-        ("Archetype", "IfcLabel", j.archetype, None),
-        ("Status", "IfcLabel", jc.status, None),
-        ("StatusReason", "IfcText", jc.verdict.reason or None, None),
-        ("MaxUtilisation", "IfcRatioMeasure", None if g is None else round(g.utilisation, 4), None),
-        ("GoverningCheck", "IfcLabel", None if g is None else g.name, None),
-        ("GoverningClause", "IfcLabel", None if g is None else f"EN 1993-1-8 {g.clause}", None),
-        ("GoverningCombination", "IfcLabel", None if g is None else g.combination, None),
-        ("MjRdHogging", "IfcTorqueMeasure", rr.get("Mj_Rd_hogging_kNm"), "moment"),
-        ("MjRdSagging", "IfcTorqueMeasure", rr.get("Mj_Rd_sagging_kNm"), "moment"),
-        ("VjRd", "IfcForceMeasure", rr.get("Vj_Rd_kN"), "force"),
-        ("SjIni", "IfcRotationalStiffnessMeasure", rr.get("Sj_ini_kNm_per_rad"), "rot"),
-        ("StiffnessClass", "IfcLabel", cls.get("stiffness"), None),
-        ("StrengthClass", "IfcLabel", cls.get("strength"), None),
-        ("FindingCount", "IfcInteger", len(j.findings), None),
-        ("ProblemCount", "IfcInteger", len(jc.problems), None),
-        ("ToolVersion", "IfcLabel", f"ifcjoint {mc.tool_version}", None),
-        ("CheckedOn", date_type, mc.created.isoformat(), None),
-        ("InputFingerprint", "IfcIdentifier", jc.fingerprint, None),
-    ]
-    return [r for r in rows if r[2] is not None and r[2] != ""]
-
-
 def _replace_pset(f, element, name: str, props, units: _Units, key: str) -> None:
     """Remove our earlier pset of that name on the element, then write it afresh."""
     for rel in list(getattr(element, "IsDefinedBy", None) or ()):
@@ -120,9 +110,9 @@ def _replace_pset(f, element, name: str, props, units: _Units, key: str) -> None
             rel.GlobalId = _gid(key + "/rel")
 
 
-def _assembly_of(f, jc):
-    """The IfcElementAssembly that holds the joint's plates or bolts, if any."""
-    for guid in [p.guid for p in jc.joint.plates] + [b.guid for b in jc.joint.bolts]:
+def _assembly_of(f, part_guids: tuple[str, ...]):
+    """The IfcElementAssembly that holds one of the parts, if any."""
+    for guid in part_guids:
         try:
             el = f.by_guid(guid)
         except RuntimeError:
@@ -135,18 +125,26 @@ def _assembly_of(f, jc):
     return None
 
 
-def write_results_ifc(mc, out_path: str | Path, *, in_place: bool = False) -> dict[str, int]:
-    """Write a copy of the model with every joint's results as property sets.
+def write_property_sets(
+    model_path: str | Path,
+    out_path: str | Path,
+    requests: list[PsetRequest],
+    *,
+    in_place: bool = False,
+) -> dict[str, int]:
+    """Write a copy of the model with the requested property sets.
 
-    Returns counts: ``beams`` and ``assemblies`` annotated, ``missing`` elements not found.
+    Returns counts: ``beams`` (elements annotated), ``assemblies`` annotated, ``missing``
+    elements not found in the model.
 
     Raises:
-        OutputError: the output path is the input (without ``in_place``) or cannot be written.
+        UsageError: the output path is the input (without ``in_place``).
+        OutputError: the output cannot be written.
     """
-    src = Path(mc.scan.model.path)
+    src = Path(model_path)
     out = Path(out_path)
     if out.resolve() == src.resolve() and not in_place:
-        raise OutputError(
+        raise UsageError(
             f"{out}: this is the input model; give another --ifc-out path (or --in-place to "
             "overwrite it on purpose)"
         )
@@ -154,20 +152,19 @@ def write_results_ifc(mc, out_path: str | Path, *, in_place: bool = False) -> di
     units = _Units(f)
     counts = {"beams": 0, "assemblies": 0, "missing": 0}
     seen_assemblies: set[str] = set()
-    for jc in mc.joints:
-        j = jc.joint
+    for req in requests:
         try:
-            beam = f.by_guid(j.beam)
+            element = f.by_guid(req.guid)
         except RuntimeError:
             counts["missing"] += 1
             continue
-        props = _props(jc, mc, f.schema)
-        _replace_pset(f, beam, PSET_BEAM_END[j.beam_end], props, units, f"{j.beam}/{j.beam_end}")
+        props = [p for p in req.props(f.schema) if p[2] is not None and p[2] != ""]
+        _replace_pset(f, element, req.name, props, units, req.key)
         counts["beams"] += 1
-        asm = _assembly_of(f, jc)
+        asm = _assembly_of(f, req.parts) if req.assembly_name else None
         if asm is not None and asm.GlobalId not in seen_assemblies:
             seen_assemblies.add(asm.GlobalId)
-            _replace_pset(f, asm, PSET_ASSEMBLY, props, units, f"{asm.GlobalId}/joint")
+            _replace_pset(f, asm, req.assembly_name, props, units, f"{asm.GlobalId}/joint")
             counts["assemblies"] += 1
     out.parent.mkdir(parents=True, exist_ok=True)
     zipped = out.suffix.lower() == ".ifczip"

@@ -14,10 +14,11 @@ import math
 from dataclasses import dataclass, field
 from pathlib import Path
 
-from ifcjoint.engine.demands import JOINT_MODELS, Demand
-from ifcjoint.engine.results import Joint
 from ifcjoint.errors import DemandsError
 from ifcjoint.fileio import atomic_write_text, safe_cell
+from ifcjoint.model.codes import JointModel
+from ifcjoint.model.demands import Demand
+from ifcjoint.model.joints import Joint
 
 #: column -> (base quantity, factor to N or N mm). Units are part of the name.
 NUMERIC_COLUMNS = {
@@ -134,6 +135,127 @@ def _header_problems(header: list[str]) -> list[str]:
     return problems
 
 
+def _decode(p: str, raw: bytes) -> str:
+    try:
+        return raw.decode("utf-8-sig")
+    except UnicodeDecodeError:
+        try:
+            return raw.decode("cp1252")
+        except UnicodeDecodeError as exc:
+            raise DemandsError(p, 0, "not a text file (expected UTF-8 CSV)") from exc
+
+
+class _RowError(ValueError):
+    """A row that cannot be used; the message says why."""
+
+
+@dataclass(slots=True)
+class _Reader:
+    """What every row is read against: the file, its format and the scan's joints."""
+
+    path: str
+    header: list[str]
+    delim: str
+    by_id: dict[str, Joint]
+    by_beam: dict[tuple[str, str], Joint]
+    seen: dict[tuple[str, str], int] = field(default_factory=dict)
+
+    @property
+    def decimal_comma(self) -> bool:
+        return self.delim == ";"
+
+    def joint_of(self, row: dict[str, str]) -> Joint:
+        """The joint a row names, by joint_id or by beam GlobalId and end."""
+        jid = row.get("joint_id", "")
+        bg, be = row.get("beam_guid", ""), row.get("beam_end", "").lower()
+        if jid:
+            joint = self.by_id.get(jid)
+            if joint is None:
+                raise _RowError(f"unknown joint_id {jid!r} (not a joint of this model's scan)")
+            if bg and (joint.beam != bg or (be and joint.beam_end != be)):
+                raise _RowError(
+                    f"joint_id {jid!r} is beam {joint.beam} {joint.beam_end}, but the row "
+                    f"says beam {bg} {be or '?'}"
+                )
+            return joint
+        if bg:
+            if be not in ("start", "end"):
+                raise _RowError(f"beam_end {row.get('beam_end', '')!r}: expected 'start' or 'end'")
+            joint = self.by_beam.get((bg, be))
+            if joint is None:
+                raise _RowError(f"no joint at the {be} of beam {bg!r} in this model")
+            return joint
+        raise _RowError("no joint_id and no beam_guid: the row names no joint")
+
+    def values(self, row: dict[str, str]) -> dict[str, float | None]:
+        """The numeric cells in N and N mm (empty cells None)."""
+        missing = [c for c in REQUIRED_VALUES if not row.get(c, "")]
+        if missing:
+            raise _RowError(f"missing required value(s): {', '.join(missing)}")
+        values: dict[str, float | None] = {}
+        bad = []
+        for col, (key, factor) in NUMERIC_COLUMNS.items():
+            cell = row.get(col, "")
+            if not cell:
+                values[key] = None
+                continue
+            try:
+                values[key] = _number(cell, self.decimal_comma) * factor
+            except ValueError:
+                bad.append(f"{col} = {cell!r} is not a number")
+        if bad:
+            raise _RowError("; ".join(bad))
+        return values
+
+    def demand(self, line: int, cells: list[str], table: DemandsTable) -> tuple[Joint, Demand]:
+        """One row as a demand on its joint; warnings go into the table."""
+        header = self.header
+        if len(cells) > len(header) and any(c.strip() for c in cells[len(header) :]):
+            raise _RowError(f"{len(cells)} cells but the header has {len(header)} columns")
+        row = {h: (cells[k].strip() if k < len(cells) else "") for k, h in enumerate(header)}
+        joint = self.joint_of(row)
+        values = self.values(row)
+        frame = row.get("frame", "").lower()
+        if frame not in ("", "braced", "unbraced"):
+            raise _RowError(f"frame {row['frame']!r}: expected 'braced' or 'unbraced'")
+        assumed = row.get("assumed_joint", "").lower().replace("semirigid", "semi-rigid")
+        models = tuple(m.value for m in JointModel)
+        if assumed not in ("", *models):
+            raise _RowError(f"assumed_joint {row['assumed_joint']!r}: expected one of {models}")
+        comb = row["combination"]
+        if (joint.id, comb) in self.seen:
+            raise _RowError(
+                f"joint {joint.id} ({joint.label}) has combination {comb!r} already on line "
+                f"{self.seen[(joint.id, comb)]}"
+            )
+        self.seen[(joint.id, comb)] = line
+        if values["M_other"] is not None and joint.partner is None:
+            table.problems.append(
+                DemandProblem(
+                    path=self.path,
+                    line=line,
+                    message=(
+                        f"M_Ed_other_side_kNm given but joint {joint.id} has no beam on the "
+                        "opposite face: ignored"
+                    ),
+                    severity="warning",
+                )
+            )
+            values["M_other"] = None
+        return joint, Demand(
+            combination=comb,
+            M_Ed=values["M_Ed"],
+            V_Ed=values["V_Ed"],
+            N_Ed=values["N_Ed"] or 0.0,
+            M_other=values["M_other"],
+            Vc_above=values["Vc_above"],
+            Vc_below=values["Vc_below"],
+            braced=None if not frame else frame == "braced",
+            assumed_joint=JointModel(assumed) if assumed else None,
+            source=f"{Path(self.path).name}:{line}",
+        )
+
+
 def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> DemandsTable:
     """Read a demands CSV against the joints of a scan.
 
@@ -149,27 +271,19 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
         raw = Path(path).read_bytes()
     except OSError as exc:
         raise DemandsError(p, 0, f"cannot read the file ({exc.strerror or exc})") from exc
-    try:
-        text = raw.decode("utf-8-sig")
-    except UnicodeDecodeError:
-        try:
-            text = raw.decode("cp1252")
-        except UnicodeDecodeError as exc:
-            raise DemandsError(p, 0, "not a text file (expected UTF-8 CSV)") from exc
-    lines = text.splitlines()
+    lines = _decode(p, raw).splitlines()
     numbered = [(i, ln) for i, ln in enumerate(lines, start=1) if ln.strip()]
     numbered = [(i, ln) for i, ln in numbered if not ln.lstrip().startswith("#")]
     if not numbered:
         raise DemandsError(p, 0, "no header line (expected a CSV with a header row)")
     head_line, head = numbered[0]
     delim = ";" if head.count(";") > head.count(",") else ","
-    decimal_comma = delim == ";"
     header = [h.strip() for h in next(csv.reader([head], delimiter=delim))]
     hp = _header_problems(header)
     if hp:
         raise DemandsError(p, head_line, "; ".join(hp))
-    unknown = [h for h in header if h not in (*NUMERIC_COLUMNS, *TEXT_COLUMNS, *INFO_COLUMNS)]
     table = DemandsTable(path=p)
+    unknown = [h for h in header if h not in (*NUMERIC_COLUMNS, *TEXT_COLUMNS, *INFO_COLUMNS)]
     if unknown:
         table.problems.append(
             DemandProblem(
@@ -179,111 +293,26 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
                 severity="warning",
             )
         )
-    by_id = {j.id: j for j in joints}
-    by_beam = {(j.beam, j.beam_end): j for j in joints}
-    seen: dict[tuple[str, str], int] = {}
+    rd = _Reader(
+        path=p,
+        header=header,
+        delim=delim,
+        by_id={j.id: j for j in joints},
+        by_beam={(j.beam, j.beam_end): j for j in joints},
+    )
     for line, text_line in numbered[1:]:
         cells = next(csv.reader([text_line], delimiter=delim), [])
         if not any(c.strip() for c in cells):
             continue  # a row of empty cells, as spreadsheets leave below the data
         table.rows_read += 1
-        row = {h: (cells[k].strip() if k < len(cells) else "") for k, h in enumerate(header)}
-
-        def reject(msg: str, line: int = line) -> None:
-            table.problems.append(DemandProblem(path=p, line=line, message=msg))
+        try:
+            joint, demand = rd.demand(line, cells, table)
+        except _RowError as exc:
+            table.problems.append(DemandProblem(path=p, line=line, message=str(exc)))
             table.rows_rejected += 1
-
-        if len(cells) > len(header) and any(c.strip() for c in cells[len(header) :]):
-            reject(f"{len(cells)} cells but the header has {len(header)} columns")
             continue
-        jid = row.get("joint_id", "")
-        bg, be = row.get("beam_guid", ""), row.get("beam_end", "").lower()
-        joint = None
-        if jid:
-            joint = by_id.get(jid)
-            if joint is None:
-                reject(f"unknown joint_id {jid!r} (not a joint of this model's scan)")
-                continue
-            if bg and (joint.beam != bg or (be and joint.beam_end != be)):
-                reject(
-                    f"joint_id {jid!r} is beam {joint.beam} {joint.beam_end}, but the row "
-                    f"says beam {bg} {be or '?'}"
-                )
-                continue
-        elif bg:
-            if be not in ("start", "end"):
-                reject(f"beam_end {row.get('beam_end', '')!r}: expected 'start' or 'end'")
-                continue
-            joint = by_beam.get((bg, be))
-            if joint is None:
-                reject(f"no joint at the {be} of beam {bg!r} in this model")
-                continue
-        else:
-            reject("no joint_id and no beam_guid: the row names no joint")
-            continue
-        missing = [c for c in REQUIRED_VALUES if not row.get(c, "")]
-        if missing:
-            reject(f"missing required value(s): {', '.join(missing)}")
-            continue
-        values: dict[str, float | None] = {}
-        bad = []
-        for col, (key, factor) in NUMERIC_COLUMNS.items():
-            cell = row.get(col, "")
-            if not cell:
-                values[key] = None
-                continue
-            try:
-                values[key] = _number(cell, decimal_comma) * factor
-            except ValueError:
-                bad.append(f"{col} = {cell!r} is not a number")
-        if bad:
-            reject("; ".join(bad))
-            continue
-        frame = row.get("frame", "").lower()
-        if frame not in ("", "braced", "unbraced"):
-            reject(f"frame {row['frame']!r}: expected 'braced' or 'unbraced'")
-            continue
-        assumed = row.get("assumed_joint", "").lower().replace("semirigid", "semi-rigid")
-        if assumed not in ("", *JOINT_MODELS):
-            reject(f"assumed_joint {row['assumed_joint']!r}: expected one of {JOINT_MODELS}")
-            continue
-        comb = row["combination"]
-        key2 = (joint.id, comb)
-        if key2 in seen:
-            reject(
-                f"joint {joint.id} ({joint.label}) has combination {comb!r} already on line "
-                f"{seen[key2]}"
-            )
-            continue
-        seen[key2] = line
-        if values["M_other"] is not None and joint.partner is None:
-            table.problems.append(
-                DemandProblem(
-                    path=p,
-                    line=line,
-                    message=(
-                        f"M_Ed_other_side_kNm given but joint {joint.id} has no beam on the "
-                        "opposite face: ignored"
-                    ),
-                    severity="warning",
-                )
-            )
-            values["M_other"] = None
-        table.by_joint.setdefault(joint.id, []).append(
-            Demand(
-                combination=comb,
-                M_Ed=values["M_Ed"],
-                V_Ed=values["V_Ed"],
-                N_Ed=values["N_Ed"] or 0.0,
-                M_other=values["M_other"],
-                Vc_above=values["Vc_above"],
-                Vc_below=values["Vc_below"],
-                braced=None if not frame else frame == "braced",
-                assumed_joint=assumed or None,
-                source=f"{Path(p).name}:{line}",
-            )
-        )
-    _pair_partners(table, by_id)
+        table.by_joint.setdefault(joint.id, []).append(demand)
+    _pair_partners(table, rd.by_id)
     return table
 
 

@@ -4,7 +4,12 @@ from __future__ import annotations
 
 import pytest
 
-from ifcjoint.ec3.moment_resistance import M_N_interaction, distribute_tension
+from ifcjoint.ec3.moment_resistance import (
+    Limit,
+    LimitScope,
+    M_N_interaction,
+    distribute_tension,
+)
 
 
 def test_m_n_interaction_by_hand():
@@ -21,7 +26,7 @@ def test_compression_side_limits_the_lower_rows():
     rows = distribute_tension(h=[500.0, 400.0], alone=[{"a": 300e3}, {"a": 250e3}], groups={},
                               compression={"web": 400e3}, F_t_Rd=1e9)
     assert [r.F_tr_Rd for r in rows] == [pytest.approx(300e3), pytest.approx(100e3)]
-    assert "compression" in rows[1].limited_by
+    assert rows[1].limited_by == Limit("web", LimitScope.COMPRESSION, 2, 2)
 
 
 def test_unnamed_distribution_gives_the_same_numbers():

@@ -13,7 +13,7 @@ from pathlib import Path
 import jsonschema
 import pytest
 
-from ifcjoint.outputs.scan import scan_to_dict
+from ifcjoint.report.scan import build_scan
 from tests.conftest import CORPUS, ROOT, corpus_files
 
 SCHEMA = json.loads((ROOT / "docs" / "scan-json.schema.json").read_text())
@@ -25,7 +25,7 @@ pytestmark = pytest.mark.skipif(not FILES, reason="../shared/ifc-corpus is not p
 @pytest.mark.parametrize("path", FILES, ids=lambda p: p.name)
 def test_corpus_file_scans_and_json_validates(path: Path, scan_cached):
     result = scan_cached(path)
-    data = scan_to_dict(result)
+    data = build_scan(result)
     jsonschema.validate(data, SCHEMA)
     # Every beam end is accounted for exactly once.
     beams = [m for m in result.model.members if m.kind == "beam" and m.steel != "non_steel"]

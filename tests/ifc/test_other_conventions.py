@@ -20,7 +20,7 @@ import ifcopenshell.api.unit
 import ifcopenshell.guid
 import pytest
 
-from ifcjoint.scanner import scan
+from ifcjoint.pipeline import scan
 
 TOP = 3500.0  # top of beam steel
 ROWS = (-50.0, 60.0, 160.0, 270.0)
@@ -229,7 +229,7 @@ def test_double_sided_extended_end_plate_joint(case, tmp_path):
         i = parts["beams"].index(beam)
         assert [p.guid for p in j.plates] == [parts["plates"][i].GlobalId]
         want = sorted(x.GlobalId for x in parts["bolts"][8 * i: 8 * i + 8])
-        assert sorted(x.guid for x in j.bolts if x.role == "bolt") == want
+        assert sorted(x.guid for x in j.fasteners if x.role == "bolt") == want
         an = r.anatomy[j.id]
         assert an.plate.tp == pytest.approx(20.0, abs=0.1)
         assert an.plate.bp == pytest.approx(200.0, abs=0.1)

@@ -7,7 +7,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from ifcjoint.engine.results import ScanResult
+from ifcjoint.model.joints import ScanResult
 
 #: Defects the generator plants -> the finding code that must flag them.
 DEFECT_CODES = {
@@ -94,8 +94,8 @@ def compare(result: ScanResult, truth: dict) -> Comparison:
         if j.axis != t["axis"]:
             cmp.wrong_axis.append(t["key"])
         plates = sorted(p.guid for p in j.plates)
-        bolts = sorted(b.guid for b in j.bolts if b.role == "bolt")
-        welds = sorted(b.guid for b in j.bolts if b.role == "weld")
+        bolts = sorted(b.guid for b in j.fasteners if b.role == "bolt")
+        welds = sorted(b.guid for b in j.fasteners if b.role == "weld")
         if plates != t["plates"] or bolts != t["bolts"] or welds != t["welds"]:
             cmp.wrong_parts.append(
                 (t["key"], {"plates": (len(plates), len(t["plates"])),
@@ -107,7 +107,7 @@ def compare(result: ScanResult, truth: dict) -> Comparison:
         expected = {DEFECT_CODES[d] for d in t["defects"]}
         if truth["options"].get("anonymous_fasteners") and t["bolts"]:
             expected.add("bolt_class_missing")  # the names say nothing of the class
-        got = {f["code"] for f in j.findings}
+        got = {f.code for f in j.findings}
         cmp.missed_defects += [(t["key"], c) for c in sorted(expected - got)]
         cmp.false_findings += [(t["key"], c) for c in sorted(got - expected)]
         want = None

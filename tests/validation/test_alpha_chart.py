@@ -21,9 +21,11 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
+from ifcjoint.ec3.code import Component
 from ifcjoint.ec3.effective_lengths import alpha_fig_6_11
-from ifcjoint.engine.check import check_end_plate_joint
-from tests.engine.test_check import p398
+from ifcjoint.engine.end_plate import check_end_plate_joint
+from ifcjoint.model.codes import NoteCode
+from tests.engine.test_end_plate import p398
 
 # Example C.1 row 2 (sheets 8-9): m1 = 38.6 mm (plate), e = 75 mm, m2 = 60 - 15.6 - 0.8 x 12
 M1, E, M2 = 38.6, 75.0, 60.0 - 15.6 - 0.8 * 12.0
@@ -56,10 +58,10 @@ def test_engine_uses_the_chart_when_asked():
     inp = p398(alpha=None, alpha_method="approximation")
     r = check_end_plate_joint(inp)
     row2 = [c for c in r.hogging.components
-            if c.name == "end plate in bending" and c.row == 2][0]
+            if c.component == Component.END_PLATE_BENDING and c.row == 2][0]
     assert row2.inputs["alpha"] == pytest.approx(7.5, rel=0.03)
     # Sheet 9: l_eff,nc = alpha m = 290 mm with alpha read as 7.5 (3 % for the reading)
     assert row2.inputs["l_eff_nc"] == pytest.approx(290, rel=0.03)
     cons = check_end_plate_joint(replace(inp, alpha_method="conservative"))
     assert r.hogging.M_j_Rd >= cons.hogging.M_j_Rd  # 4.45 is the chart's lowest value
-    assert any("representation of the chart" in n for n in r.notes)
+    assert any(n.code == NoteCode.ALPHA_APPROXIMATION for n in r.notes)

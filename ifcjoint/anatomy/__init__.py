@@ -1,0 +1,182 @@
+"""Joint anatomy: what each joint is made of, as read from the model, and its detailing findings.
+
+``analyse(joints, model)`` reads every joint in its own frame (``frame``): sections and grades,
+the main plate, the bolt rows (``read``), column stiffeners and web plates, parts ifcjoint does
+not handle; then checks the detailing against the rule table (``rules``, ``detailing``). No IFC.
+The archetype is decided from this reading by ``ifcjoint.archetypes``.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+
+from ifcjoint.anatomy.detailing import completeness, detailing
+from ifcjoint.anatomy.frame import joint_frame
+from ifcjoint.anatomy.read import (
+    BoltReading,
+    BoltRow,
+    PlateReading,
+    column_plates,
+    grade_of,
+    read_bolts,
+    read_plate,
+    section_of,
+    tstub_geometry,
+    unsupported_parts,
+)
+from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
+from ifcjoint.catalogue.sections import ISection
+from ifcjoint.model.codes import PartRole, UnsupportedPart
+from ifcjoint.model.elements import Fastener, Member, ModelContents, Plate
+from ifcjoint.model.joints import Finding, Joint
+
+__all__ = [
+    "TOUCH_TOLERANCE",
+    "AnatomySettings",
+    "BoltReading",
+    "BoltRow",
+    "JointAnatomy",
+    "PlateReading",
+    "analyse",
+    "analyse_joint",
+]
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class AnatomySettings:
+    """User choices for what the model does not say.
+
+    Attributes:
+        assume_steel_grade: grade used where a member or plate has none (e.g. ``S355``); every
+            use is reported as an assumption. None: a missing grade stays missing.
+        assume_bolt_class: bolt property class used where none is found (e.g. ``8.8``).
+    """
+
+    assume_steel_grade: str | None = None
+    assume_bolt_class: str | None = None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class JointAnatomy:
+    """What a joint is made of, as read from the model.
+
+    Attributes:
+        joint_id: the joint's id.
+        main_role: the role of the joint's main plate (end plate, fin plate), or None.
+        beam_section, column_section: the sections read (None: not read).
+        beam_grade, column_grade: steel grades read (or assumed by the user's setting).
+        plate: the main plate in the joint frame, or None.
+        bolts: the bolts, or None.
+        stiffeners: transverse column stiffeners (GlobalIds), with their depths below the
+            beam top in ``stiffener_depths``.
+        web_plates: supplementary web plates (GlobalIds).
+        unsupported: parts that make the joint a kind ifcjoint does not handle, with counts.
+        findings: detailing and data findings, in report order.
+        unread: what could not be read, in words.
+        assumed: what was assumed by the user's settings, in words.
+    """
+
+    joint_id: str
+    main_role: PartRole | None
+    beam_section: ISection | None
+    column_section: ISection | None
+    beam_grade: str | None
+    column_grade: str | None
+    plate: PlateReading | None
+    bolts: BoltReading | None
+    stiffeners: tuple[str, ...] = ()
+    web_plates: tuple[str, ...] = ()
+    stiffener_depths: tuple[float, ...] = ()
+    unsupported: tuple[tuple[UnsupportedPart, int], ...] = ()
+    findings: tuple[Finding, ...] = ()
+    unread: tuple[str, ...] = ()
+    assumed: tuple[str, ...] = ()
+
+
+def analyse(
+    result_joints: tuple[Joint, ...],
+    model: ModelContents,
+    settings: AnatomySettings | None = None,
+) -> tuple[JointAnatomy, ...]:
+    """Anatomy and detailing findings of every joint."""
+    members = {m.guid: m for m in model.members}
+    plates = {p.guid: p for p in model.plates}
+    fasteners = {f.guid: f for f in model.fasteners}
+    st = settings or AnatomySettings()
+    return tuple(analyse_joint(j, members, plates, fasteners, st) for j in result_joints)
+
+
+def _grade(m: Member, who: str, st: AnatomySettings, findings, assumed) -> str | None:
+    """A member's grade; the user's assumption (reported) or a finding when there is none."""
+    g = grade_of(m.material, m.texts)
+    if g is None and st.assume_steel_grade:
+        assumed.append(f"{who} grade {st.assume_steel_grade} (user setting; none in model)")
+        return st.assume_steel_grade
+    if g is None:
+        findings.append(
+            RULES["grade_missing"].finding(elements=(m.guid,), who=who, material=m.material)
+        )
+    return g
+
+
+def _main_role(j: Joint) -> PartRole | None:
+    roles = {p.role for p in j.plates}
+    for role in (PartRole.END_PLATE, PartRole.FIN_PLATE):
+        if role in roles:
+            return role
+    return None
+
+
+def analyse_joint(
+    j: Joint,
+    members: dict[str, Member],
+    plates: dict[str, Plate],
+    fasteners: dict[str, Fastener],
+    settings: AnatomySettings | None = None,
+) -> JointAnatomy:
+    """Anatomy of one joint; never raises for bad data (it goes into ``unread``)."""
+    st = settings or AnatomySettings()
+    findings: list[Finding] = []
+    unread: list[str] = []
+    assumed: list[str] = []
+    beam, col = members[j.beam], members[j.column]
+    fr = joint_frame(j, beam, col)
+    bsec = section_of(beam, findings, unread, "beam")
+    csec = section_of(col, findings, unread, "column")
+    bgrade = _grade(beam, "beam", st, findings, assumed)
+    cgrade = _grade(col, "column", st, findings, assumed)
+    stiff, web_plates, depths = column_plates(j, fr, plates, col)
+    role = _main_role(j)
+    main = None
+    if role is not None:
+        cands = [plates[p.guid] for p in j.plates if p.role == role]
+        main = max(cands, key=lambda p: p.half_u * p.half_v)
+    bolt_list = [fasteners[b.guid] for b in j.fasteners if b.role == PartRole.BOLT]
+    plate_r = read_plate(main, role, fr) if main is not None else None
+    bolt_r = None
+    if bolt_list:
+        bolt_r = read_bolts(
+            bolt_list, fr, main, findings, unread, st.assume_bolt_class, assumed
+        )
+    if bolt_r is not None and plate_r is not None and role == PartRole.END_PLATE:
+        bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
+    if plate_r is not None and bolt_r is not None:
+        detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings)
+    completeness(j, plate_r, bolt_r, role, findings)
+    return JointAnatomy(
+        joint_id=j.id,
+        main_role=role,
+        beam_section=bsec,
+        column_section=csec,
+        beam_grade=bgrade,
+        column_grade=cgrade,
+        plate=plate_r,
+        bolts=bolt_r,
+        stiffeners=stiff,
+        web_plates=web_plates,
+        stiffener_depths=depths,
+        unsupported=unsupported_parts(j, fr, plates, col, bsec),
+        findings=tuple(findings),
+        unread=tuple(unread),
+        assumed=tuple(assumed),
+    )

@@ -1,0 +1,183 @@
+"""Detailing checks of a bolted plate: each measures, then asks the rule table.
+
+The order of the checks is the order of the findings in every output: completeness last.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from ifcjoint.anatomy.frame import JointFrame
+from ifcjoint.anatomy.read import BoltReading, PlateReading
+from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
+from ifcjoint.catalogue.sections import ISection
+from ifcjoint.ec3 import detailing as dt
+from ifcjoint.model.codes import Axis, PartRole
+from ifcjoint.model.elements import Fastener
+from ifcjoint.model.joints import Finding, Joint
+
+
+@dataclass(slots=True)
+class _Bolted:
+    """A bolted plate being checked: its reading, its bolts and the findings so far."""
+
+    j: Joint
+    fr: JointFrame
+    p: PlateReading
+    b: BoltReading
+    fs: list[Fastener]
+    csec: ISection | None
+    out: list[Finding]
+
+    @property
+    def ids(self) -> tuple[str, ...]:
+        return tuple(f.guid for f in self.fs)
+
+    def check(self, rule: str, measured: float, limit: float, elements, **detail) -> bool:
+        """Add the rule's finding when the value breaks it; True when it did."""
+        r = RULES[rule]
+        if r.broken(measured, limit):
+            self.out.append(r.finding(measured, limit, tuple(elements), **detail))
+            return True
+        return False
+
+
+def detailing(
+    j: Joint,
+    fr: JointFrame,
+    p: PlateReading,
+    b: BoltReading,
+    fs: list[Fastener],
+    csec: ISection | None,
+    out: list[Finding],
+) -> None:
+    """Detailing rules for a bolted plate (end or fin plate); each finding names its basis."""
+    if b.d0 is None:
+        return
+    c = _Bolted(j=j, fr=fr, p=p, b=b, fs=fs, csec=csec, out=out)
+    _plate_edges(c)
+    _spacings(c)
+    _hole_clearance(c)
+    _symmetry(c)
+    if p.role != PartRole.END_PLATE:
+        return
+    _plate_thickness(c)
+    if csec is None or j.axis != Axis.MAJOR:
+        return
+    _column_flange(c, csec)
+
+
+def _plate_edges(c: _Bolted) -> None:
+    """End and edge distances on the plate (EN 1993-1-8 Table 3.3), bolts inside the outline."""
+    p, b, d0 = c.p, c.b, c.b.d0
+    emin = dt.e_min(d0)
+    vertical_load = p.role == PartRole.FIN_PLATE  # shear goes down the plate
+    e_top = b.rows[0].from_beam_top - p.top_from_beam_top
+    e_bot = p.bottom_from_beam_top - b.rows[-1].from_beam_top
+    if p.role == PartRole.FIN_PLATE:
+        # edges across the load: the plate's ends along the beam
+        xs = [x for r in b.rows for x in r.along]
+        e_side = min(min(x - p.along_min, p.along_max - x) for x in xs)
+    else:
+        lats = [y - p.lateral_centre for r in b.rows for y in r.lateral]
+        e_side = min(p.bp / 2 - abs(y) for y in lats)
+    rule = "end_distance" if vertical_load else "edge_distance"
+    els = (p.guid, *c.ids)
+    c.check(rule, e_top, emin, els, edge="top", row=1)
+    c.check(rule, e_bot, emin, els, edge="bottom", row=len(b.rows))
+    if not c.check("bolt_outside_plate", e_side, d0 / 2, els, part="plate"):
+        c.check("edge_distance", e_side, emin, els, edge="side")
+
+
+def _spacings(c: _Bolted) -> None:
+    """Pitches between rows and the gauge (EN 1993-1-8 Table 3.3)."""
+    b, d0 = c.b, c.b.d0
+    for i, pitch in enumerate(b.pitches, start=1):
+        c.check("pitch_min", pitch, dt.p1_min(d0), c.ids, rows=(i, i + 1))
+        c.check("pitch_max", pitch, dt.p_max(c.p.tp), c.ids, rows=(i, i + 1))
+    if b.gauge is not None:
+        c.check("spacing_min", b.gauge, dt.p2_min(d0), c.ids)
+
+
+def _hole_clearance(c: _Bolted) -> None:
+    """Hole diameter against the bolt's (EN 1090-2 normal round holes)."""
+    d, hole = c.b.d, c.p.hole_d
+    if d is None or hole is None:
+        return
+    clearance = hole - d
+    want = dt.normal_hole_clearance(d)
+    rule = RULES["hole_clearance"]
+    if rule.outside(clearance, 0.5, want + 0.5):
+        c.out.append(rule.finding(clearance, want, (c.p.guid,), hole=hole, d=d))
+
+
+def _symmetry(c: _Bolted) -> None:
+    """Bolt rows symmetric about the beam web (the first row that is not is reported)."""
+    for r in c.b.rows:
+        ys = sorted(r.lateral)
+        if len(ys) >= 2 and c.check(
+            "bolt_pattern_asymmetric", abs(ys[0] + ys[-1]) / 2, 1.0, r.bolts, row=r.index
+        ):
+            break
+
+
+def _plate_thickness(c: _Bolted) -> None:
+    """End-plate thickness plausible for the bolt size (rule of thumb)."""
+    d, tp = c.b.d, c.p.tp
+    if d is None:
+        return
+    lo, hi = dt.plate_thickness_plausible(tp, d)
+    rule = RULES["plate_thickness"]
+    if rule.outside(tp, lo, hi):
+        c.out.append(rule.finding(tp, lo if tp < lo else hi, (c.p.guid,), d=d))
+
+
+def _column_flange(c: _Bolted, csec: ISection) -> None:
+    """The end plate on the column flange: width, bolts inside it, root radius, grip."""
+    p, b, j = c.p, c.b, c.j
+    d0, d = b.d0, b.d
+    emin = dt.e_min(d0)
+    c.check("plate_wider_than_column_flange", p.bp, csec.b, (p.guid, j.column))
+    col_lat = c.fr.column_lateral_offset()
+    ys_col = [y + col_lat for r in b.rows for y in r.lateral]
+    e_col = min(csec.b / 2 - abs(y) for y in ys_col)
+    els = (j.column, *c.ids)
+    if not c.check("bolt_outside_column_flange", e_col, d0 / 2, els, part="column_flange"):
+        c.check("column_edge_distance", e_col, emin, els)
+    if d is None:
+        return
+    clear = min(abs(y) for y in ys_col) - csec.tw / 2 - csec.r
+    if not c.check("hole_on_root_radius", clear, d0 / 2, els):
+        c.check("no_spanner_room", clear, dt.washer_half_width(d), els)
+    grip = p.tp + csec.tf  # the plies; a gap is a finding of its own
+    need = dt.required_bolt_length(grip, d)
+    rule = RULES["bolt_too_short"]
+    short = [f for f in c.fs if rule.broken(f.nominal_length or f.length, need)]
+    if short:
+        ln = min(f.nominal_length or f.length for f in short)
+        elements = tuple(f.guid for f in short)
+        c.out.append(rule.finding(ln, need, elements, count=len(short), grip=grip))
+
+
+def completeness(
+    j: Joint,
+    p: PlateReading | None,
+    b: BoltReading | None,
+    role: PartRole | None,
+    out: list[Finding],
+) -> None:
+    """Parts missing, and an end plate that does not bear on the column face."""
+    if role in (PartRole.END_PLATE, PartRole.FIN_PLATE) and b is None:
+        elements = tuple(x.guid for x in j.plates)
+        out.append(RULES["plate_without_bolts"].finding(elements=elements, role=role))
+    if role is None and b is not None:
+        elements = tuple(x.guid for x in j.fasteners)
+        out.append(RULES["bolts_without_plate"].finding(elements=elements))
+    if p is None or role != PartRole.END_PLATE:
+        return
+    els = (p.guid, j.column)
+    gap = p.gap_to_column
+    if RULES["gap_to_column"].broken(gap, TOUCH_TOLERANCE):
+        out.append(RULES["gap_to_column"].finding(gap, TOUCH_TOLERANCE, els))
+    if RULES["overlap_with_column"].broken(-gap, TOUCH_TOLERANCE):
+        out.append(RULES["overlap_with_column"].finding(-gap, TOUCH_TOLERANCE, els))

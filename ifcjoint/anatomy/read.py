@@ -1,0 +1,356 @@
+"""Reading a joint as a person looking at the model would: sections, grades, plate, bolts.
+
+Everything in the joint's frame (``frame``), in mm. What cannot be read goes into ``unread``
+with the reason; what is wrong becomes a finding from the rule table (``rules``).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from ifcjoint.anatomy.frame import JointFrame, unit
+from ifcjoint.anatomy.rules import RULES
+from ifcjoint.catalogue.materials import parse_bolt, parse_steel_grade
+from ifcjoint.catalogue.sections import (
+    ISection,
+    dimension_mismatch,
+    find_designation,
+    section_from_designation,
+)
+from ifcjoint.ec3 import detailing as dt
+from ifcjoint.model.codes import PartRole, UnsupportedPart
+from ifcjoint.model.elements import Fastener, Member, Plate
+from ifcjoint.model.joints import Finding, Joint
+
+ROW_TOLERANCE = 10.0  # mm: bolts closer than this in height form one row (common practice)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class BoltRow:
+    """A horizontal row of bolts, numbered from the top."""
+
+    index: int
+    from_beam_top: float
+    lateral: tuple[float, ...]
+    bolts: tuple[str, ...]
+    along: tuple[float, ...] = ()  # positions along the beam from the column face
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class PlateReading:
+    """The joint's main plate in the joint frame (mm)."""
+
+    guid: str
+    role: PartRole
+    tp: float
+    bp: float
+    hp: float
+    top_from_beam_top: float
+    bottom_from_beam_top: float
+    lateral_centre: float
+    along_min: float  # plate extent along the beam, from the column face (negative: beam side)
+    along_max: float
+    gap_to_column: float
+    hole_d: float | None
+    grade: str | None
+
+    @property
+    def projection_top(self) -> float:
+        """Plate edge above the top face of the beam's top flange (negative: below it)."""
+        return -self.top_from_beam_top
+
+    def projection_bottom(self, beam_h: float) -> float:
+        """Plate edge below the bottom face of the beam's bottom flange (negative: above)."""
+        return self.bottom_from_beam_top - beam_h
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class BoltReading:
+    """The joint's bolts: size, grade, rows, spacings (mm)."""
+
+    d: float | None
+    d_source: str
+    bolt_class: str | None
+    length: float | None
+    d0: float | None
+    d0_source: str
+    rows: tuple[BoltRow, ...]
+    gauge: float | None
+    pitches: tuple[float, ...]
+    tstub: dict | None = None  # T-stub geometry, see tstub_geometry()
+
+
+def section_of(m: Member, findings: list[Finding], unread: list[str], who: str) -> ISection | None:
+    """The member's section: model dimensions, checked against the named catalogue section."""
+    designation = find_designation(m.profile_name, *m.texts)
+    named = section_from_designation(designation) if designation else None
+    model = None
+    if m.web_thickness and m.flange_thickness:
+        model = ISection(
+            h=m.depth,
+            b=m.width,
+            tw=m.web_thickness,
+            tf=m.flange_thickness,
+            r=m.root_radius or 0.0,
+            name=designation or "",
+            source="profile"
+            if m.profile_type.startswith("IfcIShape")
+            else ("mesh" if m.geometry_source == "mesh" else "outline"),
+        )
+    if model is not None and named is not None:
+        diff = dimension_mismatch(model, named)
+        if diff:
+            worst = max(diff, key=lambda k: abs(diff[k][0] - diff[k][1]))
+            findings.append(
+                RULES["section_mismatch"].finding(
+                    diff[worst][0], diff[worst][1], (m.guid,), who=who, named=named.name, dim=worst
+                )
+            )
+        # keep the model's reading, with the catalogue's root radius when the model has none
+        if model.r == 0 and named.r:
+            model = ISection(
+                h=model.h,
+                b=model.b,
+                tw=model.tw,
+                tf=model.tf,
+                r=named.r,
+                name=named.name,
+                source=model.source + "+catalogue r",
+            )
+        return model
+    if named is not None:
+        if m.geometry_source == "mesh" and (abs(m.depth - named.h) > 0.1 * named.h):
+            unread.append(
+                f"{who}: named {named.name} but the body measures "
+                f"{m.depth:.0f} mm deep; catalogue section used"
+            )
+        return named
+    if model is not None:
+        return model
+    unread.append(
+        f"{who}: section not read (no parametric profile and no designation "
+        f"found in {', '.join(m.texts[:3]) or 'its names'})"
+    )
+    return None
+
+
+def grade_of(material: str, texts: tuple[str, ...]) -> str | None:
+    """Steel grade name (``S355``) from material and texts, or None."""
+    g = parse_steel_grade(material, *texts)
+    return g.grade if g else None
+
+
+def tstub_geometry(
+    p: PlateReading, b: BoltReading, csec: ISection | None
+) -> dict[str, float | None]:
+    """Geometric distances of the T-stubs (mm), in the notation of EN 1993-1-8.
+
+    EN 1993-1-8:2005, 6.2.6.4 Figure 6.8 (column flange: m = w/2 - tw/2 - 0.8 r,
+    e = (b - w)/2) and 6.2.6.5 Figure 6.10 (end plate: e = (bp - w)/2; extension: ex from
+    the top row to the plate's top edge, and the row's distance to the top face of the beam
+    flange, from which the check engine deducts 0.8 x the weld's leg to get mx). The weld
+    deductions need weld sizes, which models rarely carry: they are left to the check.
+    """
+    w = b.gauge
+    out: dict[str, float | None] = {"w": w}
+    if w is None:
+        return out
+    if csec is not None:
+        out["m_column"] = w / 2 - csec.tw / 2 - 0.8 * csec.r
+        out["e_column"] = (csec.b - w) / 2
+    out["e_plate"] = (p.bp - w) / 2
+    top = b.rows[0]
+    if top.from_beam_top < 0:
+        out["ex"] = top.from_beam_top - p.top_from_beam_top
+        out["row1_above_flange"] = -top.from_beam_top
+    return out
+
+
+def _plate_extent(p: Plate, axis: np.ndarray) -> float:
+    """Half extent of the plate's box along a direction."""
+    u, v, w = np.array(p.u_dir), np.array(p.v_dir), np.array(p.normal)
+    return (
+        abs(u.dot(axis)) * p.half_u
+        + abs(v.dot(axis)) * p.half_v
+        + abs(w.dot(axis)) * p.thickness / 2
+    )
+
+
+def read_plate(p: Plate, role: PartRole, fr: JointFrame) -> PlateReading:
+    """The joint's main plate in the joint frame."""
+    c = np.array(p.center)
+    hz = _plate_extent(p, fr.n)
+    hl = _plate_extent(p, fr.lat)
+    ht = _plate_extent(p, fr.t)
+    zc = float((fr.beam_top - c).dot(fr.n))  # plate centre below beam top
+    gap = float((fr.face - c).dot(fr.t)) - ht  # column face minus plate's column-side face
+    holes = [h[1] for h in p.holes]
+    grade = grade_of(p.material, p.texts)
+    return PlateReading(
+        guid=p.guid,
+        role=role,
+        tp=p.thickness,
+        bp=2 * hl,
+        hp=2 * hz,
+        top_from_beam_top=zc - hz,
+        bottom_from_beam_top=zc + hz,
+        lateral_centre=float((c - fr.face).dot(fr.lat)),
+        along_min=float((c - fr.face).dot(fr.t)) - ht,
+        along_max=float((c - fr.face).dot(fr.t)) + ht,
+        gap_to_column=gap,
+        hole_d=round(float(np.median(holes)), 2) if holes else None,
+        grade=grade,
+    )
+
+
+def bolt_size(fs: list[Fastener]) -> tuple[float | None, str, str | None, float | None]:
+    """Diameter (and where it came from), class and length of a group of bolts."""
+    ds, cls, lens, src = [], None, [], ""
+    for f in fs:
+        spec = parse_bolt(*f.texts)
+        if f.nominal_diameter:
+            ds.append(f.nominal_diameter)
+            src = src or "model attribute or property"
+        elif spec.d:
+            ds.append(spec.d)
+            src = src or "name"
+        elif f.diameter:
+            ds.append(round(f.diameter))
+            src = src or "body radius"
+        cls = cls or spec.bolt_class
+        lens.append(f.nominal_length or spec.length or f.length)
+    d = float(np.median(ds)) if ds else None
+    length = float(np.median(lens)) if lens else None
+    return d, src or "not found", cls, length
+
+
+def read_bolts(
+    fs: list[Fastener],
+    fr: JointFrame,
+    plate: Plate | None,
+    findings: list[Finding],
+    unread: list[str],
+    assume_bolt_class: str | None = None,
+    assumed: list[str] | None = None,
+) -> BoltReading:
+    """Size, class, rows, gauge and pitches of the joint's bolts, where they cross the plate."""
+    d, d_src, cls, length = bolt_size(fs)
+    if cls is None and assume_bolt_class:
+        cls = assume_bolt_class
+        if assumed is not None:
+            assumed.append(f"bolt class {cls} (user setting; none in model)")
+    elif cls is None:
+        findings.append(RULES["bolt_class_missing"].finding(elements=tuple(f.guid for f in fs)))
+    # Bolt positions where their axes cross the plate (or their centres).
+    pts = []
+    for f in fs:
+        # a bolt group exported as one element counts once per shank
+        centres = f.shanks or (f.center,)
+        for k, cc in enumerate(centres, start=1):
+            c = np.array(cc)
+            if plate is not None:
+                nrm = np.array(plate.normal)
+                ax = np.array(f.axis)
+                den = ax.dot(nrm)
+                if abs(den) > 0.5:
+                    c = c + ax * ((np.array(plate.center) - c).dot(nrm) / den)
+            z = float((fr.beam_top - c).dot(fr.n))
+            y = float((c - fr.face).dot(fr.lat))
+            x = float((c - fr.face).dot(fr.t))
+            pts.append((z, y, f"{f.guid}[{k}]" if f.shanks else f.guid, x))
+    pts.sort()
+    rows: list[list[tuple[float, float, str, float]]] = []
+    for z, y, g, x in pts:
+        if rows and abs(z - rows[-1][0][0]) <= ROW_TOLERANCE:
+            rows[-1].append((z, y, g, x))
+        else:
+            rows.append([(z, y, g, x)])
+    brows = []
+    for i, r in enumerate(rows, start=1):
+        r.sort(key=lambda q: (q[1], q[3]))
+        brows.append(
+            BoltRow(
+                index=i,
+                from_beam_top=float(np.mean([q[0] for q in r])),
+                lateral=tuple(q[1] for q in r),
+                bolts=tuple(q[2] for q in r),
+                along=tuple(q[3] for q in r),
+            )
+        )
+    gauges = [r.lateral[-1] - r.lateral[0] for r in brows if len(r.lateral) == 2]
+    gauge = float(np.median(gauges)) if gauges else None
+    pitches = tuple(
+        b.from_beam_top - a.from_beam_top for a, b in zip(brows, brows[1:], strict=False)
+    )
+    if plate is not None and plate.holes:
+        d0, d0_src = float(np.median([h[1] for h in plate.holes])), "model (plate holes)"
+    elif d is not None:
+        d0, d0_src = d + dt.normal_hole_clearance(d), "EN 1090-2 normal clearance (assumed)"
+    else:
+        d0, d0_src = None, "not found"
+    if d is None:
+        unread.append("bolt diameter not found (no attribute, property, name or body)")
+    return BoltReading(
+        d=d,
+        d_source=d_src,
+        bolt_class=cls,
+        length=length,
+        d0=d0,
+        d0_source=d0_src,
+        rows=tuple(brows),
+        gauge=gauge,
+        pitches=pitches,
+    )
+
+
+def column_plates(
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member
+) -> tuple[tuple[str, ...], tuple[str, ...], tuple[float, ...]]:
+    """Transverse stiffeners (with their depth below the beam top) and web plates of the column."""
+    stiff, web_plates, depths = [], [], []
+    axis = unit(np.subtract(col.end, col.start))
+    for link in j.plates:
+        if link.role != PartRole.COLUMN_PLATE:
+            continue
+        p = plates[link.guid]
+        if abs(np.dot(p.normal, axis)) > 0.9:
+            stiff.append(link.guid)
+            depths.append(fr.depth_below_top(p.center))
+        else:
+            web_plates.append(link.guid)
+    return tuple(sorted(stiff)), tuple(sorted(web_plates)), tuple(sorted(depths))
+
+
+def unsupported_parts(
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member, bsec: ISection | None
+) -> tuple[tuple[UnsupportedPart, int], ...]:
+    """Parts that make the joint a kind ifcjoint does not handle yet, with their counts.
+
+    A haunch (plates below the beam's bottom flange, not part of the end plate) and column
+    plates that are neither transverse stiffeners nor web plates (e.g. diagonal stiffeners).
+    """
+    out: list[tuple[UnsupportedPart, int]] = []
+    h = bsec.h if bsec else None
+    col_axis = unit(np.subtract(col.end, col.start))
+    haunch, diagonal = [], []
+    for link in j.plates:
+        p = plates[link.guid]
+        nrm = np.array(p.normal)
+        if link.role == PartRole.OTHER_PLATE and h is not None:
+            c = np.array(p.center)
+            below = fr.depth_below_top(c) - h
+            if below > 0:
+                haunch.append(p.guid)
+        if link.role in (PartRole.OTHER_PLATE, PartRole.COLUMN_PLATE):
+            a_col = abs(float(nrm.dot(col_axis)))
+            if 0.2 < a_col < 0.9:
+                diagonal.append(p.guid)
+    if haunch:
+        out.append((UnsupportedPart.HAUNCH_PLATES, len(haunch)))
+    if diagonal:
+        out.append((UnsupportedPart.INCLINED_STIFFENER, len(diagonal)))
+    if j.haunch_members:
+        out.append((UnsupportedPart.HAUNCH_MEMBERS, len(j.haunch_members)))
+    return tuple(out)

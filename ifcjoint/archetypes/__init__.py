@@ -1,0 +1,82 @@
+"""The archetype registry: one object per kind of joint, in the order they are tried.
+
+An archetype object (``base.JointType``) says how the kind is recognised from the joint's
+anatomy, builds the engine input, and runs the check. ``decide`` gives a joint its archetype
+once; ``check_joint`` checks it with its archetype's object. Adding an archetype is one module
+here and one line in ``REGISTRY`` (DEVELOPERS.md, "Adding an archetype").
+"""
+
+from __future__ import annotations
+
+from ifcjoint.anatomy import JointAnatomy
+from ifcjoint.archetypes.base import JointType
+from ifcjoint.archetypes.end_plate import EndPlateUnjudged, ExtendedEndPlate, FlushEndPlate
+from ifcjoint.archetypes.fin_plate import FinPlate
+from ifcjoint.archetypes.incomplete import Incomplete, Undetailed
+from ifcjoint.archetypes.unsupported import Unrecognised, Unsupported
+from ifcjoint.archetypes.welded import Welded
+from ifcjoint.engine.results import CheckResult, not_checked
+from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.model.codes import Archetype, NotChecked, NotCheckedCode, Reason, ReasonCode
+from ifcjoint.model.elements import Member
+from ifcjoint.model.joints import Joint
+
+#: Every archetype, in the order recognition tries them (the first that recognises wins).
+REGISTRY: tuple[JointType, ...] = (
+    Incomplete(),
+    ExtendedEndPlate(),
+    FlushEndPlate(),
+    EndPlateUnjudged(),
+    FinPlate(),
+    Welded(),
+    Undetailed(),
+)
+#: Tried before the registry: parts that no registered archetype checks.
+OVERRIDES: tuple[JointType, ...] = (Unsupported(),)
+
+_LEFT = Unrecognised()
+BY_ARCHETYPE: dict[Archetype, JointType] = {
+    t.archetype: t for t in (*REGISTRY, *OVERRIDES, _LEFT)
+}
+
+
+def decide(joint: Joint, a: JointAnatomy) -> tuple[Archetype, Reason]:
+    """A joint's archetype and the reason, decided once from its anatomy.
+
+    The registry's first match gives the joint's kind; a joint with parts no archetype checks
+    (an override) is reported as such, saying what it is otherwise.
+    """
+    base = next(
+        ((t.archetype, r) for t in REGISTRY if (r := t.recognise(joint, a)) is not None),
+        (Archetype.UNKNOWN, Reason(ReasonCode.NOT_DECIDED)),
+    )
+    for t in OVERRIDES:
+        r = t.recognise(joint, a)
+        if r is not None:
+            return t.archetype, Reason(r.code, {**r.values, "otherwise": base[0]})
+    return base
+
+
+def joint_type(archetype: Archetype) -> JointType:
+    """The registered object of an archetype."""
+    return BY_ARCHETYPE.get(archetype, _LEFT)
+
+
+def check_joint(
+    joint: Joint,
+    a: JointAnatomy | None,
+    members: dict[str, Member],
+    settings: CheckSettings | None = None,
+) -> CheckResult:
+    """Check one joint with its archetype's object, or say why it is not checked."""
+    if a is None:
+        return not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
+    st = settings or CheckSettings()
+    jt = joint_type(joint.archetype)
+    inp = jt.engine_input(joint, a, members, st)
+    if isinstance(inp, NotChecked):
+        return not_checked(inp)
+    return jt.check(inp, joint)
+
+
+__all__ = ["BY_ARCHETYPE", "REGISTRY", "JointType", "check_joint", "decide", "joint_type"]

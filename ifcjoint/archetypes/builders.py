@@ -1,0 +1,177 @@
+"""From a joint's anatomy (what the model says) to the check engine's input (N, mm, MPa).
+
+Everything the model does not give is either refused (a ``NotChecked`` with the reason) or
+taken from a documented default that is reported as assumed. No IFC here.
+"""
+
+from __future__ import annotations
+
+from ifcjoint.anatomy import JointAnatomy
+from ifcjoint.catalogue.materials import BOLT_CLASSES, steel_strengths
+from ifcjoint.catalogue.sections import ISection
+from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA, bolt_elongation_length
+from ifcjoint.ec3.components import BETA_W
+from ifcjoint.engine.inputs import (
+    BoltsInput,
+    EndPlateJointInput,
+    MemberInput,
+    PlateInput,
+    WeldedJointInput,
+    WeldsInput,
+)
+from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.model.codes import Axis, NotChecked, NotCheckedCode
+from ifcjoint.model.elements import Member
+from ifcjoint.model.joints import Joint
+
+
+def require_major_axis(joint: Joint) -> NotChecked | None:
+    """Why a joint on a column web cannot be checked (EN 1993-1-8 covers flange joints here)."""
+    if joint.axis != Axis.MAJOR:
+        return NotChecked(NotCheckedCode.MINOR_AXIS)
+    return None
+
+
+def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> float:
+    """Assumed throat of a double fillet weld joining a part of thickness t (mm)."""
+    if st.weld_throat_ratio is not None:
+        return round(st.weld_throat_ratio * t, 1)
+    bw = BETA_W.get(grade, 1.0)
+    a = t * fy * 3**0.5 * bw * st.params.gamma_M2 / (2 * fu)
+    return float(-(-a // 1))  # up to the whole mm
+
+
+def _assumed_welds(beam: MemberInput, st: CheckSettings) -> WeldsInput:
+    """Beam-to-plate (or -column) welds when the model has none: both flanges and the web."""
+    a_f = _throat(beam.tf, beam.grade, beam.fy, beam.fu, st)
+    a_w = _throat(beam.tw, beam.grade, beam.fy, beam.fu, st)
+    return WeldsInput(top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True)
+
+
+def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
+    # A rolled section's strength is read at its thickest element (the flange), as product
+    # certificates and the published worked examples do; common practice, no source.
+    fy, fu = steel_strengths(grade, max(sec.tf, sec.tw), basis=basis)
+    return MemberInput(
+        name=sec.name or m.name,
+        grade=grade,
+        h=sec.h,
+        b=sec.b,
+        tw=sec.tw,
+        tf=sec.tf,
+        r=sec.r,
+        fy=fy,
+        fu=fu,
+        welded=sec.r == 0,
+        span=m.length if span else None,
+        Iy=sec.Iy,
+        Wpl_y=sec.Wpl_y,
+    )
+
+
+def beam_and_column(
+    joint: Joint,
+    a: JointAnatomy,
+    members: dict[str, Member],
+    st: CheckSettings,
+    extra: tuple[tuple[str, object], ...] = (),
+) -> tuple[MemberInput, MemberInput] | NotChecked:
+    """Beam and column engine inputs, or why they cannot be made (axis, missing data)."""
+    minor = require_major_axis(joint)
+    if minor is not None:
+        return minor
+    required = (
+        ("beam section", a.beam_section),
+        ("column section", a.column_section),
+        ("beam grade", a.beam_grade),
+        ("column grade", a.column_grade),
+        *extra,
+    )
+    missing = [n for n, v in required if v is None]
+    if missing:
+        return NotChecked(NotCheckedCode.DATA_NOT_READ, {"missing": tuple(missing)})
+    try:
+        beam = _member(
+            members[joint.beam], a.beam_section, a.beam_grade, st.strength_basis, span=True
+        )
+        col = _member(
+            members[joint.column], a.column_section, a.column_grade, st.strength_basis, span=False
+        )
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    return beam, col
+
+
+def _shared_fields(a: JointAnatomy, beam: MemberInput, st: CheckSettings) -> dict:
+    """Fields both joint inputs take the same way: welds, factors, beta, column plates."""
+    return {
+        "welds": _assumed_welds(beam, st),
+        "params": st.params,
+        "beta": 1.0,
+        "braced": st.braced,
+        "stiffeners": a.stiffeners,
+        "supplementary_web_plates": a.web_plates,
+        "stiffener_depths": a.stiffener_depths,
+    }
+
+
+def end_plate_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> EndPlateJointInput | NotChecked:
+    """The engine input for a bolted end-plate joint, or the reason it cannot be checked."""
+    st = settings or CheckSettings()
+    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)))
+    if isinstance(members_in, NotChecked):
+        return members_in
+    beam, col = members_in
+    b, p = a.bolts, a.plate
+    if b.d is None or b.bolt_class is None or b.d0 is None or b.gauge is None:
+        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
+    if int(round(b.d)) not in TENSILE_STRESS_AREA:
+        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
+    if any(len(r.bolts) != 2 for r in b.rows):
+        return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
+    plate_grade = p.grade or a.beam_grade
+    try:
+        fy_p, fu_p = steel_strengths(plate_grade, p.tp, basis=st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    fub = BOLT_CLASSES[b.bolt_class][1]
+    return EndPlateJointInput(
+        column=col,
+        beam=beam,
+        plate=PlateInput(
+            grade=plate_grade,
+            tp=p.tp,
+            bp=p.bp,
+            hp=p.hp,
+            fy=fy_p,
+            fu=fu_p,
+            projection_top=p.projection_top,
+            projection_bottom=p.projection_bottom(a.beam_section.h),
+        ),
+        bolts=BoltsInput(
+            d=b.d,
+            grade=b.bolt_class,
+            fub=fub,
+            As=TENSILE_STRESS_AREA[int(round(b.d))],
+            d0=b.d0,
+            gauge=b.gauge,
+            rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
+            L_b=bolt_elongation_length(p.tp + a.column_section.tf, b.d),
+        ),
+        alpha_method=st.alpha_method,
+        **_shared_fields(a, beam, st),
+    )
+
+
+def welded_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> WeldedJointInput | NotChecked:
+    """The engine input for a beam welded to a column flange, or the reason it cannot be."""
+    st = settings or CheckSettings()
+    members_in = beam_and_column(joint, a, members, st)
+    if isinstance(members_in, NotChecked):
+        return members_in
+    beam, _col = members_in
+    return WeldedJointInput(column=members_in[1], beam=beam, **_shared_fields(a, beam, st))

@@ -1,0 +1,85 @@
+"""Bolted end plates on a column flange: extended, flush, and one whose extent is not known."""
+
+from __future__ import annotations
+
+from dataclasses import replace
+
+from ifcjoint.anatomy import JointAnatomy
+from ifcjoint.archetypes.base import JointType, end_plate_ready
+from ifcjoint.archetypes.builders import end_plate_input
+from ifcjoint.engine.end_plate import check_end_plate_joint
+from ifcjoint.engine.inputs import EndPlateJointInput
+from ifcjoint.engine.results import CheckResult
+from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.model.codes import Archetype, Note, NoteCode, Reason, ReasonCode
+from ifcjoint.model.elements import Member
+from ifcjoint.model.joints import Joint
+
+
+def _rows_outside(a: JointAnatomy) -> list:
+    h = a.beam_section.h
+    return [r for r in a.bolts.rows if r.from_beam_top < 0 or r.from_beam_top > h]
+
+
+class _CheckedEndPlate(JointType):
+    """An end plate checked by the component method (EN 1993-1-8 6.2.7, 6.3)."""
+
+    def engine_input(
+        self, joint: Joint, a: JointAnatomy, members: dict[str, Member], st: CheckSettings
+    ):
+        """The end-plate engine input (``builders.end_plate_input``)."""
+        return end_plate_input(joint, a, members, st)
+
+    def engine(self, inp: EndPlateJointInput) -> CheckResult:
+        """``check.end_plate.check_end_plate_joint``."""
+        return check_end_plate_joint(inp)
+
+    def check(self, inp: EndPlateJointInput, joint: Joint) -> CheckResult:
+        """The engine, with a note on beta until the demands give both sides' moments."""
+        r = check_end_plate_joint(inp)
+        if r.checked:
+            code = NoteCode.BETA_ONE_SINGLE_SIDED
+            if joint.partner:
+                code = NoteCode.BETA_ONE_UNTIL_DEMANDS
+            r = replace(r, notes=(*r.notes, Note(code)))
+        return r
+
+
+class ExtendedEndPlate(_CheckedEndPlate):
+    """An end plate with bolt rows above (or below) the beam's depth."""
+
+    archetype = Archetype.EXTENDED_END_PLATE
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """Bolt rows outside the beam depth."""
+        if not end_plate_ready(a) or a.beam_section is None:
+            return None
+        outside = _rows_outside(a)
+        if not outside:
+            return None
+        where = sorted({"above" if r.from_beam_top < 0 else "below" for r in outside})
+        return Reason(ReasonCode.ROWS_OUTSIDE, {"n": len(outside), "where": tuple(where)})
+
+
+class FlushEndPlate(_CheckedEndPlate):
+    """An end plate with every bolt row within the beam's depth."""
+
+    archetype = Archetype.FLUSH_END_PLATE
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """Every bolt row within the beam depth."""
+        if not end_plate_ready(a) or a.beam_section is None or _rows_outside(a):
+            return None
+        return Reason(ReasonCode.ROWS_WITHIN, {"n": len(a.bolts.rows)})
+
+
+class EndPlateUnjudged(JointType):
+    """An end plate with bolts on a beam whose depth is unknown: its extent cannot be judged."""
+
+    archetype = Archetype.END_PLATE
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """End plate and bolts, but no beam section."""
+        if end_plate_ready(a) and a.beam_section is None:
+            return Reason(ReasonCode.DEPTH_UNKNOWN)
+        return None

@@ -1,0 +1,40 @@
+"""A beam welded to a column flange: no plate, no bolts, the beam end on the face."""
+
+from __future__ import annotations
+
+from ifcjoint.anatomy import TOUCH_TOLERANCE, JointAnatomy
+from ifcjoint.archetypes.base import JointType, bare_beam_end
+from ifcjoint.archetypes.builders import welded_input
+from ifcjoint.engine.inputs import WeldedJointInput
+from ifcjoint.engine.results import CheckResult
+from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.engine.welded import check_welded_joint
+from ifcjoint.model.codes import Archetype, Reason, ReasonCode
+from ifcjoint.model.elements import Member
+from ifcjoint.model.joints import Joint
+
+
+class Welded(JointType):
+    """The beam end on the column face within the touch tolerance, nothing between."""
+
+    archetype = Archetype.WELDED
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """A bare beam end on the face."""
+        if bare_beam_end(a) and abs(joint.gap) <= TOUCH_TOLERANCE:
+            return Reason(ReasonCode.ON_FACE, {"gap": joint.gap})
+        return None
+
+    def engine_input(
+        self, joint: Joint, a: JointAnatomy, members: dict[str, Member], st: CheckSettings
+    ):
+        """The welded engine input (``builders.welded_input``)."""
+        return welded_input(joint, a, members, st)
+
+    def engine(self, inp: WeldedJointInput) -> CheckResult:
+        """``check.welded.check_welded_joint``."""
+        return check_welded_joint(inp)
+
+    def check(self, inp: WeldedJointInput, joint: Joint) -> CheckResult:
+        """The welded engine."""
+        return check_welded_joint(inp)

@@ -1,0 +1,157 @@
+"""The design-code object of EN 1993-1-8: clause references, NDPs, component names and symbols.
+
+A check result carries clauses as data (``Clause``) and components as codes (``Component``);
+renderers ask the design-code object how to cite a clause and what to call a component, so a
+second design code can live beside this one without touching them.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field, replace
+from enum import StrEnum
+
+from ifcjoint.ec3.params import RECOMMENDED, Parameters
+
+
+class Component(StrEnum):
+    """Basic joint components of EN 1993-1-8 6.2.6 (and the welds of 4.5) that ifcjoint uses."""
+
+    WEB_PANEL_SHEAR = "column_web_panel_shear"
+    WEB_PANEL_SHEAR_OVER_BETA = "column_web_panel_shear_over_beta"
+    COLUMN_WEB_COMPRESSION = "column_web_compression"
+    COLUMN_WEB_TENSION = "column_web_tension"
+    COLUMN_FLANGE_BENDING = "column_flange_bending"
+    END_PLATE_BENDING = "end_plate_bending"
+    BEAM_FLANGE_COMPRESSION = "beam_flange_web_compression"
+    BEAM_WEB_TENSION = "beam_web_tension"
+    BEAM_FLANGE_WELD = "beam_flange_weld"
+
+
+class Zone(StrEnum):
+    """Where a component sits, in the order an engineer checks by hand."""
+
+    TENSION = "tension zone"
+    COMPRESSION = "compression zone"
+    SHEAR = "shear zone"
+
+
+@dataclass(frozen=True, slots=True)
+class Clause:
+    """A clause of a design code as data: ``Clause("EN 1993-1-8", "6.2.6.4")``."""
+
+    code: str
+    ref: str
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class ComponentInfo:
+    """How the code names a component, its resistance formula and its zone."""
+
+    name: str
+    formula: str
+    zone: Zone = Zone.TENSION
+
+
+_T_STUB = (
+    "T-stub (Table 6.2): F_T,1,Rd = 4 M_pl,1,Rd / m (or the alternative with e_w), "
+    "F_T,2,Rd = (2 M_pl,2,Rd + n sum F_t,Rd) / (m + n), F_T,3,Rd = sum F_t,Rd; "
+    "M_pl,Rd = 0.25 sum l_eff t_f^2 f_y / gamma_M0"
+)
+
+#: EN 1993-1-8:2005 names of the components and the formulas the calculation sheet shows.
+COMPONENTS: dict[Component, ComponentInfo] = {
+    Component.WEB_PANEL_SHEAR: ComponentInfo(
+        name="column web panel in shear",
+        formula="V_wp,Rd = 0.9 f_y,wc A_vc / (sqrt(3) gamma_M0)",
+        zone=Zone.SHEAR,
+    ),
+    Component.WEB_PANEL_SHEAR_OVER_BETA: ComponentInfo(
+        name="column web panel in shear / beta", formula="V_wp,Rd / beta", zone=Zone.SHEAR
+    ),
+    Component.COLUMN_WEB_COMPRESSION: ComponentInfo(
+        name="column web in compression",
+        formula=(
+            "F_c,wc,Rd = omega k_wc b_eff,c,wc t_wc f_y,wc / gamma_M0, "
+            "at most omega k_wc rho b_eff,c,wc t_wc f_y,wc / gamma_M1"
+        ),
+        zone=Zone.COMPRESSION,
+    ),
+    Component.COLUMN_WEB_TENSION: ComponentInfo(
+        name="column web in tension", formula="F_t,wc,Rd = omega b_eff,t,wc t_wc f_y,wc / gamma_M0"
+    ),
+    Component.COLUMN_FLANGE_BENDING: ComponentInfo(
+        name="column flange in bending", formula=_T_STUB
+    ),
+    Component.END_PLATE_BENDING: ComponentInfo(
+        name="end plate in bending",
+        formula=(
+            "T-stub (Table 6.2) on the plate: modes 1, 2, 3 as for the column flange, with "
+            "l_eff of Table 6.6 and t_p, f_y,p"
+        ),
+    ),
+    Component.BEAM_FLANGE_COMPRESSION: ComponentInfo(
+        name="beam flange and web in compression",
+        formula="F_c,fb,Rd = M_c,Rd / (h - t_fb)",
+        zone=Zone.COMPRESSION,
+    ),
+    Component.BEAM_WEB_TENSION: ComponentInfo(
+        name="beam web in tension", formula="F_t,wb,Rd = b_eff,t,wb t_wb f_y,wb / gamma_M0"
+    ),
+    Component.BEAM_FLANGE_WELD: ComponentInfo(
+        name="beam flange weld",
+        formula="F_w,Rd = 2 a b_b f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
+    ),
+}
+
+#: Symbols of the joint properties, as EN 1993-1-8 prints them.
+SYMBOLS = {
+    "M_j_Rd": "Mj,Rd",
+    "V_j_Rd": "Vj,Rd",
+    "V_wp_Rd": "Vwp,Rd",
+    "V_wp_Ed": "Vwp,Ed",
+    "N_j_Rd": "Nj,Rd",
+    "S_j_ini": "Sj,ini",
+}
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class Eurocode3:
+    """EN 1993-1-8 as a design-code object: its name, NDPs, clauses, components and symbols.
+
+    Attributes:
+        name: the standard's designation, used to cite its clauses.
+        edition: the edition the formulas follow.
+        params: partial factors and other nationally determined parameters (recommended
+            values unless a National Annex file changed them).
+    """
+
+    name: str = "EN 1993-1-8"
+    edition: str = "2005"
+    params: Parameters = RECOMMENDED
+    components: dict[Component, ComponentInfo] = field(default_factory=lambda: dict(COMPONENTS))
+    symbols: dict[str, str] = field(default_factory=lambda: dict(SYMBOLS))
+
+    def clause(self, ref: str) -> Clause:
+        """A clause of this code as data."""
+        return Clause(self.name, ref)
+
+    def cite(self, ref: str | Clause) -> str:
+        """A clause as people cite it: ``EN 1993-1-8 6.2.7.2``."""
+        if isinstance(ref, Clause):
+            return f"{ref.code} {ref.ref}"
+        return f"{self.name} {ref}"
+
+    def component_name(self, component: Component | str) -> str:
+        """What the code calls a component (``column flange in bending``)."""
+        return self.components[Component(component)].name
+
+    def symbol(self, key: str) -> str:
+        """The printed symbol of a joint property (``M_j_Rd`` -> ``Mj,Rd``)."""
+        return self.symbols[key]
+
+    def with_params(self, params: Parameters) -> Eurocode3:
+        """The same code with other nationally determined parameters."""
+        return replace(self, params=params)
+
+
+EN_1993_1_8 = Eurocode3()

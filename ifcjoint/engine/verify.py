@@ -1,0 +1,302 @@
+"""Verification of a checked joint against its demands, one load combination at a time.
+
+The functions here take a joint's engine input and its demands, re-run the check for each
+combination where the demands change the input (the transformation parameter beta and the
+frame's bracing), and return utilisations with their clause, so every number can be traced.
+No IFC, no files, no words. Sign conventions are those of :mod:`ifcjoint.model.demands`.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable
+from dataclasses import dataclass, field, replace
+from typing import Any
+
+from ifcjoint.ec3 import components as cmp
+from ifcjoint.ec3.moment_resistance import M_N_interaction
+from ifcjoint.engine.inputs import JointInput
+from ifcjoint.engine.results import CheckResult, Classification
+from ifcjoint.model.codes import (
+    JointModel,
+    NotChecked,
+    NotCheckedCode,
+    Note,
+    NoteCode,
+    Status,
+    StiffnessClass,
+    Verification,
+)
+from ifcjoint.model.demands import Demand
+
+#: An engine: input in, result out (``check_end_plate_joint``, ``check_welded_joint`` ...).
+Engine = Callable[[Any], CheckResult]
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class Utilisation:
+    """One demand over one resistance, with the clause that gives the resistance.
+
+    Attributes:
+        verification: what is compared (moment, shear, web panel shear, bending and axial).
+        clause: the clause of the design code that gives the resistance.
+        demand: the demand's magnitude, N or N mm (the axial force for bending and axial).
+        resistance: the resistance, N or N mm (Nj,Rd for bending and axial).
+        utilisation: demand over resistance (the Eq. 6.24 sum for bending and axial).
+        combination: the load combination.
+        sense: hogging or sagging (moment), tension or compression (axial), else empty.
+        detail: values the words need (the governing limit, the lever arm ...).
+    """
+
+    verification: Verification
+    clause: str
+    demand: float
+    resistance: float
+    utilisation: float
+    combination: str
+    sense: str = ""
+    detail: dict[str, Any] = field(default_factory=dict)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class CombinationResult:
+    """The check of one joint for one load combination."""
+
+    demand: Demand
+    beta: float
+    result: CheckResult
+    utilisations: tuple[Utilisation, ...]
+    notes: tuple[Note, ...] = ()
+
+    @property
+    def governing(self) -> Utilisation | None:
+        """The highest utilisation of this combination."""
+        return max(self.utilisations, key=lambda u: u.utilisation, default=None)
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class Assumption:
+    """What the frame analysis assumed for the joint, against its stiffness class (5.2.2).
+
+    ``match`` is None when the joint could not be classified.
+    """
+
+    assumed: JointModel
+    classification: Classification | None
+    match: bool | None
+
+    @property
+    def computed(self) -> StiffnessClass | None:
+        """The joint's stiffness class, or None."""
+        return self.classification.stiffness if self.classification else None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class JointVerdict:
+    """A joint's status over all its combinations, and the assumption check."""
+
+    status: Status
+    reason: NotChecked | None = None
+    combinations: tuple[CombinationResult, ...] = ()
+    assumption: Assumption | None = None
+
+    @property
+    def governing(self) -> Utilisation | None:
+        """The highest utilisation over every combination."""
+        best = [c.governing for c in self.combinations if c.governing is not None]
+        return max(best, key=lambda u: u.utilisation, default=None)
+
+    @property
+    def governing_combination(self) -> CombinationResult | None:
+        """The combination holding the governing utilisation."""
+        g = self.governing
+        if g is None:
+            return None
+        return next(c for c in self.combinations if c.demand.combination == g.combination)
+
+
+def transformation_beta(demand: Demand, double_sided: bool) -> tuple[float, Note]:
+    """Transformation parameter beta of the column web panel for one combination.
+
+    EN 1993-1-8:2005, 5.3(7), Table 5.4 (approximate values); single-sided joints take 1.
+    With a beam on the other side whose moment is not given, 1 is kept for that side (the
+    value of a one-sided joint; for a balanced pair it is conservative, for opposed moments
+    it is not, so it is reported).
+    """
+    if not double_sided:
+        return 1.0, Note(NoteCode.BETA_TABLE_SINGLE_SIDED)
+    if demand.M_other is None:
+        return 1.0, Note(NoteCode.BETA_OTHER_SIDE_MISSING)
+    b = cmp.beta_from_moments(demand.M_Ed, demand.M_other)
+    return b, Note(NoteCode.BETA_FROM_MOMENTS, {"beta": b, "other_source": demand.other_source})
+
+
+def web_panel_shear(demand: Demand, z: float) -> tuple[float, Note | None]:
+    """Shear force in the column web panel Vwp,Ed for one combination, N (magnitude).
+
+    EN 1993-1-8:2005, 5.3(3), Eq. (5.3) with z the joint's lever arm (6.2.7). Moments in this
+    module's convention (hogging negative on each side), so two equal hogging moments balance.
+    Column shears not given are taken as zero, which is reported.
+    """
+    m2 = demand.M_other if demand.M_other is not None else 0.0
+    vc1 = demand.Vc_above if demand.Vc_above is not None else 0.0
+    vc2 = demand.Vc_below if demand.Vc_below is not None else 0.0
+    v = abs(cmp.V_wp_Ed(demand.M_Ed, m2, z, vc1, vc2))
+    note = None
+    if demand.Vc_above is None and demand.Vc_below is None:
+        note = Note(NoteCode.COLUMN_SHEARS_ZERO)
+    return v, note
+
+
+def _ratio(demand: float, resistance: float) -> float:
+    return float(demand / resistance) if resistance > 0 else float("inf")
+
+
+def _i_area(h: float, b: float, tw: float, tf: float, r: float) -> float:
+    """Gross area of an I section with root radii, mm2."""
+    return 2 * b * tf + (h - 2 * tf) * tw + (4 - 3.141592653589793) * r * r
+
+
+def verify_combination(
+    inp: JointInput,
+    demand: Demand,
+    *,
+    engine: Engine,
+    double_sided: bool,
+    braced_default: bool = True,
+    _cache: dict | None = None,
+) -> CombinationResult:
+    """Check a joint for one load combination.
+
+    EN 1993-1-8:2005: moment against Mj,Rd of the moment's sign (6.2.7.2), shear against
+    Vj,Rd (Table 3.4), web panel shear Vwp,Ed (5.3(3)) against Vwp,Rd (6.2.6.1), and the M-N
+    interaction (6.2.7.1(3)) when N_Ed exceeds 5 % of the beam's Npl,Rd (6.2.7.1(2)).
+    """
+    beta, beta_note = transformation_beta(demand, double_sided)
+    braced = braced_default if demand.braced is None else demand.braced
+    key = (beta, braced)
+    if _cache is not None and key in _cache:
+        r = _cache[key]
+    else:
+        r = engine(replace(inp, beta=beta, braced=braced))
+        if _cache is not None:
+            _cache[key] = r
+    if not r.checked:
+        return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
+    notes = [beta_note]
+    c = demand.combination
+    sign = "hogging" if demand.M_Ed < 0 else "sagging"
+    side = r.side(sign)
+    m_rd = side.M_j_Rd
+    us = [
+        Utilisation(
+            verification=Verification.MOMENT,
+            clause="6.2.7.2",
+            demand=abs(demand.M_Ed),
+            resistance=m_rd,
+            utilisation=_ratio(abs(demand.M_Ed), m_rd),
+            combination=c,
+            sense=sign,
+            detail={"governing": side.governing},
+        ),
+        Utilisation(
+            verification=Verification.SHEAR,
+            clause="Table 3.4",
+            demand=abs(demand.V_Ed),
+            resistance=r.V_j_Rd,
+            utilisation=_ratio(abs(demand.V_Ed), r.V_j_Rd),
+            combination=c,
+        ),
+    ]
+    v_wp, vnote = web_panel_shear(demand, side.z)
+    if vnote is not None:
+        notes.append(vnote)
+    us.append(
+        Utilisation(
+            verification=Verification.WEB_PANEL_SHEAR,
+            clause="6.2.6.1; 5.3(3)",
+            demand=v_wp,
+            resistance=r.V_wp_Rd,
+            utilisation=float(v_wp / r.V_wp_Rd),
+            combination=c,
+            detail={"z": side.z},
+        )
+    )
+    beam = inp.beam
+    area = _i_area(beam.h, beam.b, beam.tw, beam.tf, beam.r)
+    if cmp.axial_force_significant(demand.N_Ed, area, beam.fy, inp.params):
+        n_rd = r.N_j_Rd_tension if demand.N_Ed > 0 else r.N_j_Rd_compression
+        us.append(
+            Utilisation(
+                verification=Verification.BENDING_AND_AXIAL,
+                clause="6.2.7.1(3)",
+                demand=abs(demand.N_Ed),
+                resistance=n_rd,
+                utilisation=M_N_interaction(demand.M_Ed, m_rd, demand.N_Ed, n_rd),
+                combination=c,
+                sense="tension" if demand.N_Ed > 0 else "compression",
+            )
+        )
+    elif demand.N_Ed:
+        notes.append(Note(NoteCode.AXIAL_NEGLECTED))
+    return CombinationResult(
+        demand=demand, beta=beta, result=r, utilisations=tuple(us), notes=tuple(notes)
+    )
+
+
+def assumption_check(result: CheckResult, assumed: JointModel | None) -> Assumption | None:
+    """Compare what the analysis assumed with the stiffness class of the joint.
+
+    EN 1993-1-8:2005, 5.2.2.1 and 5.2.2.5: a joint may be modelled as rigid only when it
+    classifies as rigid, as pinned only when nominally pinned; a semi-rigid model is fine in
+    every case here as long as its stiffness is that of the joint (Sj,ini reported).
+    """
+    if not assumed:
+        return None
+    cls = result.classification
+    if cls is None or cls.stiffness is None:
+        return Assumption(assumed=assumed, classification=cls, match=None)
+    computed = {
+        StiffnessClass.RIGID: JointModel.RIGID,
+        StiffnessClass.SEMI_RIGID: JointModel.SEMI_RIGID,
+        StiffnessClass.PINNED: JointModel.PINNED,
+    }[cls.stiffness]
+    match = assumed == JointModel.SEMI_RIGID or assumed == computed
+    return Assumption(assumed=assumed, classification=cls, match=match)
+
+
+def verify_joint(
+    inp: JointInput,
+    demands: list[Demand],
+    *,
+    engine: Engine,
+    double_sided: bool,
+    braced_default: bool = True,
+) -> JointVerdict:
+    """Verify a checkable joint against every load combination; governing over all.
+
+    EN 1993-1-8:2005, 6.2.7, 6.2.6.1, Table 3.4, 6.2.7.1(3) per combination (see
+    ``verify_combination``) and 5.2.2 for the assumption check. No demands: not checked.
+    """
+    if not demands:
+        return JointVerdict(status=Status.NO_DEMANDS, reason=NotChecked(NotCheckedCode.NO_DEMANDS))
+    cache: dict = {}  # combinations with the same beta and bracing share one engine run
+    combos = tuple(
+        verify_combination(
+            inp,
+            d,
+            engine=engine,
+            double_sided=double_sided,
+            braced_default=braced_default,
+            _cache=cache,
+        )
+        for d in demands
+    )
+    bad = [c for c in combos if not c.result.checked]
+    if bad:
+        reason = bad[0].result.not_checked
+        return JointVerdict(status=reason.status, reason=reason, combinations=combos)
+    assumed = next((d.assumed_joint for d in demands if d.assumed_joint), None)
+    gov = max((c.governing for c in combos), key=lambda u: u.utilisation)
+    status = Status.FAIL if gov.utilisation > 1.0 else Status.PASS
+    assumption = assumption_check(combos[0].result, assumed)
+    return JointVerdict(status=status, combinations=combos, assumption=assumption)

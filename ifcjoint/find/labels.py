@@ -1,0 +1,59 @@
+"""Readable joint labels: storey and grid cell when the model has a grid, else coordinates."""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+
+from ifcjoint.find.frames import unit
+from ifcjoint.model.elements import Member, ModelContents
+
+
+class GridLabeller:
+    """Readable labels: storey and grid cell when the model has a grid, else coordinates."""
+
+    def __init__(self, model: ModelContents, snap: float = 500.0) -> None:
+        self.axes = list(model.grid_axes)
+        self.snap = snap
+        if self.axes:
+            self.p0 = np.array([a.p0 for a in self.axes])
+            d = np.array([a.p1 for a in self.axes]) - self.p0
+            self.d = unit(d)
+            self.fam = np.array([a.family for a in self.axes])
+            self.tags = [a.tag for a in self.axes]
+
+    def labels(
+        self, storeys: Sequence[str], points: np.ndarray, columns: Sequence[Member | None]
+    ) -> list[str]:
+        """Labels for many points at once (vectorised over points and grid lines)."""
+        p = np.asarray(points, dtype=float).reshape(-1, 3).copy()
+        has = np.array([c is not None for c in columns], dtype=bool)
+        if has.any():
+            cs = np.array([c.start if c is not None else (0, 0, 0) for c in columns], float)
+            ce = np.array([c.end if c is not None else (0, 0, 1) for c in columns], float)
+            w = unit(ce - cs)
+            proj = cs + w * ((p - cs) * w).sum(1, keepdims=True)
+            p[has] = proj[has]
+        wheres: list[str | None] = [None] * len(p)
+        if self.axes and len(p):
+            rel = p[:, None, :2] - self.p0[None, :, :]
+            dist = np.abs(rel[..., 0] * self.d[None, :, 1] - rel[..., 1] * self.d[None, :, 0])
+            fam_tags = []
+            for fam in ("U", "V", "W"):
+                cols = np.flatnonzero(self.fam == fam)
+                if not len(cols):
+                    continue
+                dd = dist[:, cols]
+                best = dd.argmin(1)
+                ok = dd[np.arange(len(p)), best] <= self.snap
+                fam_tags.append((cols[best], ok))
+            for i in range(len(p)):
+                parts = [self.tags[idx[i]] for idx, ok in fam_tags if ok[i]]
+                if len(parts) >= 2:
+                    wheres[i] = "/".join(parts)
+        out = []
+        for i, st in enumerate(storeys):
+            where = wheres[i] or f"({p[i, 0]:.0f}, {p[i, 1]:.0f}, {p[i, 2]:.0f})"
+            out.append(f"{st} {where}".strip() if st else where)
+        return out

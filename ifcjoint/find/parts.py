@@ -1,0 +1,291 @@
+"""Plates and fasteners attached to joints: by relationship first, then by geometry.
+
+Each joint has a zone around its beam end; a part is a candidate of the joints whose zone
+holds it (found with a shapely ``STRtree`` of the zones' plan boxes), and goes to the one its
+relationships name, else to the nearest.
+"""
+
+from __future__ import annotations
+
+import math
+from collections import defaultdict
+from dataclasses import dataclass
+
+import numpy as np
+import shapely
+
+from ifcjoint.find.frames import Frames, unit
+from ifcjoint.find.settings import FinderSettings
+from ifcjoint.model.codes import FastenerKind, LinkSource, PartRole
+from ifcjoint.model.elements import Member, ModelContents, Plate
+from ifcjoint.model.joints import PartLink
+
+#: The role of a fastener in its joint, by its kind.
+_FASTENER_ROLES = {FastenerKind.BOLT: PartRole.BOLT, FastenerKind.WELD: PartRole.WELD}
+
+
+@dataclass(slots=True)
+class _Zone:
+    k: int
+    origin: np.ndarray  # face point
+    t: np.ndarray  # along the beam, pointing into the column
+    n: np.ndarray  # beam depth direction, upwards
+    lat: np.ndarray  # across
+    half_n: float
+    half_l: float
+    back: float  # how far back along the beam the zone reaches
+    front: float  # how far into the column
+    beam_end: np.ndarray  # the beam's end point
+    margin: float  # how far beyond the beam depth the zone reaches
+    face_reach: float  # the distance segment stops this far past the column face
+
+
+def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
+    """One zone per joint, computed for all joints at once."""
+    if not joints:
+        return []
+    s = np.array([j["beam"].start for j in joints], dtype=float)
+    e = np.array([j["beam"].end for j in joints], dtype=float)
+    at_end = np.array([j["beam_end"] == "end" for j in joints])
+    t = unit(np.where(at_end[:, None], e - s, s - e))
+    n = np.array([j["beam"].depth_dir for j in joints], dtype=float)
+    n = unit(n - (n * t).sum(1, keepdims=True) * t)
+    n = np.where(n[:, 2:3] < 0, -n, n)
+    lat = np.cross(t, n)
+    origin = np.array([j["point"] for j in joints], dtype=float)
+    gap = np.array([j["gap"] for j in joints], dtype=float)
+    beam_end = origin - t * gap[:, None]
+    zones = []
+    for i, j in enumerate(joints):
+        beam: Member = j["beam"]
+        col: Member = j["column"]
+        col_extent = col.depth if j["axis"] == "major" else col.width
+        zones.append(
+            _Zone(
+                k=j["k"],
+                origin=origin[i],
+                t=t[i],
+                n=n[i],
+                lat=lat[i],
+                half_n=beam.depth / 2 + st.part_margin,
+                half_l=max(beam.width, col.width) / 2 + st.part_margin / 2,
+                back=st.part_margin,
+                front=col_extent + st.tolerance,
+                beam_end=beam_end[i],
+                margin=st.part_margin,
+                face_reach=st.tolerance,
+            )
+        )
+    return zones
+
+
+def _zone_boxes(zones: list[_Zone]) -> np.ndarray:
+    """Plan bounding boxes of the zones (shapely boxes), vectorised over zones."""
+    o = np.array([z.origin for z in zones])
+    t = np.array([z.t for z in zones])
+    n = np.array([z.n for z in zones])
+    lat = np.array([z.lat for z in zones])
+    a = np.array([[-z.back, z.front] for z in zones])
+    b = np.array([[-z.half_n, z.half_n] for z in zones])
+    c = np.array([[-z.half_l, z.half_l] for z in zones])
+    corners = [
+        o + a[:, i, None] * t + b[:, jj, None] * n + c[:, kk, None] * lat
+        for i in (0, 1)
+        for jj in (0, 1)
+        for kk in (0, 1)
+    ]
+    cc = np.stack(corners, axis=1)
+    lo, hi = cc[:, :, :2].min(1), cc[:, :, :2].max(1)
+    return shapely.box(lo[:, 0], lo[:, 1], hi[:, 0], hi[:, 1])
+
+
+def _in_zone(z: _Zone, p: np.ndarray) -> tuple[bool, float]:
+    """Whether a point lies in the joint's zone, and how far it is from the joint's axis.
+
+    The distance is measured to the beam's centreline segment running from ``back`` behind
+    the beam end to the column face, ignoring height within the beam depth: a part
+    beside the beam's web is closer to its own joint than to a joint around the corner.
+    """
+    d = p - z.origin
+    a, b, c = d.dot(z.t), d.dot(z.n), d.dot(z.lat)
+    inside = (-z.back <= a <= z.front) and abs(b) <= z.half_n and abs(c) <= z.half_l
+    a_out = max(-z.back - a, 0.0, a - z.face_reach)
+    b_out = max(abs(b) - (z.half_n - z.margin), 0.0)
+    return inside, float(math.sqrt(a_out * a_out + b_out * b_out + c * c))
+
+
+def _plate_role(z: _Zone, p: Plate, col_frames: Frames, ci: int, reach: float) -> PartRole:
+    """What a plate near a joint is, from its orientation and position.
+
+    Stiffener (normal along the column, inside its section) and web plate (parallel to the
+    web, inside the section) are ``column_plate``; a plate square to the beam at its end is an
+    ``end_plate``; a plate beside the beam web, within its depth, is a ``fin_plate``; anything
+    else (a haunch below the beam, an inclined stiffener) is an ``other_plate``.
+    """
+    nrm = np.array(p.normal)
+    c = np.array(p.center)
+    idx = np.array([ci])
+    loc = col_frames.local(idx, c[None, :])[0]
+    inside = (abs(loc[0]) < col_frames.half_b[ci] - 1) and (abs(loc[1]) < col_frames.half_h[ci] - 1)
+    along_col = abs(nrm.dot(col_frames.w[ci])) > 0.9
+    if inside and along_col:
+        return PartRole.COLUMN_PLATE
+    # At the beam's end, or at the column face when the beam is drawn into the column.
+    at_end = min(abs((c - z.beam_end).dot(z.t)), abs((c - z.origin).dot(z.t))) <= (
+        p.thickness / 2 + reach
+    )
+    if abs(nrm.dot(z.t)) > 0.9 and at_end:
+        return PartRole.END_PLATE
+    if inside and abs(nrm.dot(col_frames.u[ci])) > 0.9:
+        return PartRole.COLUMN_PLATE
+    below_beam = (c - z.origin).dot(z.n) < -(z.half_n - z.margin)
+    if abs(nrm.dot(z.lat)) > 0.9 and not below_beam:
+        return PartRole.FIN_PLATE
+    return PartRole.OTHER_PLATE
+
+
+def _bolt_through_plate(p: Plate, center: np.ndarray, axis: np.ndarray, length: float) -> bool:
+    """True when the bolt's axis crosses the plate inside its outline, within the bolt's length."""
+    nrm = np.array(p.normal)
+    denom = axis.dot(nrm)
+    if abs(denom) < 0.5:  # bolt axis must be roughly normal to the plate
+        return False
+    c = np.array(p.center)
+    s = (c - center).dot(nrm) / denom
+    if abs(s) > length / 2 + p.thickness:
+        return False
+    hit = center + s * axis - c
+    return (
+        abs(hit.dot(np.array(p.u_dir))) <= p.half_u and abs(hit.dot(np.array(p.v_dir))) <= p.half_v
+    )
+
+
+#: Candidate joint of a part: (joint key, inside its zone, distance to its axis).
+_Cand = tuple[int, bool, float]
+
+
+class _Matcher:
+    """The joints' zones in an STRtree, and the relationships of every part."""
+
+    _ORDER = {LinkSource.REALIZING: 0, LinkSource.ASSEMBLY: 1, LinkSource.CONNECTS: 2}
+
+    def __init__(self, model: ModelContents, joints: list[dict], st: FinderSettings) -> None:
+        self.zones = _zones(joints, st)
+        self.zone_by_k = {z.k: z for z in self.zones}
+        self.joint_by_k = {j["k"]: j for j in joints}
+        self.tree = shapely.STRtree(_zone_boxes(self.zones))
+        self.by_member: dict[str, list[int]] = defaultdict(list)
+        for j in joints:
+            self.by_member[j["beam"].guid].append(j["k"])
+            self.by_member[j["column"].guid].append(j["k"])
+        self.links: dict[str, list[tuple[LinkSource, set[str]]]] = defaultdict(list)
+        for lk in model.links:
+            self.links[lk.part].append((lk.source, set(lk.members)))
+        for v in self.links.values():
+            v.sort(key=lambda x: self._ORDER.get(x[0], 9))
+
+    def candidates(self, center: np.ndarray) -> list[_Cand]:
+        """Joints whose zone's plan box holds the point, with inside-ness and distance."""
+        out = []
+        for zi in self.tree.query(shapely.points(center[0], center[1])):
+            z = self.zones[int(zi)]
+            inside, dist = _in_zone(z, center)
+            out.append((z.k, inside, dist))
+        return out
+
+    def _names(self, k: int, members: set[str], both: bool) -> bool:
+        j = self.joint_by_k[k]
+        hits = (j["beam"].guid in members, j["column"].guid in members)
+        return all(hits) if both else any(hits)
+
+    def by_relation(self, guid: str, cands: list[_Cand]) -> tuple[list[int], LinkSource]:
+        """Joints named by the part's relations, strongest relation first."""
+        for source, members in self.links.get(guid, []):
+            named_any = {k for m in members for k in self.by_member.get(m, ())}
+            both = sorted(k for k in named_any if self._names(k, members, both=True))
+            if both and source in (LinkSource.REALIZING, LinkSource.CONNECTS):
+                return both, source
+            near = {k for k, inside, _ in cands if inside}
+            named = [k for k in near if self._names(k, members, both=False)]
+            if named:
+                return named, source
+        return [], LinkSource.GEOMETRY
+
+
+def attach_parts(
+    model: ModelContents, joints: list[dict], col_frames: Frames, st: FinderSettings
+) -> dict[int, tuple[tuple[PartLink, ...], tuple[PartLink, ...]]]:
+    """Attach plates and fasteners to joints: relations first, then geometry.
+
+    Order: IfcRelConnectsWithRealizingElements, IfcElementAssembly aggregation,
+    IfcRelConnectsElements, then geometry (plate near the beam end and column face; bolt whose
+    axis passes through an attached plate, or lying in the joint zone).
+    """
+    if not joints:
+        return {}
+    mt = _Matcher(model, joints, st)
+    plates_of: dict[int, list[PartLink]] = defaultdict(list)
+    for p in model.plates:
+        for k, link in _attach_plate(mt, p, col_frames, st):
+            plates_of[k].append(link)
+    plate_by_guid = {p.guid: p for p in model.plates}
+    bolts_of: dict[int, list[PartLink]] = defaultdict(list)
+    for f in model.fasteners:
+        hit = _attach_fastener(mt, f, plates_of, plate_by_guid)
+        if hit is not None:
+            bolts_of[hit[0]].append(hit[1])
+    out = {}
+    for j in joints:
+        k = j["k"]
+        out[k] = (
+            tuple(sorted(plates_of.get(k, []), key=lambda x: x.guid)),
+            tuple(sorted(bolts_of.get(k, []), key=lambda x: x.guid)),
+        )
+    return out
+
+
+def _attach_plate(
+    mt: _Matcher, p: Plate, col_frames: Frames, st: FinderSettings
+) -> list[tuple[int, PartLink]]:
+    """The joints a plate belongs to (several for a plate inside a shared column section)."""
+    cands = mt.candidates(np.array(p.center))
+    ks, source = mt.by_relation(p.guid, cands)
+    dist = {k: d for k, _, d in cands}
+    if not ks:
+        ks = [k for k, inside, _ in cands if inside]
+    if not ks:
+        return []
+    reach = st.tolerance + st.end_plate_allowance
+    roles = {
+        k: _plate_role(mt.zone_by_k[k], p, col_frames, mt.joint_by_k[k]["col_idx"], reach)
+        for k in ks
+    }
+    # A plate inside the column section (stiffener, web plate) serves every joint there.
+    shared = [k for k in ks if roles[k] == PartRole.COLUMN_PLATE]
+    chosen = shared if shared else [min(ks, key=lambda k: dist.get(k, 0.0))]
+    return [(k, PartLink(guid=p.guid, source=source, role=roles[k])) for k in chosen]
+
+
+def _attach_fastener(
+    mt: _Matcher, f, plates_of: dict[int, list[PartLink]], plate_by_guid: dict[str, Plate]
+) -> tuple[int, PartLink] | None:
+    """The joint a fastener belongs to: by relation, through an attached plate, or nearest."""
+    c, ax = np.array(f.center), np.array(f.axis)
+    cands = mt.candidates(c)
+    ks, source = mt.by_relation(f.guid, cands)
+    if not ks:
+        through = {
+            k
+            for k, _inside, _ in cands
+            for pl in plates_of.get(k, [])
+            if pl.role != PartRole.COLUMN_PLATE
+            and _bolt_through_plate(plate_by_guid[pl.guid], c, ax, f.length)
+        }
+        source = LinkSource.GEOMETRY
+        ks = sorted(through) if through else [k for k, inside, _ in cands if inside]
+    if not ks:
+        return None
+    dist = {k: d for k, _, d in cands}
+    k = min(ks, key=lambda kk: dist.get(kk, 0.0))
+    role = _FASTENER_ROLES.get(f.kind, PartRole.OTHER_FASTENER)
+    return k, PartLink(guid=f.guid, source=source, role=role)

@@ -1,0 +1,87 @@
+"""Opening a model file: .ifc or .ifczip, whole, of a supported schema.
+
+The header is checked before the parser sees the file, so a file that is not IFC, is
+truncated or is of another schema gets a message that says so.
+"""
+
+from __future__ import annotations
+
+import hashlib
+import re
+import tempfile
+import zipfile
+from pathlib import Path
+
+import ifcopenshell
+
+from ifcjoint.errors import ModelError
+
+SUPPORTED_SCHEMAS = ("IFC2X3", "IFC4", "IFC4X3")
+
+
+def _header(raw: bytes) -> str:
+    return raw[:8192].decode("latin-1", errors="replace")
+
+
+def open_model(path: str | Path) -> tuple[ifcopenshell.file, str]:
+    """Open an IFC-SPF file or an ifczip, checking it is whole and of a supported schema.
+
+    Returns:
+        The opened file and the SHA-256 of the bytes on disk.
+
+    Raises:
+        ModelError: missing, unreadable, not IFC, truncated, or an unsupported schema.
+    """
+    p = Path(path)
+    if not p.exists():
+        raise ModelError(str(path), "file not found")
+    if p.is_dir():
+        raise ModelError(str(path), "is a folder", "an .ifc or .ifczip file")
+    try:
+        raw = p.read_bytes()
+    except OSError as exc:
+        raise ModelError(str(path), f"cannot read the file: {exc.strerror}") from exc
+    sha = hashlib.sha256(raw).hexdigest()
+    with tempfile.TemporaryDirectory(prefix="ifcjoint-") as tmp:
+        spf = p
+        if raw[:4] == b"PK\x03\x04":
+            try:
+                with zipfile.ZipFile(p) as zf:
+                    names = [n for n in zf.namelist() if n.lower().endswith(".ifc")]
+                    if not names:
+                        raise ModelError(
+                            str(path),
+                            "zip archive holds no .ifc file",
+                            "an ifczip with one .ifc inside",
+                        )
+                    spf = Path(zf.extract(names[0], tmp))
+                    raw = spf.read_bytes()
+            except zipfile.BadZipFile as exc:
+                raise ModelError(str(path), f"damaged zip archive ({exc})") from exc
+        head = _header(raw)
+        if not head.lstrip().startswith("ISO-10303-21"):
+            raise ModelError(
+                str(path),
+                "not an IFC file (no ISO-10303-21 header)",
+                "an IFC-SPF (.ifc) or .ifczip file",
+            )
+        m = re.search(r"FILE_SCHEMA\s*\(\s*\(\s*'([^']*)'", head, re.IGNORECASE)
+        schema = (m.group(1) if m else "").upper()
+        if not any(schema == s or schema.startswith(s + "_") for s in SUPPORTED_SCHEMAS):
+            raise ModelError(
+                str(path),
+                f"unsupported schema {schema or '(none given)'!r}",
+                "IFC2X3, IFC4 or IFC4X3",
+            )
+        tail = raw[-2048:].decode("latin-1", errors="replace")
+        if "END-ISO-10303-21" not in tail:
+            raise ModelError(
+                str(path),
+                "file is truncated (no END-ISO-10303-21; at its end)",
+                "a complete IFC file",
+            )
+        try:
+            f = ifcopenshell.open(str(spf), format=".ifc")
+        except Exception as exc:  # noqa: BLE001 - the parser raises several kinds
+            raise ModelError(str(path), f"the IFC parser rejected the file: {exc}") from exc
+    return f, sha

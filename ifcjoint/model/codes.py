@@ -1,0 +1,329 @@
+"""Typed codes for everything the program decides.
+
+Decisions compare these codes, never text: a status, an archetype, a finding, the reason a
+joint was not checked, a note the engine attaches to a result. Words for people are made
+only by the renderers (``ifcjoint.report.words``) from a code and its values, so rewording a
+message can never change a decision.
+
+The string values are the identifiers written to the JSON and CSV outputs; they are stable.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from enum import StrEnum
+from typing import Any
+
+
+class Status(StrEnum):
+    """What became of a joint in a check run."""
+
+    PASS = "pass"
+    FAIL = "fail"
+    NO_DEMANDS = "no_demands"
+    INCOMPLETE = "incomplete"
+    UNSUPPORTED = "unsupported"
+    UNREADABLE = "unreadable"
+
+    @property
+    def checked(self) -> bool:
+        """True for pass and fail: the joint was verified against its demands."""
+        return self in (Status.PASS, Status.FAIL)
+
+
+#: Every status but pass and fail: the joint was not verified against its forces.
+UNCHECKED: tuple[Status, ...] = tuple(s for s in Status if not s.checked)
+
+
+class Archetype(StrEnum):
+    """What kind of joint a beam end is (names of our own; see ``ifcjoint.archetypes``)."""
+
+    EXTENDED_END_PLATE = "extended_end_plate"
+    FLUSH_END_PLATE = "flush_end_plate"
+    END_PLATE = "end_plate"  # an end plate whose extent could not be judged (no beam depth)
+    WELDED = "welded"
+    FIN_PLATE = "fin_plate"
+    INCOMPLETE = "incomplete"
+    UNDETAILED = "undetailed"
+    UNSUPPORTED = "unsupported"
+    UNKNOWN = "unknown"  # not decided yet (a joint straight from the finder)
+
+    @property
+    def incomplete(self) -> bool:
+        """True when the model does not hold the joint's parts (it cannot be checked)."""
+        return self in (Archetype.INCOMPLETE, Archetype.UNDETAILED)
+
+
+class Axis(StrEnum):
+    """Which axis of the column the beam frames into."""
+
+    MAJOR = "major"  # the beam meets a column flange
+    MINOR = "minor"  # the beam meets the column web
+
+
+class Face(StrEnum):
+    """The column face the beam meets."""
+
+    FLANGE = "flange"
+    WEB = "web"
+
+
+class MemberKind(StrEnum):
+    """Linear members the finder distinguishes."""
+
+    BEAM = "beam"
+    COLUMN = "column"
+    BRACE = "brace"
+
+
+class SteelState(StrEnum):
+    """How sure the reader is that a member is structural steel."""
+
+    STEEL = "steel"
+    NON_STEEL = "non_steel"
+    UNKNOWN = "unknown"
+
+
+class FastenerKind(StrEnum):
+    """Kinds of fastener elements (recognition rules in ``ifcjoint/data/recognition.toml``)."""
+
+    BOLT = "bolt"
+    NUT = "nut"
+    WASHER = "washer"
+    WELD = "weld"
+    ANCHOR = "anchor"
+    OTHER = "other"
+
+
+class LinkSource(StrEnum):
+    """Why a part was attached to a joint, strongest first."""
+
+    REALIZING = "realizing"  # IfcRelConnectsWithRealizingElements
+    ASSEMBLY = "assembly"  # IfcElementAssembly aggregation
+    CONNECTS = "connects"  # IfcRelConnectsElements
+    GEOMETRY = "geometry"  # position and orientation only
+
+
+class PartRole(StrEnum):
+    """What a plate or fastener does in its joint."""
+
+    END_PLATE = "end_plate"
+    FIN_PLATE = "fin_plate"
+    COLUMN_PLATE = "column_plate"  # stiffener or supplementary web plate
+    OTHER_PLATE = "other_plate"  # haunch plate, inclined stiffener ...
+    BOLT = "bolt"
+    WELD = "weld"
+    OTHER_FASTENER = "other_fastener"
+
+
+class EndKind(StrEnum):
+    """Beam ends that are not beam-to-column joints, and what they are instead."""
+
+    BEAM_TO_BEAM = "beam_to_beam"  # ends on the side of another beam
+    SPLICE = "splice"  # meets the end of a collinear beam
+    COLUMN_CAP = "column_cap"  # sits on top of a column
+    COLUMN_BASE = "column_base"  # lands at the foot of a column
+    HAUNCH = "haunch"  # a short member under another beam's end at the same column face
+    FREE_END = "free_end"  # touches no member (cantilever, wall bearing ...)
+
+
+class Severity(StrEnum):
+    """How bad a detailing finding is."""
+
+    ERROR = "error"  # a shop could not make it or a checker would reject it
+    WARNING = "warning"  # doubtful: look at it
+    INFO = "info"
+
+
+class FindingCode(StrEnum):
+    """Detailing and data findings (rules in ``ifcjoint.anatomy.detailing``)."""
+
+    SECTION_MISMATCH = "section_mismatch"
+    GRADE_MISSING = "grade_missing"
+    BOLT_CLASS_MISSING = "bolt_class_missing"
+    PLATE_WITHOUT_BOLTS = "plate_without_bolts"
+    BOLTS_WITHOUT_PLATE = "bolts_without_plate"
+    GAP_TO_COLUMN = "gap_to_column"
+    OVERLAP_WITH_COLUMN = "overlap_with_column"
+    END_DISTANCE_MIN = "end_distance_min"
+    EDGE_DISTANCE_MIN = "edge_distance_min"
+    BOLT_OUTSIDE_OUTLINE = "bolt_outside_outline"
+    PITCH_MIN = "pitch_min"
+    PITCH_MAX = "pitch_max"
+    SPACING_MIN = "spacing_min"
+    HOLE_CLEARANCE = "hole_clearance"
+    BOLT_PATTERN_ASYMMETRIC = "bolt_pattern_asymmetric"
+    PLATE_THICKNESS_IMPLAUSIBLE = "plate_thickness_implausible"
+    PLATE_WIDER_THAN_COLUMN_FLANGE = "plate_wider_than_column_flange"
+    COLUMN_EDGE_DISTANCE_MIN = "column_edge_distance_min"
+    HOLE_ON_ROOT_RADIUS = "hole_on_root_radius"
+    NO_SPANNER_ROOM = "no_spanner_room"
+    BOLT_TOO_SHORT = "bolt_too_short"
+
+
+class ProblemKind(StrEnum):
+    """Kinds of problems a joint can have (one BCF topic each)."""
+
+    RESISTANCE = "resistance"
+    INCOMPLETE = "incomplete"
+    UNCHECKED = "unchecked"
+    DETAILING = "detailing"
+    ASSUMPTION = "assumption"
+
+
+class Priority(StrEnum):
+    """How urgent a problem is (the BCF priority)."""
+
+    CRITICAL = "critical"
+    MAJOR = "major"
+    MINOR = "minor"
+
+
+class NotCheckedCode(StrEnum):
+    """Why a joint (or a sign of it) was not checked."""
+
+    NO_ANATOMY = "no_anatomy"
+    DATA_NOT_READ = "data_not_read"
+    STRENGTH_UNAVAILABLE = "strength_unavailable"
+    BOLT_DATA_MISSING = "bolt_data_missing"
+    NO_TENSILE_AREA = "no_tensile_area"
+    SECTION_DIMENSIONS_MISSING = "section_dimensions_missing"
+    MINOR_AXIS = "minor_axis"
+    FIN_PLATE = "fin_plate"
+    ARCHETYPE_NOT_CHECKED = "archetype_not_checked"
+    ROW_NOT_TWO_BOLTS = "row_not_two_bolts"
+    FEWER_THAN_TWO_ROWS = "fewer_than_two_rows"
+    WEB_TOO_SLENDER = "web_too_slender"
+    BOLTS_IN_ROOT_RADIUS = "bolts_in_root_radius"
+    NO_DEMANDS = "no_demands"
+    NO_SPAN_OR_IY = "no_span_or_iy"  # stiffness not classified
+    NO_PLASTIC_MODULI = "no_plastic_moduli"  # strength not classified
+
+    @property
+    def status(self) -> Status:
+        """The joint status this reason leads to (missing data, out of scope, no forces)."""
+        return _NOT_CHECKED_STATUS.get(self, Status.UNSUPPORTED)
+
+
+_NOT_CHECKED_STATUS = {
+    NotCheckedCode.NO_ANATOMY: Status.UNREADABLE,
+    NotCheckedCode.DATA_NOT_READ: Status.UNREADABLE,
+    NotCheckedCode.STRENGTH_UNAVAILABLE: Status.UNREADABLE,
+    NotCheckedCode.BOLT_DATA_MISSING: Status.UNREADABLE,
+    NotCheckedCode.NO_TENSILE_AREA: Status.UNREADABLE,
+    NotCheckedCode.SECTION_DIMENSIONS_MISSING: Status.UNREADABLE,
+    NotCheckedCode.NO_DEMANDS: Status.NO_DEMANDS,
+}
+
+
+class ReasonCode(StrEnum):
+    """Why a joint was given its archetype."""
+
+    END_PLATE_NO_BOLTS = "end_plate_no_bolts"
+    PLATE_OFF_FACE = "plate_off_face"
+    FIN_PLATE_NO_BOLTS = "fin_plate_no_bolts"
+    BOLTS_NO_PLATE = "bolts_no_plate"
+    STOPS_SHORT = "stops_short"
+    DEPTH_UNKNOWN = "depth_unknown"
+    ROWS_OUTSIDE = "rows_outside"
+    ROWS_WITHIN = "rows_within"
+    FIN_PLATE_BOLTS = "fin_plate_bolts"
+    ON_FACE = "on_face"
+    DRAWN_INTO = "drawn_into"
+    UNSUPPORTED_PARTS = "unsupported_parts"
+    NOT_DECIDED = "not_decided"
+
+
+class UnsupportedPart(StrEnum):
+    """Parts that make a joint a kind ifcjoint does not check."""
+
+    HAUNCH_PLATES = "haunch_plates"
+    INCLINED_STIFFENER = "inclined_stiffener"
+    HAUNCH_MEMBERS = "haunch_members"
+
+
+class NoteCode(StrEnum):
+    """What the engine or the verification says about how a result was obtained."""
+
+    WELDS_ASSUMED = "welds_assumed"
+    ALPHA_APPROXIMATION = "alpha_approximation"
+    ALPHA_CONSERVATIVE = "alpha_conservative"
+    PRYING_ASSUMED = "prying_assumed"
+    STIFFENERS_IGNORED = "stiffeners_ignored"
+    WEB_PLATES_IGNORED = "web_plates_ignored"
+    SHEAR_FROM_BOLTS = "shear_from_bolts"
+    SHEAR_FROM_WELDS = "shear_from_welds"
+    BETA_ONE_SINGLE_SIDED = "beta_one_single_sided"
+    BETA_ONE_UNTIL_DEMANDS = "beta_one_until_demands"
+    BETA_TABLE_SINGLE_SIDED = "beta_table_single_sided"
+    BETA_OTHER_SIDE_MISSING = "beta_other_side_missing"
+    BETA_FROM_MOMENTS = "beta_from_moments"
+    COLUMN_SHEARS_ZERO = "column_shears_zero"
+    AXIAL_NEGLECTED = "axial_neglected"
+
+
+class Verification(StrEnum):
+    """What a utilisation compares (a demand against a resistance of the joint)."""
+
+    MOMENT = "moment"
+    SHEAR = "shear"
+    WEB_PANEL_SHEAR = "web_panel_shear"
+    BENDING_AND_AXIAL = "bending_and_axial"
+
+
+class StiffnessClass(StrEnum):
+    """Classification by stiffness, EN 1993-1-8 5.2.2 (values as the code words them)."""
+
+    RIGID = "rigid"
+    SEMI_RIGID = "semi-rigid"
+    PINNED = "nominally pinned"
+
+
+class StrengthClass(StrEnum):
+    """Classification by strength, EN 1993-1-8 5.2.3 (values as the code words them)."""
+
+    FULL = "full-strength"
+    PARTIAL = "partial-strength"
+    PINNED = "nominally pinned"
+
+
+class JointModel(StrEnum):
+    """What a frame analysis assumed for a joint (a demands column)."""
+
+    RIGID = "rigid"
+    SEMI_RIGID = "semi-rigid"
+    PINNED = "pinned"
+
+
+@dataclass(frozen=True, slots=True)
+class Coded:
+    """A code with the values a renderer needs to put it into words."""
+
+    code: StrEnum
+    values: dict[str, Any] = field(default_factory=dict)
+
+
+@dataclass(frozen=True, slots=True)
+class NotChecked(Coded):
+    """Why something was not checked: ``NotChecked(NotCheckedCode.MINOR_AXIS)``."""
+
+    code: NotCheckedCode
+
+    @property
+    def status(self) -> Status:
+        """The joint status this reason leads to."""
+        return self.code.status
+
+
+@dataclass(frozen=True, slots=True)
+class Reason(Coded):
+    """Why a joint has its archetype, e.g. ``Reason(ReasonCode.ROWS_WITHIN, {"n": 4})``."""
+
+    code: ReasonCode
+
+
+@dataclass(frozen=True, slots=True)
+class Note(Coded):
+    """How a result was obtained (an assumption, a default, a simplification)."""
+
+    code: NoteCode

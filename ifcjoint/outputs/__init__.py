@@ -1,1 +1,0 @@
-"""Renderers of the one result object: text summary, JSON, CSV (later BCF, HTML)."""

@@ -1,0 +1,299 @@
+"""The pipeline, stage by stage: read, find, anatomy, archetype, check, verify, report.
+
+``scan(path)`` reads a model (``ifc``), finds its joints (``find``), reads each joint's anatomy
+(``anatomy``) and gives it its archetype (``archetypes``). ``check(path, demands=...)`` goes on:
+each joint is checked by its archetype's engine (``check``) and verified against its demands.
+One :class:`ModelCheck` object holds everything; its ``results`` dictionary (built once, by
+``ifcjoint.report.results``) is what every output renders.
+
+Example:
+    >>> import ifcjoint
+    >>> mc = ifcjoint.check("sample_models/kestrel-workshop-ifc4-mm.ifc",
+    ...                     demands="sample_models/kestrel-workshop-demands.csv")  # doctest: +SKIP
+    >>> mc.counts()["pass"]  # doctest: +SKIP
+    21
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+import json
+from collections import Counter
+from dataclasses import dataclass, field, replace
+from functools import cached_property
+from pathlib import Path
+
+from ifcjoint import __version__
+from ifcjoint.anatomy import AnatomySettings, JointAnatomy, analyse
+from ifcjoint.archetypes import check_joint, decide, joint_type
+from ifcjoint.engine.inputs import input_record
+from ifcjoint.engine.problems import Problem, joint_problems
+from ifcjoint.engine.results import CheckResult
+from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.engine.verify import JointVerdict, verify_joint
+from ifcjoint.errors import NoSteelError
+from ifcjoint.find import FinderSettings, find_joints
+from ifcjoint.ifc.reader import read_model
+from ifcjoint.ifc.recognition import load_rules
+from ifcjoint.model.codes import UNCHECKED, MemberKind, Status, SteelState
+from ifcjoint.model.demands import Demand
+from ifcjoint.model.elements import Progress
+from ifcjoint.model.joints import Joint, ScanResult
+from ifcjoint.tables.demands import DemandsTable, read_demands
+
+
+def scan(
+    path: str | Path,
+    *,
+    settings: FinderSettings | None = None,
+    assume_length_unit: str | None = None,
+    rules_file: str | Path | None = None,
+    progress: Progress | None = None,
+    anatomy: AnatomySettings | None = None,
+) -> ScanResult:
+    """Read a model and find every beam-to-column joint in it, with its anatomy and archetype.
+
+    Args:
+        path: ``.ifc`` or ``.ifczip`` model.
+        settings: finder tolerances (defaults when None).
+        assume_length_unit: unit to use only if the model declares none.
+        rules_file: extra recognition rules (TOML) on top of the bundled ones.
+        progress: optional callback ``(stage, done, total)``.
+        anatomy: what to assume where the model says nothing (reported as assumptions).
+
+    Raises:
+        ifcjoint.errors.ModelError: the model cannot be used.
+        ifcjoint.errors.ConfigError: the rules file cannot be used.
+    """
+    rules = load_rules(rules_file)
+    model = read_model(path, assume_length_unit=assume_length_unit, rules=rules, progress=progress)
+    return describe_joints(find_joints(model, settings, progress=progress), anatomy)
+
+
+def describe_joints(result: ScanResult, settings: AnatomySettings | None = None) -> ScanResult:
+    """Add each joint's anatomy, archetype and detailing findings to a scan."""
+    anatomy = analyse(result.joints, result.model, settings)
+    joints = []
+    for j, a in zip(result.joints, anatomy, strict=True):
+        archetype, reason = decide(j, a)
+        joints.append(
+            replace(j, archetype=archetype, archetype_reason=reason, findings=a.findings)
+        )
+    return replace(result, joints=tuple(joints), anatomy={a.joint_id: a for a in anatomy})
+
+
+def require_steel(result: ScanResult) -> None:
+    """Raise when the model holds no steel beams or columns to scan.
+
+    Raises:
+        NoSteelError: no steel beam or column was read (exit code 4).
+    """
+    kinds = (MemberKind.BEAM, MemberKind.COLUMN)
+    m = result.model
+    if not any(x.kind in kinds and x.steel != SteelState.NON_STEEL for x in m.members):
+        c = m.counts
+        raise NoSteelError(
+            m.path,
+            f"{c.get('beams', 0)} beams, {c.get('columns', 0)} columns read, "
+            f"{c.get('non_steel_members', 0)} of them not steel",
+        )
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class JointCheck:
+    """One joint: what was found, what was checked, and its status."""
+
+    joint: Joint
+    anatomy: JointAnatomy | None
+    capacity: CheckResult
+    verdict: JointVerdict
+    demands: tuple[Demand, ...]
+    fingerprint: str
+    problems: tuple[Problem, ...]
+
+    @property
+    def status(self) -> Status:
+        """The status: pass, fail, no_demands, incomplete, unsupported or unreadable."""
+        return self.verdict.status
+
+    @property
+    def result(self) -> CheckResult:
+        """The engine result of the governing combination, else the capacity check."""
+        gc = self.verdict.governing_combination
+        return gc.result if gc is not None else self.capacity
+
+    @property
+    def utilisation(self) -> float | None:
+        """Highest utilisation over every combination, or None when not checked."""
+        g = self.verdict.governing
+        return None if g is None else g.utilisation
+
+
+@dataclass(frozen=True, kw_only=True)
+class ModelCheck:
+    """Everything one ``check`` run produced, for every renderer."""
+
+    scan: ScanResult
+    joints: tuple[JointCheck, ...]
+    demands: DemandsTable | None
+    settings: CheckSettings
+    created: _dt.datetime
+    tool_version: str = __version__
+    notes: tuple[str, ...] = field(default_factory=tuple)
+
+    def counts(self) -> dict[str, int]:
+        """Joints by status (every status present, zero or not)."""
+        c = Counter(j.status for j in self.joints)
+        return {s.value: c.get(s, 0) for s in Status}
+
+    def unchecked(self) -> list[JointCheck]:
+        """Joints that are neither pass nor fail."""
+        return [j for j in self.joints if j.status in UNCHECKED]
+
+    def top(self, n: int = 10) -> list[JointCheck]:
+        """The n highest utilisations."""
+        done = [j for j in self.joints if j.utilisation is not None]
+        return sorted(done, key=lambda j: -j.utilisation)[:n]
+
+    def problems(self) -> list[tuple[JointCheck, Problem]]:
+        """Every problem of every joint, in joint order."""
+        return [(j, p) for j in self.joints for p in j.problems]
+
+    @cached_property
+    def results(self) -> dict:
+        """The results dictionary every output renders (built once; docs/results.md)."""
+        from ifcjoint.report.results import build_results
+
+        return build_results(self)
+
+    def dataframe(self):
+        """One row per joint as a pandas DataFrame (the results CSV's content)."""
+        from ifcjoint.report.results import results_dataframe
+
+        return results_dataframe(self.results)
+
+
+def fingerprint(joint: Joint, cap: CheckResult, demands: tuple[Demand, ...]) -> str:
+    """A short hash of what the check used: engine input, demands, tool version.
+
+    Common practice, no source: it changes exactly when a re-check could give another answer.
+    """
+    blob = {
+        "joint": [joint.beam, joint.beam_end, joint.column, joint.archetype],
+        "input": input_record(cap.input) if cap.input is not None else {},
+        "demands": [
+            [d.combination, d.M_Ed, d.V_Ed, d.N_Ed, d.M_other, d.Vc_above, d.Vc_below,
+             d.braced, d.assumed_joint]
+            for d in demands
+        ],
+        "version": __version__,
+    }
+    text = json.dumps(blob, sort_keys=True, default=str)
+    return hashlib.sha256(text.encode()).hexdigest()[:16]
+
+
+def check_one(
+    j: Joint,
+    a: JointAnatomy | None,
+    members: dict,
+    demands: tuple[Demand, ...],
+    st: CheckSettings,
+) -> JointCheck:
+    """Check one joint by its archetype and verify it against its demands."""
+    cap = check_joint(j, a, members, st)
+    if cap.checked:
+        verdict = verify_joint(
+            cap.input,
+            list(demands),
+            engine=joint_type(j.archetype).engine,
+            double_sided=j.partner is not None,
+            braced_default=st.braced,
+        )
+    else:
+        reason = cap.not_checked
+        status = Status.INCOMPLETE if j.archetype.incomplete else reason.status
+        verdict = JointVerdict(status=status, reason=reason)
+    return JointCheck(
+        joint=j,
+        anatomy=a,
+        capacity=cap,
+        verdict=verdict,
+        demands=demands,
+        fingerprint=fingerprint(j, cap, demands),
+        problems=joint_problems(j, verdict, cap.not_checked),
+    )
+
+
+def check_scan(
+    scan: ScanResult,
+    demands: DemandsTable | None,
+    settings: CheckSettings | None = None,
+    *,
+    created: _dt.datetime | None = None,
+    progress: Progress | None = None,
+) -> ModelCheck:
+    """Check every joint of a scan against its demands (see :func:`check`)."""
+    st = settings or CheckSettings()
+    members = {m.guid: m for m in scan.model.members}
+    out = []
+    n = len(scan.joints)
+    for k, j in enumerate(scan.joints, start=1):
+        ds = tuple(demands.by_joint.get(j.id, ())) if demands is not None else ()
+        out.append(check_one(j, scan.anatomy.get(j.id), members, ds, st))
+        if progress is not None:
+            progress("check", k, n)
+    when = created or _dt.datetime.now(_dt.UTC).replace(microsecond=0)
+    notes = []
+    if demands is None:
+        notes.append("no demands file given: every checkable joint is unchecked (no_demands)")
+    return ModelCheck(
+        scan=scan,
+        joints=tuple(out),
+        demands=demands,
+        settings=st,
+        created=when,
+        notes=tuple(notes),
+    )
+
+
+def check(
+    path: str | Path,
+    *,
+    demands: str | Path | DemandsTable | None = None,
+    settings: CheckSettings | None = None,
+    finder: FinderSettings | None = None,
+    anatomy: AnatomySettings | None = None,
+    assume_length_unit: str | None = None,
+    rules_file: str | Path | None = None,
+    created: _dt.datetime | None = None,
+    progress: Progress | None = None,
+) -> ModelCheck:
+    """Scan a model, read its demands and check every joint.
+
+    Args:
+        path: ``.ifc`` or ``.ifczip`` model.
+        demands: demands CSV (path) or an already read table; None: nothing is checked
+            against forces (every checkable joint is ``no_demands``).
+        settings: the design code with its parameters, and check choices.
+        finder: finder tolerances, as for :func:`scan`.
+        anatomy: what to assume where the model is silent (reported).
+        assume_length_unit: unit to use only if the model declares none.
+        rules_file: extra recognition rules (TOML).
+        created: timestamp to record (inject it for reproducible output).
+        progress: optional callback ``(stage, done, total)``.
+
+    Raises:
+        ifcjoint.errors.ModelError: the model cannot be used.
+        ifcjoint.errors.DemandsError: the demands file cannot be used at all.
+    """
+    sc = scan(
+        path,
+        settings=finder,
+        assume_length_unit=assume_length_unit,
+        rules_file=rules_file,
+        progress=progress,
+        anatomy=anatomy,
+    )
+    table = read_demands(demands, sc.joints) if isinstance(demands, (str, Path)) else demands
+    return check_scan(sc, table, settings, created=created, progress=progress)

@@ -1,0 +1,245 @@
+"""The issue list as BCF (buildingSMART BCF 3.0 by default, 2.1 on request), via bcf-client.
+
+One topic per problem (``ifcjoint.engine.problems``; its words from the results dictionary):
+stable GUIDs (uuid5 of the beam, its end and the kind of problem), the beam/column/plate/bolt
+GlobalIds selected, and a camera looking at the joint. Writing over an earlier BCF of ours
+keeps what people added there: comments stay, topics whose problem is gone are set to
+``Closed`` with a comment, never deleted.
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import zipfile
+from pathlib import Path
+
+import numpy as np
+from xsdata.models.datatype import XmlDateTime
+
+from ifcjoint.errors import OutputError
+from ifcjoint.fileio import atomic_write_bytes
+from ifcjoint.model.identity import problem_key, stable_uuid
+
+AUTHOR = "ifcjoint"
+LABEL = "ifcjoint"
+PRIORITIES = {"critical": "Critical", "major": "Major", "minor": "Minor"}
+TOPIC_TYPES = {
+    "resistance": "Joint fails check",
+    "incomplete": "Joint incomplete",
+    "unchecked": "Joint not checked",
+    "detailing": "Joint detailing",
+    "assumption": "Analysis assumption",
+}
+OPEN, CLOSED = "Open", "Closed"
+#: Camera offset from the joint, metres: up, back and to the side, so the joint is in view.
+CAMERA_OFFSET_M = np.array((3.0, -4.0, 2.5))
+BCF_VERSIONS = ("3.0", "2.1")
+
+
+def _modules(version: str):
+    if version == "2.1":
+        import bcf.v2.bcfxml as bx
+        import bcf.v2.model as mdl
+        import bcf.v2.topic as tp
+        import bcf.v2.visinfo as vi
+    elif version == "3.0":
+        import bcf.v3.bcfxml as bx
+        import bcf.v3.model as mdl
+        import bcf.v3.topic as tp
+        import bcf.v3.visinfo as vi
+    else:
+        raise ValueError(f"BCF version {version!r}: expected one of {BCF_VERSIONS}")
+    return bx, mdl, tp, vi
+
+
+def _when(dt: _dt.datetime) -> XmlDateTime:
+    return XmlDateTime.from_datetime(dt)
+
+
+def _viewpoint(vi, mdl, key: str, point_mm, elements):
+    from bcf.geometry import camera_vectors_from_target_position
+
+    target = np.asarray(point_mm, dtype=float) / 1000.0
+    pos, direction, up = camera_vectors_from_target_position(target, CAMERA_OFFSET_M)
+    info = mdl.VisualizationInfo(
+        guid=str(stable_uuid(key + "/viewpoint")),
+        components=vi.build_components(*elements),
+        perspective_camera=vi.build_camera_from_vectors(pos, direction, up),
+    )
+    return vi.VisualizationInfoHandler(visualization_info=info)
+
+
+def _labels(mdl, version: str, labels: list[str]):
+    return labels if version == "2.1" else mdl.TopicLabels(label=labels)
+
+
+def _add_comment(mdl, version: str, handler, text: str, when: _dt.datetime, key: str) -> None:
+    c = mdl.Comment(
+        date=_when(when),
+        author=AUTHOR,
+        comment=text,
+        guid=str(stable_uuid(key)),
+    )
+    if version == "2.1":
+        handler.markup.comment.append(c)
+    else:
+        t = handler.topic
+        if t.comments is None:
+            t.comments = mdl.TopicComments()
+        t.comments.comment.append(c)
+
+
+def _comment_guids(version: str, handler) -> set[str]:
+    if version == "2.1":
+        return {c.guid for c in handler.markup.comment}
+    cs = handler.topic.comments
+    return {c.guid for c in cs.comment} if cs is not None else set()
+
+
+def _labels_of(version: str, topic) -> list[str]:
+    if version == "2.1":
+        return list(topic.labels or [])
+    return list(topic.labels.label) if topic.labels is not None else []
+
+
+def _open_existing(bx, target: Path, version: str):
+    """The earlier BCF of ours at the target and its topics, or (None, {})."""
+    if not (target.exists() and target.stat().st_size > 0):
+        return None, {}
+    if not zipfile.is_zipfile(target):
+        raise OutputError(
+            f"{target}: exists but is not a BCF file (not a zip archive); choose another "
+            "path or delete it"
+        )
+    old = bx.BcfXml.load(target)
+    try:
+        _ = old.version
+        return old, dict(old.topics)
+    except Exception as exc:  # a file of another kind or version
+        raise OutputError(
+            f"{target}: exists but is not a BCF {version} file this tool can update "
+            f"({type(exc).__name__}); choose another path or delete it"
+        ) from exc
+
+
+def _new_document(bx, mdl, version: str, project_name: str):
+    doc = bx.BcfXml.create_new(project_name)
+    pid = str(stable_uuid("project/" + project_name))
+    project = mdl.Project(name=project_name, project_id=pid)
+    if version == "2.1":
+        doc.project_info = mdl.ProjectExtension(project=project, extension_schema="")
+        return doc
+    doc.project_info = mdl.ProjectInfo(project=project)
+    doc.extensions = mdl.Extensions(
+        topic_types=mdl.ExtensionsTopicTypes(topic_type=list(TOPIC_TYPES.values())),
+        topic_statuses=mdl.ExtensionsTopicStatuses(topic_status=[OPEN, CLOSED]),
+        priorities=mdl.ExtensionsPriorities(priority=list(PRIORITIES.values())),
+        topic_labels=mdl.ExtensionsTopicLabels(
+            topic_label=[LABEL, *TOPIC_TYPES, "extended_end_plate", "flush_end_plate",
+                         "welded", "fin_plate", "incomplete", "undetailed", "unsupported"]
+        ),
+    )
+    return doc
+
+
+def _topics(results: dict):
+    """(joint, problem, description with the joint id and fingerprint) for every problem."""
+    for j in results["joints"]:
+        c = j["check"]
+        for p in c["problems"]:
+            desc = p["description"] + f"\n\nJoint {j['id']}; input fingerprint {c['fingerprint']}."
+            yield j, p, desc
+
+
+def write_bcf(results: dict, path: str | Path, *, version: str = "3.0") -> dict[str, int]:
+    """Write (or update) the BCF issue list of a check; returns counts of what was done.
+
+    Keys of the returned dict: ``new``, ``updated``, ``closed``, ``kept`` (topics not ours).
+
+    Raises:
+        ifcjoint.errors.OutputError: the target exists and is not a BCF of that version.
+    """
+    bx, mdl, tp, vi = _modules(version)
+    target = Path(path)
+    old, old_topics = _open_existing(bx, target, version)
+    project_name = Path(results["model"]["path"]).name
+    doc = old if old is not None else _new_document(bx, mdl, version, project_name)
+    ck = results["check"]
+    when = _dt.datetime.fromisoformat(ck["created"])
+    tool = ck["tool_version"]
+    counts = {"new": 0, "updated": 0, "closed": 0, "kept": 0}
+    current = set()
+    for j, p, desc in _topics(results):
+        guid = p["guid"]
+        current.add(guid)
+        labels = [LABEL, p["kind"], j["archetype"]]
+        if guid in old_topics:
+            _update_topic(mdl, version, old_topics[guid], p, desc, labels, when, tool)
+            counts["updated"] += 1
+            continue
+        topic = mdl.Topic(
+            guid=guid,
+            title=p["title"],
+            description=desc,
+            priority=PRIORITIES[p["severity"]],
+            labels=_labels(mdl, version, labels),
+            creation_date=_when(when),
+            creation_author=AUTHOR,
+            topic_type=TOPIC_TYPES[p["kind"]],
+            topic_status=OPEN,
+        )
+        h = tp.TopicHandler(topic_dir=Path(guid))
+        h.markup = mdl.Markup(topic=topic)
+        if version == "3.0":
+            h.markup.topic.viewpoints = None
+        key = problem_key(j["beam"], j["beam_end"], p["kind"])
+        h.add_visinfo_handler(_viewpoint(vi, mdl, key, j["point_mm"], p["elements"]))
+        doc.topics[guid] = h
+        counts["new"] += 1
+    for guid, h in old_topics.items():
+        done = _close_topic(mdl, version, h, guid, when, tool) if guid not in current else None
+        if done:
+            counts[done] += 1
+    # Save beside the target, then rename: the old file is read until the end.
+    target.parent.mkdir(parents=True, exist_ok=True)
+    tmp = target.with_name(f".{target.name}.writing")
+    doc.save(tmp)
+    data = tmp.read_bytes()
+    tmp.unlink()
+    doc.close()
+    atomic_write_bytes(target, data)
+    return counts
+
+
+def _update_topic(mdl, version, h, p: dict, desc: str, labels, when, tool: str) -> None:
+    """Our topic found again: new title, description and priority; reopened if closed."""
+    guid = p["guid"]
+    t = h.topic
+    priority = PRIORITIES[p["severity"]]
+    changed = (t.title, t.description, t.priority) != (p["title"], desc, priority)
+    t.title, t.description = p["title"], desc
+    t.priority = priority
+    t.topic_type = TOPIC_TYPES[p["kind"]]
+    t.labels = _labels(mdl, version, labels)
+    if t.topic_status == CLOSED:
+        t.topic_status = OPEN
+        _add_comment(mdl, version, h, f"Reopened by {AUTHOR} {tool}: the problem is found "
+                     "again.", when, f"{guid}/reopen/{when.isoformat()}")
+    if changed:
+        t.modified_date, t.modified_author = _when(when), AUTHOR
+
+
+def _close_topic(mdl, version, h, guid: str, when, tool: str) -> str | None:
+    """A topic whose problem is gone: closed if ours, kept if not; None if already closed."""
+    t = h.topic
+    if LABEL not in _labels_of(version, t):
+        return "kept"
+    if t.topic_status == CLOSED:
+        return None
+    t.topic_status = CLOSED
+    t.modified_date, t.modified_author = _when(when), AUTHOR
+    key = f"{guid}/closed/{when.isoformat()}"
+    if str(stable_uuid(key)) not in _comment_guids(version, h):
+        _add_comment(mdl, version, h, f"Closed by {AUTHOR} {tool}: the problem is no longer "
+                     "found.", when, key)
+    return "closed"

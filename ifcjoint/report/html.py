@@ -1,0 +1,148 @@
+"""The HTML report: one self-contained file people read.
+
+It renders the results dictionary (``report.results.build_results``, docs/results.md), the
+same object the JSON, BCF and property sets come from, so ``ifcjoint report results.json``
+gives the same page as ``ifcjoint check --html``. Templates are jinja2 with autoescaping:
+every string taken from the model is escaped. No network: no CDN, fonts or scripts from
+elsewhere.
+"""
+
+from __future__ import annotations
+
+from collections import Counter
+
+from jinja2 import Environment, PackageLoader, select_autoescape
+from markupsafe import Markup
+
+from ifcjoint.ec3.code import EN_1993_1_8, Component, Zone
+from ifcjoint.engine.settings import DESIGN_CODES, design_code
+from ifcjoint.fileio import atomic_write_text
+from ifcjoint.model.codes import UNCHECKED, Status
+from ifcjoint.report.drawing import plate_svg
+from ifcjoint.report.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
+from ifcjoint.report.words import STATUS_WORDS
+
+#: From this many joints on, calculation sheets are built in the page only when opened.
+LAZY_FROM = 300
+
+def _env() -> Environment:
+    env = Environment(
+        loader=PackageLoader("ifcjoint", "templates"),
+        autoescape=select_autoescape(default=True, default_for_string=True),
+        trim_blocks=True,
+        lstrip_blocks=True,
+    )
+    env.filters["num"] = _num
+    return env
+
+
+def _num(v, digits: int = 1) -> str:
+    if v is None:
+        return "-"
+    if isinstance(v, (int, float)):
+        return f"{v:,.{digits}f}"
+    return str(v)
+
+
+def _m_phi_all(checks: list[dict], progress=None) -> list[str | None]:
+    """Every joint's M-phi plot; on all cores for big models (matplotlib is the slow part)."""
+    n = len(checks)
+    out: list[str | None] = []
+    if n < 150:
+        for k, c in enumerate(checks, start=1):
+            out.append(m_phi_svg(c))
+            if progress:
+                progress("report", k, n)
+        return out
+    import os
+    from concurrent.futures import ProcessPoolExecutor
+
+    workers = max(1, min(4, os.cpu_count() or 1))
+    with ProcessPoolExecutor(max_workers=workers) as ex:
+        for k, svg in enumerate(ex.map(m_phi_svg, checks, chunksize=25), start=1):
+            out.append(svg)
+            if progress:
+                progress("report", k, n)
+    return out
+
+
+def _code_of(results: dict):
+    """The run's design code (results JSON of schema 1.0 have none: EN 1993-1-8)."""
+    name = results.get("check", {}).get("design_code")
+    return design_code(name) if name in DESIGN_CODES else EN_1993_1_8
+
+
+def _sheet(j: dict, svg_mphi: str | None, code) -> dict:
+    """What one joint's section of the report shows (no numbers made here)."""
+    c = j["check"]
+    comps = []
+    for x in c.get("components") or []:
+        info = code.components.get(Component(x["component"])) if x.get("component") else None
+        where = (
+            f"row {x['row']}"
+            if x.get("row")
+            else (f"rows {x['rows'][0]}-{x['rows'][-1]}" if x.get("rows") else "")
+        )
+        comps.append(
+            {
+                **x,
+                "where": where,
+                "zone": info.zone if info else Zone.TENSION,
+                "formula": info.formula if info else "",
+                "inputs_text": ", ".join(
+                    f"{k} = {_num(v, 2) if isinstance(v, float) else v}"
+                    for k, v in (x.get("inputs") or {}).items()
+                    if v is not None
+                ),
+            }
+        )
+    order = {Zone.TENSION: 0, Zone.COMPRESSION: 1, Zone.SHEAR: 2}
+    comps.sort(key=lambda x: order[x["zone"]])
+    svg_plate = plate_svg(j)
+    return {
+        "joint": j,
+        "check": c,
+        "components": comps,
+        "plate_svg": Markup(svg_plate) if svg_plate else None,  # built by us, text escaped
+        "m_phi_svg": Markup(svg_mphi) if svg_mphi else None,
+        "status_word": STATUS_WORDS[c["status"]],
+        "colour": STATUS_COLOURS[c["status"]],
+    }
+
+
+def report_context(results: dict, progress=None) -> dict:
+    """Everything the HTML template shows, from the results dict."""
+    joints = results["joints"]
+    ck = results["check"]
+    counts = ck["counts"]
+    arche = Counter(j["archetype"] for j in joints)
+    hist = utilisation_histogram_svg(joints)
+    checked = [j["check"] if j["check"].get("engine_status") == "checked" else {} for j in joints]
+    plots = _m_phi_all(checked, progress)
+    code = _code_of(results)
+    return {
+        "r": results,
+        "ck": ck,
+        "design_code": code.name,
+        "design_code_edition": f"{code.name}:{code.edition}",
+        "counts": [(s, STATUS_WORDS[s], counts.get(s, 0), STATUS_COLOURS[s]) for s in Status],
+        "unchecked": sum(counts.get(s, 0) for s in UNCHECKED),
+        "archetypes": sorted(arche.items(), key=lambda kv: -kv[1]),
+        "histogram": Markup(hist) if hist else None,
+        "sheets": [_sheet(j, svg, code) for j, svg in zip(joints, plots, strict=True)],
+        "statuses": STATUS_WORDS,
+        # Large reports keep each sheet in a <template>, built when opened: the page loads fast.
+        "lazy": len(joints) > LAZY_FROM,
+    }
+
+
+def render_html(results: dict, progress=None) -> str:
+    """The self-contained HTML report (``progress(stage, done, total)`` while plotting)."""
+    return _env().get_template("report.html.j2").render(**report_context(results, progress))
+
+
+def write_html(results: dict, path, *, progress=None) -> dict[str, int]:
+    """Write the HTML report atomically; returns its size in bytes."""
+    html = render_html(results, progress)
+    atomic_write_text(path, html)
+    return {"bytes": len(html.encode("utf-8"))}

@@ -1,0 +1,494 @@
+"""The results of a check as one dictionary (docs/results.md), and its table renderers.
+
+``build_results`` turns a :class:`ifcjoint.pipeline.ModelCheck` into the one dictionary that
+every output renders: the results JSON, the CSV, the issue list, the text summary, BCF, HTML,
+Markdown and the IFC property sets. Display units (kN, kNm, kNm/rad) and words are made here,
+from the engine's data and codes. Every renderer has the same signature:
+``write_x(results, target, **options)``.
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+import math
+from collections import Counter
+from pathlib import Path
+from typing import TextIO
+
+import pandas as pd
+
+from ifcjoint.ec3.code import Eurocode3
+from ifcjoint.engine.inputs import input_record
+from ifcjoint.engine.problems import Problem
+from ifcjoint.engine.results import CheckResult, Classification, ComponentResult
+from ifcjoint.engine.verify import Assumption, Utilisation
+from ifcjoint.fileio import atomic_write_text, safe_cell
+from ifcjoint.model.codes import UNCHECKED, ProblemKind, Status
+from ifcjoint.report.scan import CAUTION, build_scan
+from ifcjoint.report.words import (
+    STATUS_WORDS,
+    UNCHECKED_WHAT,
+    UNITS,
+    coded,
+    finding_message,
+    limit_words,
+    verification_detail,
+    verification_name,
+)
+
+RESULTS_SCHEMA_VERSION = "1.1"
+#: Results JSON versions the report command reads.
+READABLE_SCHEMA_VERSIONS = ("1.0", "1.1")
+
+
+def _k(x: float | None, f: float, digits: int = 2) -> float | None:
+    """A value in N or N mm as kN or kNm, rounded (None stays None)."""
+    return None if x is None else round(float(x) / f, digits)
+
+
+def _finite_k(x: float, f: float, digits: int) -> float | None:
+    """As ``_k``; None when infinite (nothing flexible)."""
+    return round(float(x) / f, digits) if math.isfinite(x) else None
+
+
+def _demand_dict(d) -> dict:
+    return {
+        "combination": d.combination,
+        "M_Ed_kNm": _k(d.M_Ed, 1e6, 3),
+        "V_Ed_kN": _k(d.V_Ed, 1e3, 3),
+        "N_Ed_kN": _k(d.N_Ed, 1e3, 3),
+        "M_Ed_other_side_kNm": _k(d.M_other, 1e6, 3),
+        "Vc_above_kN": _k(d.Vc_above, 1e3, 3),
+        "Vc_below_kN": _k(d.Vc_below, 1e3, 3),
+        "frame": None if d.braced is None else ("braced" if d.braced else "unbraced"),
+        "assumed_joint": d.assumed_joint,
+        "source": d.source,
+        "other_side_source": d.other_source or None,
+    }
+
+
+def _component_dict(c: ComponentResult, code: Eurocode3) -> dict:
+    return {
+        "clause": c.clause,
+        "name": code.component_name(c.component),
+        "component": c.component,
+        "row": c.row,
+        "rows": list(c.rows),
+        "F_Rd_kN": round(float(c.F_Rd) / 1e3, 2),
+        "mode": c.mode,
+        "inputs": {
+            k: (round(float(v), 3) if isinstance(v, (int, float)) else v)
+            for k, v in c.inputs.items()
+        },
+    }
+
+
+def _rows_dict(side, code: Eurocode3, candidates: bool) -> list[dict]:
+    out = []
+    for r in side.rows:
+        d = {
+            "row": r.row,
+            "h_r_mm": round(float(r.h_r), 1),
+            "F_tr_Rd_kN": round(float(r.F_tr_Rd) / 1e3, 2),
+            "limited_by": limit_words(r.limited_by, code),
+        }
+        if candidates:
+            d["candidates_kN"] = {
+                limit_words(lim, code): round(float(v) / 1e3, 2) for lim, v in r.candidates
+            }
+        out.append(d)
+    return out
+
+
+def classification_dict(c: Classification | None) -> dict:
+    """The stiffness and strength classes with their boundaries (kNm/rad, kNm)."""
+    if c is None:
+        return {}
+    out: dict = {}
+    if c.stiffness is not None:
+        out["stiffness"] = c.stiffness
+        out["kb"] = c.kb
+        out["rigid_from_kNm_per_rad"] = round(c.rigid_from / 1e6, 1)
+        out["pinned_up_to_kNm_per_rad"] = round(c.pinned_up_to / 1e6, 1)
+    else:
+        out["stiffness"] = coded(c.stiffness_gap)
+    if c.strength is not None:
+        out["strength"] = c.strength
+        out["strength_sagging"] = c.strength_sagging
+        out["full_strength_from_kNm"] = round(float(c.full_strength_from) / 1e6, 1)
+    else:
+        out["strength"] = coded(c.strength_gap)
+    return out
+
+
+def result_dict(r: CheckResult, code: Eurocode3) -> dict:
+    """An engine result in the output's units (kN, kNm, kNm/rad, mm)."""
+    inputs = input_record(r.input) if r.input is not None else {}
+    if not r.checked:
+        return {"status": r.status, "reason": coded(r.not_checked), "inputs": inputs}
+    h, s = r.hogging, r.sagging
+    return {
+        "status": r.status,
+        "resistance": {
+            "Mj_Rd_hogging_kNm": round(float(h.M_j_Rd) / 1e6, 2),
+            "Mj_Rd_sagging_kNm": round(float(s.M_j_Rd) / 1e6, 2) if s else None,
+            "Vj_Rd_kN": round(float(r.V_j_Rd) / 1e3, 2),
+            "Vwp_Rd_kN": round(float(r.V_wp_Rd) / 1e3, 2),
+            "Nj_Rd_tension_kN": round(float(r.N_j_Rd_tension) / 1e3, 2),
+            "Nj_Rd_compression_kN": round(float(r.N_j_Rd_compression) / 1e3, 2),
+            "Sj_ini_kNm_per_rad": _finite_k(h.S_j_ini, 1e6, 1),
+            "Sj_ini_sagging_kNm_per_rad": _finite_k(s.S_j_ini, 1e6, 1) if s else None,
+            "z_mm": round(float(h.z), 1),
+        },
+        "components": [_component_dict(c, code) for c in h.components],
+        "tension_rows": _rows_dict(h, code, candidates=True),
+        "sagging": None
+        if s is None
+        else {
+            "components": [_component_dict(c, code) for c in s.components],
+            "tension_rows": _rows_dict(s, code, candidates=False),
+        },
+        "classification": classification_dict(r.classification),
+        "m_phi": {
+            sign: [[round(f, 6), round(m / 1e6, 2)] for f, m in r.m_phi(sign)]
+            for sign in ("hogging", "sagging")
+        },
+        "notes": [coded(n) for n in r.notes],
+        "inputs": inputs,
+    }
+
+
+def utilisation_dict(u: Utilisation, code: Eurocode3) -> dict:
+    """One utilisation in the output's units (kN, kNm; ``-`` for an interaction)."""
+    unit, f = UNITS[u.verification]
+    return {
+        "clause": u.clause,
+        "name": verification_name(u.verification, u.sense, code),
+        "combination": u.combination,
+        "demand": round(u.demand / f, 2),
+        "resistance": round(u.resistance / f, 2),
+        "unit": unit,
+        "utilisation": round(u.utilisation, 3),
+        "detail": verification_detail(u, code),
+    }
+
+
+def assumption_dict(a: Assumption | None) -> dict | None:
+    """The analysis assumption against the joint's class, or None when none was stated."""
+    if a is None:
+        return None
+    if a.computed is not None:
+        computed = a.computed
+    elif a.classification is not None:
+        computed = coded(a.classification.stiffness_gap)
+    else:
+        computed = "unknown"
+    return {"assumed": a.assumed, "computed": computed, "match": a.match}
+
+
+def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
+    """A problem's title and description, in words."""
+    j = jc.joint
+    name = f"{j.label} ({j.id})"
+    if p.kind == ProblemKind.RESISTANCE:
+        g = utilisation_dict(p.governing, code)
+        lines = [f"Joint {name}, archetype {j.archetype}."]
+        for u in p.exceeded:
+            d = utilisation_dict(u, code)
+            lines.append(
+                f"[{d['combination']}] {d['name']} ({code.cite(d['clause'])}): "
+                f"{u.demand / UNITS[u.verification][1]:.1f} {d['unit']} > "
+                f"{u.resistance / UNITS[u.verification][1]:.1f} {d['unit']}, "
+                f"utilisation {u.utilisation:.2f}" + (f"; {d['detail']}" if d["detail"] else "")
+            )
+        share = f"{p.governing.utilisation:.0%}"
+        title = f"{j.label}: {g['name']} exceeded, {share} ({g['combination']})"
+        return title, "\n".join(lines)
+    if p.kind == ProblemKind.INCOMPLETE:
+        return f"{j.label}: joint incomplete ({j.archetype})", "\n".join(
+            [f"Joint {name}: {coded(j.archetype_reason)}.", f"Not checked: {coded(p.reason)}."]
+        )
+    if p.kind == ProblemKind.UNCHECKED:
+        return f"{j.label}: not checked, {UNCHECKED_WHAT[p.status]}", "\n".join(
+            [
+                f"Joint {name}, archetype {j.archetype}: not checked ({p.status}).",
+                f"Reason: {coded(p.reason)}.",
+            ]
+        )
+    if p.kind == ProblemKind.DETAILING:
+        fs = p.findings
+        lines = [f"Joint {name}: {len(fs)} detailing finding(s)."]
+        for f in fs:
+            lim = ""
+            if f.measured is not None and f.limit is not None:
+                lim = f" (measured {round(f.measured, 2):g}, limit {round(f.limit, 2):g})"
+            lines.append(f"[{f.severity}] {finding_message(f)}{lim}; basis: {f.basis}")
+        return f"{j.label}: {len(fs)} detailing finding(s), first: {fs[0].code}", "\n".join(lines)
+    a = assumption_dict(p.assumption)
+    return f"{j.label}: analysed as {a['assumed']}, the joint is {a['computed']}", (
+        f"Joint {name}: the analysis model assumed a {a['assumed']} joint; by its "
+        f"initial stiffness Sj,ini the joint is {a['computed']} ({code.cite('5.2.2.5')}). "
+        "The frame analysis may need the joint's stiffness (5.1.1, 5.2.2.1)."
+    )
+
+
+def joint_check_dict(jc, code: Eurocode3) -> dict:
+    """The check part of one joint (added to the scan JSON's joint)."""
+    g = jc.verdict.governing
+    r = result_dict(jc.result, code)
+    problems = []
+    for p in jc.problems:
+        title, description = _problem_texts(jc, p, code)
+        problems.append(
+            {
+                "guid": p.guid,
+                "kind": p.kind,
+                "severity": p.priority,
+                "title": title,
+                "description": description,
+                "elements": list(p.elements),
+            }
+        )
+    gd = utilisation_dict(g, code) if g is not None else None
+    return {
+        "status": jc.status,
+        "status_reason": coded(jc.verdict.reason),
+        "utilisation": None if g is None else round(float(g.utilisation), 3),
+        "governing": None
+        if g is None
+        else {
+            "clause": gd["clause"],
+            "name": gd["name"],
+            "utilisation": gd["utilisation"],
+            "combination": gd["combination"],
+        },
+        "engine_status": r["status"],
+        "engine_reason": r.get("reason", ""),
+        "resistance": r.get("resistance"),
+        "components": r.get("components", []),
+        "tension_rows": r.get("tension_rows", []),
+        "classification": r.get("classification", {}),
+        "engine_notes": r.get("notes", []),
+        "m_phi": r.get("m_phi"),
+        "sagging": r.get("sagging"),
+        "inputs": r.get("inputs") or None,
+        "demands": [_demand_dict(d) for d in jc.demands],
+        "combinations": [
+            {
+                "combination": c.demand.combination,
+                "beta": c.beta,
+                "utilisations": [utilisation_dict(u, code) for u in c.utilisations],
+                "notes": [coded(n) for n in c.notes],
+            }
+            for c in jc.verdict.combinations
+        ],
+        "assumption": assumption_dict(jc.verdict.assumption),
+        "fingerprint": jc.fingerprint,
+        "problems": problems,
+    }
+
+
+def _finite(obj):
+    """Replace non-finite floats by None so the JSON stays strict.
+
+    An infinite utilisation (a resistance of zero) becomes null; the status still says fail.
+    """
+    if isinstance(obj, float):
+        return obj if math.isfinite(obj) else None
+    if isinstance(obj, dict):
+        return {k: _finite(v) for k, v in obj.items()}
+    if isinstance(obj, (list, tuple)):
+        return [_finite(v) for v in obj]
+    return obj
+
+
+def build_results(mc) -> dict:
+    """The scan dictionary extended with the check of every joint (docs/results.md)."""
+    code = mc.settings.code
+    d = build_scan(mc.scan)
+    d["results_schema_version"] = RESULTS_SCHEMA_VERSION
+    by_id = {jc.joint.id: jc for jc in mc.joints}
+    for j in d["joints"]:
+        j["check"] = joint_check_dict(by_id[j["id"]], code)
+    dem = mc.demands
+    d["check"] = {
+        "created": mc.created.isoformat(),
+        "tool_version": mc.tool_version,
+        "design_code": code.name,
+        "params": mc.settings.params.as_dict(),
+        "braced_default": mc.settings.braced,
+        "counts": mc.counts(),
+        "demands": None
+        if dem is None
+        else {
+            "path": dem.path,
+            "rows_read": dem.rows_read,
+            "rows_used": dem.rows_used,
+            "rows_rejected": dem.rows_rejected,
+            "problems": [
+                {"line": p.line, "severity": p.severity, "message": p.message}
+                for p in dem.problems
+            ],
+        },
+        "notes": list(mc.notes),
+    }
+    d["caution"] = CAUTION
+    return _finite(d)
+
+
+def cite(results: dict, clause: str) -> str:
+    """A clause of the run's design code as people cite it (``EN 1993-1-8 6.2.7.2``)."""
+    name = results.get("check", {}).get("design_code") or "EN 1993-1-8"
+    return f"{name} {clause}"
+
+
+def write_results_json(results: dict, path: str | Path) -> dict[str, int]:
+    """Write the results JSON atomically."""
+    text = json.dumps(results, indent=1, default=float, allow_nan=False)
+    atomic_write_text(path, text + "\n")
+    return {}
+
+
+def results_dataframe(results: dict) -> pd.DataFrame:
+    """One row per joint: identity, status, governing check, resistances, classification."""
+    rows = []
+    for j in results["joints"]:
+        c = j["check"]
+        g = c["governing"] or {}
+        rr = c["resistance"] or {}
+        cls = c["classification"] or {}
+        rows.append(
+            {
+                "joint_id": j["id"],
+                "label": j["label"],
+                "beam_guid": j["beam"],
+                "beam_end": j["beam_end"],
+                "column_guid": j["column"],
+                "archetype": j["archetype"],
+                "status": c["status"],
+                "status_reason": c["status_reason"],
+                "utilisation": c["utilisation"],
+                "governing": g.get("name", ""),
+                "governing_clause": g.get("clause", ""),
+                "governing_combination": g.get("combination", ""),
+                "Mj_Rd_hogging_kNm": rr.get("Mj_Rd_hogging_kNm"),
+                "Mj_Rd_sagging_kNm": rr.get("Mj_Rd_sagging_kNm"),
+                "Vj_Rd_kN": rr.get("Vj_Rd_kN"),
+                "Sj_ini_kNm_per_rad": rr.get("Sj_ini_kNm_per_rad"),
+                "stiffness_class": cls.get("stiffness", ""),
+                "strength_class": cls.get("strength", ""),
+                "assumed_joint": (c["assumption"] or {}).get("assumed", ""),
+                "n_combinations": len(c["demands"]),
+                "n_findings": len(j["findings"]),
+                "n_problems": len(c["problems"]),
+                "fingerprint": c["fingerprint"],
+            }
+        )
+    return pd.DataFrame(rows)
+
+
+def write_results_csv(results: dict, path: str | Path) -> dict[str, int]:
+    """One row per joint, spreadsheet-safe."""
+    df = results_dataframe(results).map(safe_cell)
+    atomic_write_text(path, df.to_csv(index=False, lineterminator="\n"))
+    return {}
+
+
+ISSUE_COLUMNS = (
+    "topic_guid", "joint_id", "label", "kind", "severity", "title", "description", "elements",
+)
+
+
+def issues_rows(results: dict) -> list[dict]:
+    """The issue list: one row per problem (the same problems as the BCF topics)."""
+    return [
+        {
+            "topic_guid": p["guid"],
+            "joint_id": j["id"],
+            "label": j["label"],
+            "kind": p["kind"],
+            "severity": p["severity"],
+            "title": p["title"],
+            "description": p["description"],
+            "elements": " ".join(p["elements"]),
+        }
+        for j in results["joints"]
+        for p in j["check"]["problems"]
+    ]
+
+
+def write_issues(results: dict, path: str | Path) -> dict[str, int]:
+    """The issue list as CSV (``.csv``) or JSON (any other suffix)."""
+    rows = issues_rows(results)
+    if str(path).lower().endswith(".csv"):
+        buf = io.StringIO()
+        w = csv.DictWriter(buf, fieldnames=list(ISSUE_COLUMNS), lineterminator="\n")
+        w.writeheader()
+        for r in rows:
+            w.writerow({k: safe_cell(v) for k, v in r.items()})
+        atomic_write_text(path, buf.getvalue())
+    else:
+        atomic_write_text(path, json.dumps({"issues": rows}, indent=1) + "\n")
+    return {}
+
+
+def top_joints(results: dict, n: int = 10) -> list[dict]:
+    """The joints with the n highest utilisations."""
+    done = [j for j in results["joints"] if j["check"]["utilisation"] is not None]
+    return sorted(done, key=lambda j: -j["check"]["utilisation"])[:n]
+
+
+def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
+    """Counts by status, the highest utilisations, rejected demand rows, the caution."""
+    ck = results["check"]
+    c = ck["counts"]
+    n = len(results["joints"])
+    unchecked = sum(c[s] for s in UNCHECKED)
+    out.write(f"{results['model']['path']}: {n} joints checked by ifcjoint {ck['tool_version']}\n")
+    out.write(f"  pass {c['pass']}, fail {c['fail']}, unchecked {unchecked}")
+    if unchecked:
+        parts = [f"{STATUS_WORDS[s].split(': ')[1]} {c[s]}" for s in UNCHECKED if c[s]]
+        out.write(f" ({', '.join(parts)})")
+    out.write("\n")
+    dem = ck["demands"]
+    if dem is None:
+        out.write("  demands: none given\n")
+    else:
+        out.write(
+            f"  demands: {dem['rows_used']} rows used, {dem['rows_rejected']} rejected "
+            f"of {dem['rows_read']} read ({dem['path']})\n"
+        )
+        for p in dem["problems"]:
+            out.write(f"    {p['severity']}: {dem['path']}:{p['line']}: {p['message']}\n")
+    best = top_joints(results, top)
+    if best:
+        out.write(f"  highest utilisations (top {len(best)}):\n")
+        for j in best:
+            ch = j["check"]
+            g = ch["governing"]
+            out.write(
+                f"    {g['utilisation']:6.2f}  {ch['status']:4}  {j['label']:<24} {g['name']} "
+                f"({cite(results, g['clause'])}; {g['combination']})\n"
+            )
+    kinds = Counter(p["kind"] for j in results["joints"] for p in j["check"]["problems"])
+    if kinds:
+        out.write("  problems: " + ", ".join(f"{k} {v}" for k, v in sorted(kinds.items())) + "\n")
+    for note in ck["notes"]:
+        out.write(f"  note: {note}\n")
+    out.write(f"  {CAUTION}\n")
+
+
+__all__ = [
+    "READABLE_SCHEMA_VERSIONS",
+    "RESULTS_SCHEMA_VERSION",
+    "Status",
+    "build_results",
+    "issues_rows",
+    "results_dataframe",
+    "write_check_summary",
+    "write_issues",
+    "write_results_csv",
+    "write_results_json",
+]

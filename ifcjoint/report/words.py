@@ -1,0 +1,366 @@
+"""Words for people, made from codes: the only place a decision becomes a sentence.
+
+Every table maps a code to a function of the code's values. Nothing outside the renderers
+reads these sentences back: decisions compare codes (``ifcjoint.model.codes``).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Mapping
+from typing import Any
+
+from ifcjoint.ec3.code import EN_1993_1_8, Component, Eurocode3
+from ifcjoint.ec3.moment_resistance import Limit, LimitScope
+from ifcjoint.model.codes import (
+    Coded,
+    FindingCode,
+    NotChecked,
+    NotCheckedCode,
+    NoteCode,
+    ProblemKind,
+    ReasonCode,
+    Status,
+    UnsupportedPart,
+    Verification,
+)
+from ifcjoint.model.joints import Finding
+
+Words = Callable[[Mapping[str, Any]], str]
+
+#: Status as the outputs print it.
+STATUS_WORDS = {
+    Status.PASS: "pass",
+    Status.FAIL: "fail",
+    Status.NO_DEMANDS: "unchecked: no demands",
+    Status.INCOMPLETE: "unchecked: incomplete",
+    Status.UNSUPPORTED: "unchecked: unsupported",
+    Status.UNREADABLE: "unchecked: unreadable",
+}
+
+_PARTS: dict[UnsupportedPart, Words] = {
+    UnsupportedPart.HAUNCH_PLATES: lambda v: f"haunch below the beam ({v['n']} plate(s))",
+    UnsupportedPart.INCLINED_STIFFENER: lambda v: f"inclined column stiffener ({v['n']} plate(s))",
+    UnsupportedPart.HAUNCH_MEMBERS: lambda v: f"haunch below the beam ({v['n']} member(s))",
+}
+
+
+def _unsupported(v: Mapping[str, Any]) -> str:
+    parts = "; ".join(_PARTS[UnsupportedPart(p)]({"n": n}) for p, n in v["parts"])
+    return f"{parts} (not handled yet; the joint is otherwise read as {v['otherwise']})"
+
+
+#: Why a joint has its archetype.
+REASONS: dict[ReasonCode, Words] = {
+    ReasonCode.END_PLATE_NO_BOLTS: lambda v: "end plate at the beam end but no bolts",
+    ReasonCode.PLATE_OFF_FACE: lambda v: f"end plate stands {v['gap']:.0f} mm off the column face",
+    ReasonCode.FIN_PLATE_NO_BOLTS: lambda v: "fin plate but no bolts",
+    ReasonCode.BOLTS_NO_PLATE: lambda v: f"{v['n']} bolt(s) but no plate",
+    ReasonCode.STOPS_SHORT: lambda v: (
+        f"beam stops {v['gap']:.0f} mm short of the column and nothing bridges"
+    ),
+    ReasonCode.DEPTH_UNKNOWN: lambda v: (
+        "end plate with bolts; beam depth unknown, extent not judged"
+    ),
+    ReasonCode.ROWS_OUTSIDE: lambda v: (
+        f"{v['n']} bolt row(s) {' and '.join(v['where'])} the beam depth"
+    ),
+    ReasonCode.ROWS_WITHIN: lambda v: f"all {v['n']} bolt row(s) within the beam depth",
+    ReasonCode.FIN_PLATE_BOLTS: lambda v: (
+        f"plate beside the beam web with {v['n']} bolt(s): nominally pinned"
+    ),
+    ReasonCode.ON_FACE: lambda v: (
+        f"beam end on the column face (gap {v['gap']:.1f} mm), no plate or bolts"
+    ),
+    ReasonCode.DRAWN_INTO: lambda v: (
+        f"beam drawn {v['depth']:.0f} mm into the column, no plates or bolts: "
+        "the connection is not modelled"
+    ),
+    ReasonCode.UNSUPPORTED_PARTS: _unsupported,
+    ReasonCode.NOT_DECIDED: lambda v: "archetype not decided yet (anatomy not read)",
+}
+
+#: Why something was not checked (or classified).
+NOT_CHECKED: dict[NotCheckedCode, Words] = {
+    NotCheckedCode.NO_ANATOMY: lambda v: "no anatomy for this joint",
+    NotCheckedCode.DATA_NOT_READ: lambda v: (
+        "not read from the model: " + ", ".join(v["missing"])
+    ),
+    NotCheckedCode.STRENGTH_UNAVAILABLE: lambda v: f"steel strength not available: {v['error']}",
+    NotCheckedCode.BOLT_DATA_MISSING: lambda v: "bolt diameter, class, hole or gauge not read",
+    NotCheckedCode.NO_TENSILE_AREA: lambda v: f"no tensile stress area for M{v['d']:g}",
+    NotCheckedCode.SECTION_DIMENSIONS_MISSING: lambda v: "section dimensions missing",
+    NotCheckedCode.MINOR_AXIS: lambda v: (
+        "minor-axis joint (beam on the column web): not handled yet"
+    ),
+    NotCheckedCode.FIN_PLATE: lambda v: (
+        "fin plate, nominally pinned: no moment resistance to check; the fin plate shear "
+        "check is not implemented yet"
+    ),
+    NotCheckedCode.ARCHETYPE_NOT_CHECKED: lambda v: (
+        f"archetype {v['archetype']}: only bolted end plates and welded joints are checked"
+    ),
+    NotCheckedCode.ROW_NOT_TWO_BOLTS: lambda v: (
+        "a bolt row without exactly two bolts: outside the method's scope here"
+    ),
+    NotCheckedCode.FEWER_THAN_TWO_ROWS: lambda v: "fewer than two bolt rows",
+    NotCheckedCode.WEB_TOO_SLENDER: lambda v: (
+        f"column web too slender for 6.2.6.1: dc/tw = {v['ratio']:.1f} > 69 eps = "
+        f"{v['limit']:.1f}"
+    ),
+    NotCheckedCode.BOLTS_IN_ROOT_RADIUS: lambda v: (
+        "bolts inside the column's root radius: T-stub geometry undefined"
+    ),
+    NotCheckedCode.NO_DEMANDS: lambda v: "no demand row for this joint",
+    NotCheckedCode.NO_SPAN_OR_IY: lambda v: "not classified: beam span or Iy unknown",
+    NotCheckedCode.NO_PLASTIC_MODULI: lambda v: "not classified: plastic moduli unknown",
+}
+
+
+def _beta_from_moments(v: Mapping[str, Any]) -> str:
+    src = f" (other side from {v['other_source']})" if v.get("other_source") else ""
+    return f"beta = {v['beta']:g} from the moments of both sides (Table 5.4){src}"
+
+
+#: How a result was obtained.
+NOTES: dict[NoteCode, Words] = {
+    NoteCode.WELDS_ASSUMED: lambda v: (
+        f"weld throats assumed (not modelled): flanges a = {v['a_top']:g} / "
+        f"{v['a_bottom']:g} mm, web a = {v['a_web']:g} mm"
+    ),
+    NoteCode.ALPHA_APPROXIMATION: lambda v: (
+        "alpha (EN 1993-1-8 Fig 6.11) from a closed-form representation of the chart "
+        "recalled from memory (7.36 where the published example reads 7.5); values per row "
+        "in the end-plate components"
+    ),
+    NoteCode.ALPHA_CONSERVATIVE: lambda v: (
+        f"alpha (EN 1993-1-8 Fig 6.11) taken as {v['alpha']} (the chart's lowest "
+        "value, conservative); --alpha approximation uses a representation of the chart"
+    ),
+    NoteCode.PRYING_ASSUMED: lambda v: (
+        "bolt elongation length L_b from the plies (grip, two washers, half the head and "
+        "nut); the T-stubs assume prying forces (Table 6.2)"
+    ),
+    NoteCode.STIFFENERS_IGNORED: lambda v: (
+        f"{v['n']} transverse column stiffener(s): the resistances are those "
+        "of the unstiffened column (stiffeners ignored, on the safe side: a stiffener cannot "
+        "lower the plastic resistance); stiffness with k2 = infinite where the compression "
+        "flange and k3 = infinite for the rows next to a tension flange that a stiffener "
+        "lines up with (Table 6.11, stiffened web)"
+    ),
+    NoteCode.WEB_PLATES_IGNORED: lambda v: (
+        f"{v['n']} supplementary web plate(s): ignored "
+        "(6.2.6.1(6)-(8) would raise Avc and the web resistances; on the safe side), "
+        "stiffness of the unreinforced web"
+    ),
+    NoteCode.SHEAR_FROM_BOLTS: lambda v: (
+        f"Vj,Rd: {v['n_shear']} bolt(s) in shear rows at "
+        f"{v['per_bolt'] / 1e3:.1f} kN, {v['n_tension']} in tension rows at (1 - 1/1.4) of "
+        "that (Table 3.4 interaction, common practice); bearing (Table 3.4) on the plate "
+        f"{v['fb_plate'] / 1e3:.0f} kN and on the column flange {v['fb_col'] / 1e3:.0f} kN "
+        "per bolt"
+    ),
+    NoteCode.SHEAR_FROM_WELDS: lambda v: (
+        "Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"
+    ),
+    NoteCode.BETA_ONE_SINGLE_SIDED: lambda v: "beta = 1: single-sided joint",
+    NoteCode.BETA_ONE_UNTIL_DEMANDS: lambda v: (
+        "beta = 1 (single-sided, conservative) until the demands give the moments of both sides"
+    ),
+    NoteCode.BETA_TABLE_SINGLE_SIDED: lambda v: "beta = 1: single-sided joint (Table 5.4)",
+    NoteCode.BETA_OTHER_SIDE_MISSING: lambda v: (
+        "beta = 1: double-sided joint but M_Ed of the other side not given (Table 5.4; "
+        "unconservative if the two moments are opposed)"
+    ),
+    NoteCode.BETA_FROM_MOMENTS: _beta_from_moments,
+    NoteCode.COLUMN_SHEARS_ZERO: lambda v: (
+        "column shears not given: (Vc1,Ed - Vc2,Ed)/2 taken as 0 in Eq. (5.3)"
+    ),
+    NoteCode.AXIAL_NEGLECTED: lambda v: (
+        "N_Ed at most 5 % of the beam's Npl,Rd: neglected (6.2.7.1(2))"
+    ),
+}
+
+
+def _edge(v: Mapping[str, Any], m: float, lim: float) -> str:
+    if v["edge"] == "side":
+        return f"bolts are {m:.0f} mm from the plate's side edge (min {lim:.1f})"
+    return f"bolt row {v['row']} is {m:.0f} mm from the plate's {v['edge']} edge (min {lim:.1f})"
+
+
+def _outside(v: Mapping[str, Any], m: float, lim: float) -> str:
+    if v["part"] == "column_flange":
+        return (
+            f"a bolt axis lies {m:.0f} mm from the column flange tip: the hole is not inside "
+            "the flange"
+        )
+    return f"a bolt axis lies {m:.0f} mm from the plate's edge: the hole is not inside the plate"
+
+
+def _rows(v: Mapping[str, Any]) -> str:
+    i, j = v["rows"]
+    return f"rows {i} and {j}"
+
+
+FindingWords = Callable[[Mapping[str, Any], Any, Any], str]
+
+#: A finding in words: f(detail, measured, limit).
+FINDINGS: dict[FindingCode, FindingWords] = {
+    FindingCode.SECTION_MISMATCH: lambda v, m, lim: (
+        f"{v['who']} is named {v['named']} but its {v['dim']} is {m:.1f} mm "
+        f"(catalogue {lim:.1f} mm)"
+    ),
+    FindingCode.GRADE_MISSING: lambda v, m, lim: (
+        f"{v['who']} steel grade not found (material '{v['material'] or 'none'}'); "
+        "it will not be checked with a guessed grade"
+    ),
+    FindingCode.BOLT_CLASS_MISSING: lambda v, m, lim: (
+        "bolt property class (4.6 ... 10.9) not found in names or properties"
+    ),
+    FindingCode.PLATE_WITHOUT_BOLTS: lambda v, m, lim: (
+        f"{str(v['role']).replace('_', ' ')} has no bolts"
+    ),
+    FindingCode.BOLTS_WITHOUT_PLATE: lambda v, m, lim: "bolts at the joint but no plate",
+    FindingCode.GAP_TO_COLUMN: lambda v, m, lim: (
+        f"end plate stands {m:.0f} mm off the column face"
+    ),
+    FindingCode.OVERLAP_WITH_COLUMN: lambda v, m, lim: f"end plate runs {m:.0f} mm into the column",
+    FindingCode.END_DISTANCE_MIN: _edge,
+    FindingCode.EDGE_DISTANCE_MIN: _edge,
+    FindingCode.BOLT_OUTSIDE_OUTLINE: _outside,
+    FindingCode.PITCH_MIN: lambda v, m, lim: (
+        f"{_rows(v)} are {m:.0f} mm apart (min {lim:.1f})"
+    ),
+    FindingCode.PITCH_MAX: lambda v, m, lim: f"{_rows(v)} are {m:.0f} mm apart (max {lim:.0f})",
+    FindingCode.SPACING_MIN: lambda v, m, lim: (
+        f"gauge {m:.0f} mm below the minimum {lim:.1f} mm"
+    ),
+    FindingCode.HOLE_CLEARANCE: lambda v, m, lim: (
+        f"hole {v['hole']:.1f} mm for an M{v['d']:.0f} bolt: clearance {m:.1f} mm "
+        f"(normal {lim:.0f} mm)"
+    ),
+    FindingCode.BOLT_PATTERN_ASYMMETRIC: lambda v, m, lim: (
+        f"row {v['row']} is off the web centreline by {m:.0f} mm"
+    ),
+    FindingCode.PLATE_THICKNESS_IMPLAUSIBLE: lambda v, m, lim: (
+        f"{m:.0f} mm end plate with M{v['d']:.0f} bolts"
+    ),
+    FindingCode.PLATE_WIDER_THAN_COLUMN_FLANGE: lambda v, m, lim: (
+        f"end plate {m:.0f} mm wide on a {lim:.0f} mm column flange"
+    ),
+    FindingCode.COLUMN_EDGE_DISTANCE_MIN: lambda v, m, lim: (
+        f"bolts are {m:.0f} mm from the column flange tip (min {lim:.1f})"
+    ),
+    FindingCode.HOLE_ON_ROOT_RADIUS: lambda v, m, lim: (
+        f"hole edge reaches the column root radius (bolt centre {m:.0f} mm from it)"
+    ),
+    FindingCode.NO_SPANNER_ROOM: lambda v, m, lim: (
+        f"bolt centre {m:.0f} mm from the root radius: no room for the nut and washer"
+    ),
+    FindingCode.BOLT_TOO_SHORT: lambda v, m, lim: (
+        f"{v['count']} bolt(s) {m:.0f} mm long for a {v['grip']:.0f} mm grip (need {lim:.0f})"
+    ),
+}
+
+#: What an unchecked joint's problem says it lacks.
+UNCHECKED_WHAT = {
+    Status.NO_DEMANDS: "no design forces given",
+    Status.UNSUPPORTED: "outside what ifcjoint checks",
+    Status.UNREADABLE: "data missing in the model",
+}
+
+#: Units of a verification as printed: (unit, N or N mm per printed unit).
+UNITS = {
+    Verification.MOMENT: ("kNm", 1e6),
+    Verification.SHEAR: ("kN", 1e3),
+    Verification.WEB_PANEL_SHEAR: ("kN", 1e3),
+    Verification.BENDING_AND_AXIAL: ("-", 1e3),
+}
+
+
+_TABLES: dict[type, Mapping] = {ReasonCode: REASONS, NotCheckedCode: NOT_CHECKED, NoteCode: NOTES}
+
+
+def coded(c: Coded | None) -> str:
+    """A code with its values, in words (empty for None)."""
+    if c is None:
+        return ""
+    table: Mapping = _TABLES[type(c.code)]
+    return table[c.code](c.values)
+
+
+def not_checked(reason: NotChecked | None) -> str:
+    """Why something was not checked, in words (empty when it was)."""
+    return coded(reason)
+
+
+def finding_message(f: Finding) -> str:
+    """A finding in one sentence."""
+    return FINDINGS[f.code](f.detail, f.measured, f.limit)
+
+
+def component_name(c: Component | str, code: Eurocode3 = EN_1993_1_8) -> str:
+    """What the design code calls a component."""
+    return code.component_name(c)
+
+
+def limit_words(limit: Limit | None, code: Eurocode3 = EN_1993_1_8) -> str:
+    """What limited a bolt row or a joint, in words (``end plate in bending (row 1 alone)``)."""
+    if limit is None:
+        return ""
+    s = limit.scope
+    if s == LimitScope.TRIANGULAR:
+        return f"triangular limit from row {limit.first} (6.2.7.2(9))"
+    name = code.component_name(limit.component)
+    if s == LimitScope.ALONE:
+        return f"{name} (row {limit.first} alone)"
+    if s == LimitScope.GROUP:
+        return f"{name} (rows {limit.first}-{limit.last})"
+    if s == LimitScope.COMPRESSION:
+        return f"{name} (compression side)"
+    return name
+
+
+def verification_name(
+    kind: Verification, sense: str, code: Eurocode3 = EN_1993_1_8
+) -> str:
+    """What a utilisation compares, in words (``moment resistance Mj,Rd (hogging)``)."""
+    if kind == Verification.MOMENT:
+        return f"moment resistance {code.symbol('M_j_Rd')} ({sense})"
+    if kind == Verification.SHEAR:
+        return f"shear resistance {code.symbol('V_j_Rd')}"
+    if kind == Verification.WEB_PANEL_SHEAR:
+        return code.component_name(Component.WEB_PANEL_SHEAR)
+    return f"bending and axial {sense} (Eq. 6.24)"
+
+
+def verification_detail(u, code: Eurocode3 = EN_1993_1_8) -> str:
+    """The line under a utilisation: what governed, the lever arm, Nj,Rd."""
+    if u.verification == Verification.MOMENT:
+        return f"governed by {limit_words(u.detail.get('governing'), code)}"
+    if u.verification == Verification.WEB_PANEL_SHEAR:
+        return f"{code.symbol('V_wp_Ed')} by Eq. (5.3) with z = {u.detail['z']:.0f} mm"
+    if u.verification == Verification.BENDING_AND_AXIAL:
+        return (
+            f"Mj,Ed/Mj,Rd + Nj,Ed/Nj,Rd with {code.symbol('N_j_Rd')} = "
+            f"{u.resistance / 1e3:.0f} kN"
+        )
+    return ""
+
+
+__all__ = [
+    "FINDINGS",
+    "NOTES",
+    "NOT_CHECKED",
+    "REASONS",
+    "STATUS_WORDS",
+    "UNCHECKED_WHAT",
+    "UNITS",
+    "ProblemKind",
+    "coded",
+    "component_name",
+    "finding_message",
+    "limit_words",
+    "not_checked",
+    "verification_detail",
+    "verification_name",
+]

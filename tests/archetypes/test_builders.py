@@ -1,0 +1,57 @@
+"""From the demo's scanned joints to engine inputs and checks.
+
+What is expected follows from what the generator built (sample_models/generate.py): extended
+and flush end plates on column flanges are checked; minor-axis fin plates, welded and
+incomplete joints are not, each with its reason. Resistance values here are not compared
+with a source (the demo is invented); the published example is reproduced in
+tests/engine/test_check.py.
+"""
+
+from __future__ import annotations
+
+import json
+
+from ifcjoint.archetypes import check_joint
+from ifcjoint.archetypes.builders import end_plate_input
+from ifcjoint.ec3.code import EN_1993_1_8
+from ifcjoint.model.codes import Archetype, Axis, NotChecked, NotCheckedCode, NoteCode
+from ifcjoint.report.results import result_dict
+from tests.conftest import SAMPLES
+
+CHECKED = (Archetype.EXTENDED_END_PLATE, Archetype.FLUSH_END_PLATE, Archetype.WELDED)
+
+
+def test_demo_joints_checked_or_told_why(scan_cached):
+    r = scan_cached(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    members = {m.guid: m for m in r.model.members}
+    results = {j.id: (j, check_joint(j, r.anatomy[j.id], members)) for j in r.joints}
+    for j, res in results.values():
+        if j.axis == Axis.MINOR:
+            assert not res.checked and res.not_checked.code == NotCheckedCode.MINOR_AXIS
+        elif j.archetype in CHECKED:
+            assert res.checked, res.not_checked
+            d = result_dict(res, EN_1993_1_8)
+            json.dumps(d)  # the output contract is plain JSON
+            assert d["resistance"]["Mj_Rd_hogging_kNm"] > 0
+            assert d["inputs"]["welds"]["assumed"] is True
+            assert any(n.code == NoteCode.WELDS_ASSUMED for n in res.notes)
+            rows = d["inputs"].get("bolts", {}).get("rows_from_beam_top", [0.0])
+            if j.archetype == Archetype.EXTENDED_END_PLATE and min(rows) < 0 < max(rows):
+                # extended at the top only: weaker in sagging
+                assert res.sagging.M_j_Rd < res.hogging.M_j_Rd
+        else:
+            assert not res.checked and res.not_checked is not None
+    assert sum(1 for _, res in results.values() if res.checked) >= 25
+
+
+def test_missing_grade_is_not_checked(scan_cached):
+    from dataclasses import replace
+
+    r = scan_cached(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    members = {m.guid: m for m in r.model.members}
+    j = next(j for j in r.joints if j.archetype == Archetype.EXTENDED_END_PLATE
+             and j.axis == Axis.MAJOR)
+    a = replace(r.anatomy[j.id], beam_grade=None)
+    out = end_plate_input(j, a, members)
+    assert isinstance(out, NotChecked) and out.code == NotCheckedCode.DATA_NOT_READ
+    assert out.values["missing"] == ("beam grade",)
