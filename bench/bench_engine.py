@@ -18,9 +18,8 @@ sys.path.insert(0, str(ROOT))
 
 
 def main() -> None:
-    from tests.engine.test_end_plate import p398
-
     from ifcjoint.engine.end_plate import check_end_plate_joint
+    from tests.engine.test_end_plate import p398
 
     ap = argparse.ArgumentParser()
     ap.add_argument("--n", type=int, default=3000)

@@ -214,7 +214,7 @@ class Writer:
             setattr(e, a, v)
         return e
 
-    def L(self, v: float) -> float:  # noqa: N802 - length in model units
+    def L(self, v: float) -> float:
         return float(v) * self.k
 
     def pt(self, xyz) -> object:

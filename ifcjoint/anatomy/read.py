@@ -226,6 +226,55 @@ def bolt_size(fs: list[Fastener]) -> tuple[float | None, str, str | None, float 
     return d, src or "not found", cls, length
 
 
+#: A bolt where it crosses the plate, in the joint frame: (depth below the beam top, lateral
+#: offset, id, distance along the beam from the column face), mm.
+BoltPoint = tuple[float, float, str, float]
+
+
+def bolt_points(fs: list[Fastener], fr: JointFrame, plate: Plate | None) -> list[BoltPoint]:
+    """Where each bolt's axis crosses the plate (its centre without a plate), per shank."""
+    pts = []
+    for f in fs:
+        # a bolt group exported as one element counts once per shank
+        centres = f.shanks or (f.center,)
+        for k, cc in enumerate(centres, start=1):
+            c = np.array(cc)
+            if plate is not None:
+                nrm = np.array(plate.normal)
+                ax = np.array(f.axis)
+                den = ax.dot(nrm)
+                if abs(den) > 0.5:
+                    c = c + ax * ((np.array(plate.center) - c).dot(nrm) / den)
+            z = float((fr.beam_top - c).dot(fr.n))
+            y = float((c - fr.face).dot(fr.lat))
+            x = float((c - fr.face).dot(fr.t))
+            pts.append((z, y, f"{f.guid}[{k}]" if f.shanks else f.guid, x))
+    return pts
+
+
+def bolt_rows(pts: list[BoltPoint]) -> list[BoltRow]:
+    """Bolts closer than ``ROW_TOLERANCE`` in height form a row; rows numbered from the top."""
+    rows: list[list[BoltPoint]] = []
+    for q in sorted(pts):
+        if rows and abs(q[0] - rows[-1][0][0]) <= ROW_TOLERANCE:
+            rows[-1].append(q)
+        else:
+            rows.append([q])
+    out = []
+    for i, r in enumerate(rows, start=1):
+        r.sort(key=lambda q: (q[1], q[3]))
+        out.append(
+            BoltRow(
+                index=i,
+                from_beam_top=float(np.mean([q[0] for q in r])),
+                lateral=tuple(q[1] for q in r),
+                bolts=tuple(q[2] for q in r),
+                along=tuple(q[3] for q in r),
+            )
+        )
+    return out
+
+
 def read_bolts(
     fs: list[Fastener],
     fr: JointFrame,
@@ -243,42 +292,7 @@ def read_bolts(
             assumed.append(f"bolt class {cls} (user setting; none in model)")
     elif cls is None:
         findings.append(RULES["bolt_class_missing"].finding(elements=tuple(f.guid for f in fs)))
-    # Bolt positions where their axes cross the plate (or their centres).
-    pts = []
-    for f in fs:
-        # a bolt group exported as one element counts once per shank
-        centres = f.shanks or (f.center,)
-        for k, cc in enumerate(centres, start=1):
-            c = np.array(cc)
-            if plate is not None:
-                nrm = np.array(plate.normal)
-                ax = np.array(f.axis)
-                den = ax.dot(nrm)
-                if abs(den) > 0.5:
-                    c = c + ax * ((np.array(plate.center) - c).dot(nrm) / den)
-            z = float((fr.beam_top - c).dot(fr.n))
-            y = float((c - fr.face).dot(fr.lat))
-            x = float((c - fr.face).dot(fr.t))
-            pts.append((z, y, f"{f.guid}[{k}]" if f.shanks else f.guid, x))
-    pts.sort()
-    rows: list[list[tuple[float, float, str, float]]] = []
-    for z, y, g, x in pts:
-        if rows and abs(z - rows[-1][0][0]) <= ROW_TOLERANCE:
-            rows[-1].append((z, y, g, x))
-        else:
-            rows.append([(z, y, g, x)])
-    brows = []
-    for i, r in enumerate(rows, start=1):
-        r.sort(key=lambda q: (q[1], q[3]))
-        brows.append(
-            BoltRow(
-                index=i,
-                from_beam_top=float(np.mean([q[0] for q in r])),
-                lateral=tuple(q[1] for q in r),
-                bolts=tuple(q[2] for q in r),
-                along=tuple(q[3] for q in r),
-            )
-        )
+    brows = bolt_rows(bolt_points(fs, fr, plate))
     gauges = [r.lateral[-1] - r.lateral[0] for r in brows if len(r.lateral) == 2]
     gauge = float(np.median(gauges)) if gauges else None
     pitches = tuple(

@@ -40,14 +40,16 @@ BY_ARCHETYPE: dict[Archetype, JointType] = {
 }
 
 
-def decide(joint: Joint, a: JointAnatomy) -> tuple[Archetype, Reason]:
+def decide(
+    joint: Joint, a: JointAnatomy, registry: tuple[JointType, ...] = REGISTRY
+) -> tuple[Archetype, Reason]:
     """A joint's archetype and the reason, decided once from its anatomy.
 
     The registry's first match gives the joint's kind; a joint with parts no archetype checks
     (an override) is reported as such, saying what it is otherwise.
     """
     base = next(
-        ((t.archetype, r) for t in REGISTRY if (r := t.recognise(joint, a)) is not None),
+        ((t.archetype, r) for t in registry if (r := t.recognise(joint, a)) is not None),
         (Archetype.UNKNOWN, Reason(ReasonCode.NOT_DECIDED)),
     )
     for t in OVERRIDES:
@@ -57,8 +59,12 @@ def decide(joint: Joint, a: JointAnatomy) -> tuple[Archetype, Reason]:
     return base
 
 
-def joint_type(archetype: Archetype) -> JointType:
-    """The registered object of an archetype."""
+def joint_type(
+    archetype: Archetype, registry: tuple[JointType, ...] | None = None
+) -> JointType:
+    """The registered object of an archetype (in the given registry, else the default one)."""
+    if registry is not None:
+        return next((t for t in registry if t.archetype == archetype), _LEFT)
     return BY_ARCHETYPE.get(archetype, _LEFT)
 
 
@@ -67,12 +73,13 @@ def check_joint(
     a: JointAnatomy | None,
     members: dict[str, Member],
     settings: CheckSettings | None = None,
+    registry: tuple[JointType, ...] | None = None,
 ) -> CheckResult:
     """Check one joint with its archetype's object, or say why it is not checked."""
     if a is None:
         return not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
     st = settings or CheckSettings()
-    jt = joint_type(joint.archetype)
+    jt = joint_type(joint.archetype, registry)
     inp = jt.engine_input(joint, a, members, st)
     if isinstance(inp, NotChecked):
         return not_checked(inp)

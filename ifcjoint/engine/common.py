@@ -8,7 +8,7 @@ from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import stiffness as stf
 from ifcjoint.engine.inputs import JointInput, MemberInput, WeldsInput
-from ifcjoint.engine.results import Classification, SideResult
+from ifcjoint.engine.results import CheckResult, Classification, SideResult
 from ifcjoint.model.codes import (
     NotChecked,
     NotCheckedCode,
@@ -105,4 +105,27 @@ def slender_web(col: MemberInput) -> NotChecked | None:
     return NotChecked(
         NotCheckedCode.WEB_TOO_SLENDER,
         {"ratio": dc / col.tw, "limit": 69 * cmp.epsilon(col.fy)},
+    )
+
+
+def checked(
+    inp: JointInput,
+    hog: SideResult,
+    sag: SideResult,
+    *,
+    V_j_Rd: float,
+    V_wp_Rd: float,
+    notes: list[Note],
+    joint_kind: str,
+) -> CheckResult:
+    """A checked joint's result: both signs, shear, classification and the input used."""
+    return CheckResult(
+        hogging=hog,
+        sagging=sag,
+        V_j_Rd=V_j_Rd,
+        V_wp_Rd=V_wp_Rd,
+        classification=classify(inp, hog, sag),
+        notes=tuple(notes),
+        input=inp,
+        joint_kind=joint_kind,
     )

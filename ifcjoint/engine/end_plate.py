@@ -32,7 +32,7 @@ from ifcjoint.ec3.code import Component
 from ifcjoint.ec3.moment_resistance import M_j_Rd, distribute_tension
 from ifcjoint.ec3.tstub import TStubResult, t_stub
 from ifcjoint.engine.common import (
-    classify,
+    checked,
     column_plate_notes,
     plastic_modulus,
     shear_area,
@@ -86,15 +86,8 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     sag = _SideCheck(inp, "sagging", a_vc, vwp).result()
     vjrd, vnote = _shear(inp, hog)
     notes.append(vnote)
-    return CheckResult(
-        hogging=hog,
-        sagging=sag,
-        V_j_Rd=vjrd,
-        V_wp_Rd=vwp,
-        classification=classify(inp, hog, sag),
-        notes=tuple(notes),
-        input=inp,
-        joint_kind="bolted_end_plate",
+    return checked(
+        inp, hog, sag, V_j_Rd=vjrd, V_wp_Rd=vwp, notes=notes, joint_kind="bolted_end_plate"
     )
 
 

@@ -9,7 +9,7 @@ from ifcjoint.ec3 import stiffness as stf
 from ifcjoint.ec3.code import Component
 from ifcjoint.ec3.moment_resistance import Limit, LimitScope, RowResult
 from ifcjoint.engine.common import (
-    classify,
+    checked,
     column_plate_notes,
     plastic_modulus,
     shear_area,
@@ -42,16 +42,7 @@ def check_welded_joint(inp: WeldedJointInput) -> CheckResult:
     fvw_web = cmp.f_vw_d(min(beam.fu, col.fu), cmp.BETA_W.get(beam.grade, 1.0), p)
     vjrd = 2 * w.web_throat * (beam.h - 2 * beam.tf) * fvw_web
     notes = [Note(NoteCode.SHEAR_FROM_WELDS), *column_plate_notes(inp), *weld_notes(w)]
-    return CheckResult(
-        hogging=hog,
-        sagging=sag,
-        V_j_Rd=vjrd,
-        V_wp_Rd=vwp,
-        classification=classify(inp, hog, sag),
-        notes=tuple(notes),
-        input=inp,
-        joint_kind="welded",
-    )
+    return checked(inp, hog, sag, V_j_Rd=vjrd, V_wp_Rd=vwp, notes=notes, joint_kind="welded")
 
 
 def _side(

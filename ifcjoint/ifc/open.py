@@ -82,6 +82,6 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str]:
             )
         try:
             f = ifcopenshell.open(str(spf), format=".ifc")
-        except Exception as exc:  # noqa: BLE001 - the parser raises several kinds
+        except Exception as exc:  # the parser raises several kinds
             raise ModelError(str(path), f"the IFC parser rejected the file: {exc}") from exc
     return f, sha

@@ -106,6 +106,117 @@ def _extrusion_box(ctx: ReadContext, item, m: Aff) -> SolidBox:
     return SolidBox(np.array(pos[0:3]), ax, lo, hi, prof, "extrusion")
 
 
+@dataclass(slots=True)
+class _Walk:
+    """What every item reader gets: the context, the world affine and the two box lists."""
+
+    ctx: ReadContext
+    m: Aff
+    out: list[SolidBox]
+    cuts: list[SolidBox] | None
+
+    def into(self, item, m: Aff | None = None, out: list[SolidBox] | None = None) -> None:
+        """Read a sub-item (its own affine and list when given)."""
+        walk(self.ctx, item, self.m if m is None else m, self.out if out is None else out,
+             self.cuts)
+
+    def framed(self, position) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+        """Origin, unit axes and scales of a placement under the current affine."""
+        return _frame_from(aff_to_np(aff_compose(self.m, a2p_aff(self.ctx, position))))
+
+
+def _extrusion(w: _Walk, item) -> None:
+    w.out.append(_extrusion_box(w.ctx, item, w.m))
+
+
+def _mapped(w: _Walk, item) -> None:
+    src = item.MappingSource
+    mm = aff_compose(
+        aff_compose(w.m, np_to_aff(cartesian_operator(item.MappingTarget))),
+        a2p_aff(w.ctx, src.MappingOrigin),
+    )
+    for sub in src.MappedRepresentation.Items:
+        w.into(sub, m=mm)
+
+
+def _boolean(w: _Walk, item) -> None:
+    w.into(item.FirstOperand)
+    if item.Operator == "UNION":
+        w.into(item.SecondOperand)
+    elif item.Operator == "DIFFERENCE" and w.cuts is not None:
+        try:  # keep what is cut away: round cuts through plates are bolt holes
+            walk(w.ctx, item.SecondOperand, w.m, w.cuts, w.cuts)
+        except NeedsMesh:
+            pass
+
+
+def _csg(w: _Walk, item) -> None:
+    w.into(item.TreeRootExpression)
+
+
+def _cylinder(w: _Walk, item) -> None:
+    origin, axes, s = w.framed(item.Position)
+    r = item.Radius
+    lo, hi = np.array([-r, -r, 0.0]) * s, np.array([r, r, item.Height]) * s
+    w.out.append(SolidBox(origin, axes, lo, hi, None, "cylinder"))
+
+
+def _bounding_box(w: _Walk, item) -> None:
+    origin, axes, s = _frame_from(aff_to_np(w.m))
+    o = origin + axes @ (np.array(item.Corner.Coordinates, dtype=float) * s)
+    hi = np.array([item.XDim, item.YDim, item.ZDim]) * s
+    w.out.append(SolidBox(o, axes, np.zeros(3), hi, None, "block"))
+
+
+def _block(w: _Walk, item) -> None:
+    origin, axes, s = w.framed(item.Position)
+    hi = np.array([item.XLength, item.YLength, item.ZLength]) * s
+    w.out.append(SolidBox(origin, axes, np.zeros(3), hi, None, "block"))
+
+
+def _swept_disk(w: _Walk, item) -> None:
+    if not item.Directrix.is_a("IfcPolyline"):
+        raise NeedsMesh("IfcSweptDiskSolid")
+    pts = np.array([p.Coordinates for p in item.Directrix.Points], dtype=float)
+    if pts.shape[1] == 2:
+        pts = np.c_[pts, np.zeros(len(pts))]
+    mn = aff_to_np(w.m)
+    pts = (mn[:3, :3] @ pts.T).T + mn[:3, 3]
+    z = pts[-1] - pts[0]
+    length = float(np.linalg.norm(z))
+    if length == 0:
+        raise NeedsMesh("zero-length directrix")
+    z /= length
+    x = np.cross(z, [0, 0, 1.0]) if abs(z[2]) < 0.9 else np.cross(z, [1.0, 0, 0])
+    x /= np.linalg.norm(x)
+    y = np.cross(z, x)
+    r = item.Radius
+    lo, hi = np.array([-r, -r, 0]), np.array([r, r, length])
+    w.out.append(SolidBox(pts[0], np.column_stack([x, y, z]), lo, hi, None, "disk"))
+
+
+def _nothing(w: _Walk, item) -> None:
+    """Half-spaces bound other solids: nothing of their own to read."""
+
+
+#: IFC representation item -> its reader.
+ITEM_READERS = {
+    "IfcExtrudedAreaSolid": _extrusion,
+    "IfcExtrudedAreaSolidTapered": _extrusion,
+    "IfcMappedItem": _mapped,
+    "IfcBooleanClippingResult": _boolean,
+    "IfcBooleanResult": _boolean,
+    "IfcCsgSolid": _csg,
+    "IfcRightCircularCylinder": _cylinder,
+    "IfcBoundingBox": _bounding_box,
+    "IfcBlock": _block,
+    "IfcSweptDiskSolid": _swept_disk,
+    "IfcHalfSpaceSolid": _nothing,
+    "IfcPolygonalBoundedHalfSpace": _nothing,
+    "IfcBoxedHalfSpace": _nothing,
+}
+
+
 def walk(
     ctx: ReadContext, item, m: Aff, out: list[SolidBox], cuts: list[SolidBox] | None = None
 ) -> None:
@@ -117,93 +228,10 @@ def walk(
     Raises:
         NeedsMesh: an item that is not extrusion-like.
     """
-    t = item.is_a()
-    if t in ("IfcExtrudedAreaSolid", "IfcExtrudedAreaSolidTapered"):
-        out.append(_extrusion_box(ctx, item, m))
-    elif t == "IfcMappedItem":
-        src = item.MappingSource
-        mm = aff_compose(
-            aff_compose(m, np_to_aff(cartesian_operator(item.MappingTarget))),
-            a2p_aff(ctx, src.MappingOrigin),
-        )
-        for sub in src.MappedRepresentation.Items:
-            walk(ctx, sub, mm, out, cuts)
-    elif t in ("IfcBooleanClippingResult", "IfcBooleanResult"):
-        if item.Operator == "UNION":
-            walk(ctx, item.FirstOperand, m, out, cuts)
-            walk(ctx, item.SecondOperand, m, out, cuts)
-        else:
-            walk(ctx, item.FirstOperand, m, out, cuts)
-            if item.Operator == "DIFFERENCE" and cuts is not None:
-                try:  # keep what is cut away: round cuts through plates are bolt holes
-                    walk(ctx, item.SecondOperand, m, cuts, cuts)
-                except NeedsMesh:
-                    pass
-    elif t == "IfcCsgSolid":
-        walk(ctx, item.TreeRootExpression, m, out, cuts)
-    elif t == "IfcRightCircularCylinder":
-        origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(ctx, item.Position))))
-        r = item.Radius
-        out.append(
-            SolidBox(
-                origin,
-                axes,
-                np.array([-r, -r, 0.0]) * s,
-                np.array([r, r, item.Height]) * s,
-                None,
-                "cylinder",
-            )
-        )
-    elif t == "IfcBoundingBox":
-        c = item.Corner.Coordinates
-        origin, axes, s = _frame_from(aff_to_np(m))
-        o = origin + axes @ (np.array(c, dtype=float) * s)
-        out.append(
-            SolidBox(
-                o, axes, np.zeros(3), np.array([item.XDim, item.YDim, item.ZDim]) * s, None, "block"
-            )
-        )
-    elif t == "IfcBlock":
-        origin, axes, s = _frame_from(aff_to_np(aff_compose(m, a2p_aff(ctx, item.Position))))
-        out.append(
-            SolidBox(
-                origin,
-                axes,
-                np.zeros(3),
-                np.array([item.XLength, item.YLength, item.ZLength]) * s,
-                None,
-                "block",
-            )
-        )
-    elif t == "IfcSweptDiskSolid" and item.Directrix.is_a("IfcPolyline"):
-        pts = np.array([p.Coordinates for p in item.Directrix.Points], dtype=float)
-        if pts.shape[1] == 2:
-            pts = np.c_[pts, np.zeros(len(pts))]
-        mn = aff_to_np(m)
-        pts = (mn[:3, :3] @ pts.T).T + mn[:3, 3]
-        z = pts[-1] - pts[0]
-        length = float(np.linalg.norm(z))
-        if length == 0:
-            raise NeedsMesh("zero-length directrix")
-        z /= length
-        x = np.cross(z, [0, 0, 1.0]) if abs(z[2]) < 0.9 else np.cross(z, [1.0, 0, 0])
-        x /= np.linalg.norm(x)
-        y = np.cross(z, x)
-        r = item.Radius
-        out.append(
-            SolidBox(
-                pts[0],
-                np.column_stack([x, y, z]),
-                np.array([-r, -r, 0]),
-                np.array([r, r, length]),
-                None,
-                "disk",
-            )
-        )
-    elif t in ("IfcHalfSpaceSolid", "IfcPolygonalBoundedHalfSpace", "IfcBoxedHalfSpace"):
-        return
-    else:
-        raise NeedsMesh(t)
+    reader = ITEM_READERS.get(item.is_a())
+    if reader is None:
+        raise NeedsMesh(item.is_a())
+    reader(_Walk(ctx, m, out, cuts), item)
 
 
 def body_items(ctx: ReadContext, element):

@@ -10,9 +10,9 @@ import io
 import matplotlib
 
 matplotlib.use("Agg")
-import matplotlib.pyplot as plt  # noqa: E402
+import matplotlib.pyplot as plt
 
-from ifcjoint.model.codes import Status  # noqa: E402
+from ifcjoint.model.codes import Status
 
 #: Our own palette (see DEVELOPERS.md on originality).
 INK = "#22313f"

@@ -206,3 +206,21 @@ def test_results_do_not_depend_on_the_model_length_unit():
             assert x["classification"] == y["classification"]
             compared += 1
     assert compared >= 30
+
+
+def test_exit_codes_come_from_the_errors(tmp_path, monkeypatch):
+    # A path that cannot be written is a usage error (2); a renderer that breaks is a bug (5),
+    # never passed off as the user's mistake.
+    import ifcjoint.report.outputs as outputs
+
+    blocker = tmp_path / "file"
+    blocker.write_text("x")
+    r = run("check", DEMO, "--csv", blocker / "under-a-file.csv", "-q")
+    assert r.exit_code == 2 and "cannot write" in r.output
+
+    def broken(results, path):
+        raise RuntimeError("renderer bug")
+
+    monkeypatch.setitem(outputs.RENDERERS, "csv", broken)
+    r = run("check", DEMO, "--csv", tmp_path / "r.csv", "-q")
+    assert r.exit_code == 5 and "internal error" in r.output and "renderer bug" in r.output

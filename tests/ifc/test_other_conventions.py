@@ -53,7 +53,7 @@ class Model:
         proj.RepresentationContexts = [self.ctx]
         self.n = 0
 
-    def L(self, v):  # noqa: N802
+    def L(self, v):
         return float(v) * self.k
 
     def pt(self, p):
