@@ -141,6 +141,10 @@ class Eurocode3:
             return f"{ref.code} {ref.ref}"
         return f"{self.name} {ref}"
 
+    def ref(self, clause: Clause) -> str:
+        """A clause as the outputs write it: bare for this code's own, cited for another's."""
+        return clause.ref if clause.code == self.name else f"{clause.code} {clause.ref}"
+
     def component_name(self, component: Component | str) -> str:
         """What the code calls a component (``column flange in bending``)."""
         return self.components[Component(component)].name

@@ -28,6 +28,7 @@ from ifcjoint.ec3.bolts import (
     bolt_elongation_length,
     k1_bearing,
 )
+from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Component
 from ifcjoint.ec3.moment_resistance import M_j_Rd, distribute_tension
 from ifcjoint.ec3.tstub import TStubResult, t_stub
@@ -222,7 +223,8 @@ class _SideCheck:
 
     def add(self, clause: str, component: Component, f: float, **kw) -> float:
         """Record a component's resistance; returns it."""
-        self.comps.append(ComponentResult(clause=clause, component=component, F_Rd=f, **kw))
+        c = ComponentResult(clause=EC3.clause(clause), component=component, F_Rd=f, **kw)
+        self.comps.append(c)
         return f
 
     # --- rows alone --------------------------------------------------------------------

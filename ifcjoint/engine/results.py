@@ -11,7 +11,7 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from ifcjoint.ec3 import stiffness as stf
-from ifcjoint.ec3.code import Component
+from ifcjoint.ec3.code import Clause, Component
 from ifcjoint.ec3.moment_resistance import Limit, RowResult
 from ifcjoint.engine.inputs import JointInput
 from ifcjoint.model.codes import NotChecked, Note, StiffnessClass, StrengthClass
@@ -22,7 +22,7 @@ class ComponentResult:
     """One component's resistance (N), its clause and how it was found.
 
     Attributes:
-        clause: the clause of EN 1993-1-8 that gives the resistance (``6.2.6.4``).
+        clause: the clause that gives the resistance (``Clause("EN 1993-1-8", "6.2.6.4")``).
         component: which component.
         F_Rd: its design resistance, N.
         mode: the governing T-stub mode, when it is one.
@@ -31,7 +31,7 @@ class ComponentResult:
         inputs: the values it was computed with (mm, MPa, N), by their symbols.
     """
 
-    clause: str
+    clause: Clause
     component: Component
     F_Rd: float
     mode: str = ""

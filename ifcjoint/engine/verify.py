@@ -13,6 +13,8 @@ from dataclasses import dataclass, field, replace
 from typing import Any
 
 from ifcjoint.ec3 import components as cmp
+from ifcjoint.ec3.code import EN_1993_1_8 as EC3
+from ifcjoint.ec3.code import Clause
 from ifcjoint.ec3.moment_resistance import M_N_interaction
 from ifcjoint.engine.inputs import JointInput
 from ifcjoint.engine.results import CheckResult, Classification
@@ -38,7 +40,7 @@ class Utilisation:
 
     Attributes:
         verification: what is compared (moment, shear, web panel shear, bending and axial).
-        clause: the clause of the design code that gives the resistance.
+        clause: the clause (of a design code) that gives the resistance.
         demand: the demand's magnitude, N or N mm (the axial force for bending and axial).
         resistance: the resistance, N or N mm (Nj,Rd for bending and axial).
         utilisation: demand over resistance (the Eq. 6.24 sum for bending and axial).
@@ -48,7 +50,7 @@ class Utilisation:
     """
 
     verification: Verification
-    clause: str
+    clause: Clause
     demand: float
     resistance: float
     utilisation: float
@@ -190,7 +192,7 @@ def verify_combination(
     us = [
         Utilisation(
             verification=Verification.MOMENT,
-            clause="6.2.7.2",
+            clause=EC3.clause("6.2.7.2"),
             demand=abs(demand.M_Ed),
             resistance=m_rd,
             utilisation=_ratio(abs(demand.M_Ed), m_rd),
@@ -200,7 +202,7 @@ def verify_combination(
         ),
         Utilisation(
             verification=Verification.SHEAR,
-            clause="Table 3.4",
+            clause=EC3.clause("Table 3.4"),
             demand=abs(demand.V_Ed),
             resistance=r.V_j_Rd,
             utilisation=_ratio(abs(demand.V_Ed), r.V_j_Rd),
@@ -213,7 +215,7 @@ def verify_combination(
     us.append(
         Utilisation(
             verification=Verification.WEB_PANEL_SHEAR,
-            clause="6.2.6.1; 5.3(3)",
+            clause=EC3.clause("6.2.6.1; 5.3(3)"),
             demand=v_wp,
             resistance=r.V_wp_Rd,
             utilisation=float(v_wp / r.V_wp_Rd),
@@ -228,7 +230,7 @@ def verify_combination(
         us.append(
             Utilisation(
                 verification=Verification.BENDING_AND_AXIAL,
-                clause="6.2.7.1(3)",
+                clause=EC3.clause("6.2.7.1(3)"),
                 demand=abs(demand.N_Ed),
                 resistance=n_rd,
                 utilisation=M_N_interaction(demand.M_Ed, m_rd, demand.N_Ed, n_rd),

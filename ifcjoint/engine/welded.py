@@ -6,6 +6,7 @@ import math
 
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import stiffness as stf
+from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Component
 from ifcjoint.ec3.moment_resistance import Limit, LimitScope, RowResult
 from ifcjoint.engine.common import (
@@ -74,7 +75,7 @@ def _side(
     fweld = 2 * a_t * beam.b * fvw  # double fillet along the flange width
     panel = vwp / inp.beta if inp.beta > 0 else math.inf
     comps = [
-        ComponentResult(clause=clause, component=c, F_Rd=f, inputs=extra)
+        ComponentResult(clause=EC3.clause(clause), component=c, F_Rd=f, inputs=extra)
         for clause, c, f, extra in (
             ("6.2.6.2", Component.COLUMN_WEB_COMPRESSION, fcwc, {"b_eff_c_wc": beff_c}),
             ("6.2.6.3", Component.COLUMN_WEB_TENSION, ftwc, {"b_eff_t_wc": beff_t}),

@@ -71,7 +71,7 @@ def _demand_dict(d) -> dict:
 
 def _component_dict(c: ComponentResult, code: Eurocode3) -> dict:
     return {
-        "clause": c.clause,
+        "clause": code.ref(c.clause),
         "name": code.component_name(c.component),
         "component": c.component,
         "row": c.row,
@@ -164,7 +164,7 @@ def utilisation_dict(u: Utilisation, code: Eurocode3) -> dict:
     """One utilisation in the output's units (kN, kNm; ``-`` for an interaction)."""
     unit, f = UNITS[u.verification]
     return {
-        "clause": u.clause,
+        "clause": code.ref(u.clause),
         "name": verification_name(u.verification, u.sense, code),
         "combination": u.combination,
         "demand": round(u.demand / f, 2),
@@ -198,7 +198,7 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
         for u in p.exceeded:
             d = utilisation_dict(u, code)
             lines.append(
-                f"[{d['combination']}] {d['name']} ({code.cite(d['clause'])}): "
+                f"[{d['combination']}] {d['name']} ({code.cite(u.clause)}): "
                 f"{u.demand / UNITS[u.verification][1]:.1f} {d['unit']} > "
                 f"{u.resistance / UNITS[u.verification][1]:.1f} {d['unit']}, "
                 f"utilisation {u.utilisation:.2f}" + (f"; {d['detail']}" if d["detail"] else "")
@@ -339,9 +339,13 @@ def build_results(mc) -> dict:
 
 
 def cite(results: dict, clause: str) -> str:
-    """A clause of the run's design code as people cite it (``EN 1993-1-8 6.2.7.2``)."""
+    """A clause as people cite it (``EN 1993-1-8 6.2.7.2``).
+
+    The results write the run's own clauses bare and another code's with its name
+    (``Eurocode3.ref``); a bare one gets the run's design code.
+    """
     name = results.get("check", {}).get("design_code") or "EN 1993-1-8"
-    return f"{name} {clause}"
+    return clause if clause.startswith("EN ") else f"{name} {clause}"
 
 
 def write_results_json(results: dict, path: str | Path) -> dict[str, int]:
