@@ -387,11 +387,11 @@ def _settings(params_file, frame, alpha_method):
 @click.option(
     "--alpha",
     "alpha_method",
-    type=click.Choice(["conservative", "approximation"]),
-    default="conservative",
+    type=click.Choice(["chart", "conservative"]),
+    default="chart",
     show_default=True,
-    help="alpha of EN 1993-1-8 Fig. 6.11: the chart's lowest value 4.45, or a representation "
-    "of the chart (docs/check-engine.md).",
+    help="alpha of EN 1993-1-8 Fig. 6.11: from the chart (its published closed form), or "
+    "the chart's lowest value 4.45 everywhere (docs/check-engine.md).",
 )
 @click.option(
     "--fail-on",

@@ -26,7 +26,7 @@ from pathlib import Path
 
 from ifcjoint import __version__
 from ifcjoint.anatomy import AnatomySettings, JointAnatomy, analyse
-from ifcjoint.archetypes import check_joint, decide, joint_type
+from ifcjoint.archetypes import decide, joint_type, run_joint
 from ifcjoint.engine.inputs import input_record
 from ifcjoint.engine.problems import Problem, joint_problems
 from ifcjoint.engine.results import CheckResult
@@ -201,7 +201,7 @@ def check_one(
     st: CheckSettings,
 ) -> JointCheck:
     """Check one joint by its archetype and verify it against its demands."""
-    cap = check_joint(j, a, members, st)
+    engine_result, cap = run_joint(j, a, members, st)
     if cap.checked:
         verdict = verify_joint(
             cap.input,
@@ -209,6 +209,7 @@ def check_one(
             engine=joint_type(j.archetype).engine,
             double_sided=j.partner is not None,
             braced_default=st.braced,
+            seed=engine_result,
         )
     else:
         reason = cap.not_checked

@@ -16,6 +16,8 @@ from ifcjoint.anatomy.read import (
     BoltReading,
     BoltRow,
     PlateReading,
+    StiffenerReading,
+    WebPlateReading,
     column_plates,
     grade_of,
     read_bolts,
@@ -37,6 +39,8 @@ __all__ = [
     "BoltRow",
     "JointAnatomy",
     "PlateReading",
+    "StiffenerReading",
+    "WebPlateReading",
     "analyse",
     "analyse_joint",
 ]
@@ -67,9 +71,8 @@ class JointAnatomy:
         beam_grade, column_grade: steel grades read (or assumed by the user's setting).
         plate: the main plate in the joint frame, or None.
         bolts: the bolts, or None.
-        stiffeners: transverse column stiffeners (GlobalIds), with their depths below the
-            beam top in ``stiffener_depths``.
-        web_plates: supplementary web plates (GlobalIds).
+        stiffener_plates: transverse column stiffeners, by level, with their sizes.
+        web_plate_readings: supplementary web plates, with their sizes.
         unsupported: parts that make the joint a kind ifcjoint does not handle, with counts.
         findings: detailing and data findings, in report order.
         unread: what could not be read, in words.
@@ -84,9 +87,8 @@ class JointAnatomy:
     column_grade: str | None
     plate: PlateReading | None
     bolts: BoltReading | None
-    stiffeners: tuple[str, ...] = ()
-    web_plates: tuple[str, ...] = ()
-    stiffener_depths: tuple[float, ...] = ()
+    stiffener_plates: tuple[StiffenerReading, ...] = ()
+    web_plate_readings: tuple[WebPlateReading, ...] = ()
     unsupported: tuple[tuple[UnsupportedPart, int], ...] = ()
     findings: tuple[Finding, ...] = ()
     unread: tuple[str, ...] = ()
@@ -145,7 +147,7 @@ def analyse_joint(
     csec = section_of(col, findings, unread, "column")
     bgrade = _grade(beam, "beam", st, findings, assumed)
     cgrade = _grade(col, "column", st, findings, assumed)
-    stiff, web_plates, depths = column_plates(j, fr, plates, col)
+    stiff, web_plates = column_plates(j, fr, plates, col)
     role = _main_role(j)
     main = None
     if role is not None:
@@ -172,11 +174,24 @@ def analyse_joint(
         column_grade=cgrade,
         plate=plate_r,
         bolts=bolt_r,
-        stiffeners=stiff,
-        web_plates=web_plates,
-        stiffener_depths=depths,
+        stiffener_plates=stiff,
+        web_plate_readings=web_plates,
         unsupported=unsupported_parts(j, fr, plates, col, bsec),
         findings=tuple(findings),
         unread=tuple(unread),
         assumed=tuple(assumed),
     )
+
+
+def _all_guids(readings) -> tuple[str, ...]:
+    return tuple(sorted(g for r in readings for g in r.guids))
+
+
+def stiffener_guids(a: JointAnatomy) -> tuple[str, ...]:
+    """GlobalIds of the column's transverse stiffeners at the joint."""
+    return _all_guids(a.stiffener_plates)
+
+
+def web_plate_guids(a: JointAnatomy) -> tuple[str, ...]:
+    """GlobalIds of the column's supplementary web plates at the joint."""
+    return _all_guids(a.web_plate_readings)

@@ -137,9 +137,11 @@ def section_of(m: Member, findings: list[Finding], unread: list[str], who: str) 
 
 
 def grade_of(material: str, texts: tuple[str, ...]) -> str | None:
-    """Steel grade name (``S355``) from material and texts, or None."""
+    """Steel designation (``S355J2+N``: grade and quality letters) from material and texts."""
     g = parse_steel_grade(material, *texts)
-    return g.grade if g else None
+    if g is None:
+        return None
+    return f"{g.grade}{g.quality}" if g.en10025 else g.grade
 
 
 def tstub_geometry(
@@ -319,22 +321,102 @@ def read_bolts(
     )
 
 
+@dataclass(frozen=True, slots=True, kw_only=True)
+class StiffenerReading:
+    """Transverse column stiffeners at one level (one plate or a pair), in mm.
+
+    Attributes:
+        guids: the plates.
+        level: depth of their mid-plane below the top face of the beam.
+        t: thickness.
+        b: width of one stiffener from the web face (the narrower of a pair).
+        sides: 1 or 2 (a plate each side of the web, or one across it).
+        grade: steel grade as read, or None.
+    """
+
+    guids: tuple[str, ...]
+    level: float
+    t: float
+    b: float
+    sides: int
+    grade: str | None
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class WebPlateReading:
+    """Supplementary plates on the column web, in mm.
+
+    Attributes:
+        guids: the plates.
+        t: thickness.
+        b: width across the web (along the column's depth).
+        sides: plates on one side of the web or on both.
+        grade: steel grade as read, or None.
+    """
+
+    guids: tuple[str, ...]
+    t: float
+    b: float
+    sides: int
+    grade: str | None
+
+
+def _extent(p: Plate, axis: np.ndarray) -> float:
+    """Half extent of a plate's box along a direction (in its plane)."""
+    u, v = abs(float(np.dot(p.u_dir, axis))), abs(float(np.dot(p.v_dir, axis)))
+    return u * p.half_u + v * p.half_v
+
+
 def column_plates(
     j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member
-) -> tuple[tuple[str, ...], tuple[str, ...], tuple[float, ...]]:
-    """Transverse stiffeners (with their depth below the beam top) and web plates of the column."""
-    stiff, web_plates, depths = [], [], []
+) -> tuple[tuple[StiffenerReading, ...], tuple[WebPlateReading, ...]]:
+    """Transverse stiffeners (grouped by level) and supplementary web plates of the column."""
     axis = unit(np.subtract(col.end, col.start))
+    width_dir = unit(col.width_dir)
+    web_t = col.web_thickness or 0.0
+    origin = np.asarray(col.start, dtype=float)
+    stiff: list[tuple[float, Plate, float, float]] = []
+    webs: list[Plate] = []
     for link in j.plates:
         if link.role != PartRole.COLUMN_PLATE:
             continue
         p = plates[link.guid]
         if abs(np.dot(p.normal, axis)) > 0.9:
-            stiff.append(link.guid)
-            depths.append(fr.depth_below_top(p.center))
+            offset = abs(float(np.dot(np.asarray(p.center) - origin, width_dir)))
+            outer = offset + _extent(p, width_dir)
+            stiff.append((fr.depth_below_top(p.center), p, outer - web_t / 2, offset))
         else:
-            web_plates.append(link.guid)
-    return tuple(sorted(stiff)), tuple(sorted(web_plates)), tuple(sorted(depths))
+            webs.append(p)
+    levels: list[list[tuple[float, Plate, float, float]]] = []
+    for item in sorted(stiff, key=lambda x: x[0]):
+        if levels and abs(item[0] - levels[-1][0][0]) <= 2.0:
+            levels[-1].append(item)
+        else:
+            levels.append([item])
+    readings = tuple(
+        StiffenerReading(
+            guids=tuple(sorted(x[1].guid for x in group)),
+            level=float(np.mean([x[0] for x in group])),
+            t=min(x[1].thickness for x in group),
+            b=min(x[2] for x in group),
+            sides=2 if len(group) >= 2 or group[0][3] < web_t / 2 else 1,
+            grade=grade_of(group[0][1].material, group[0][1].texts),
+        )
+        for group in levels
+    )
+    web = ()
+    if webs:
+        depth_dir = unit(col.depth_dir)
+        sides = {np.sign(round(float(np.dot(np.asarray(w.center) - origin, width_dir)), 1))
+                 for w in webs}
+        web = (WebPlateReading(
+            guids=tuple(sorted(w.guid for w in webs)),
+            t=min(w.thickness for w in webs),
+            b=min(2 * _extent(w, depth_dir) for w in webs),
+            sides=2 if len(sides) >= 2 else 1,
+            grade=grade_of(webs[0].material, webs[0].texts),
+        ),)
+    return readings, web
 
 
 def unsupported_parts(

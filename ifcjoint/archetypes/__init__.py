@@ -8,6 +8,8 @@ here and one line in ``REGISTRY`` (DEVELOPERS.md, "Adding an archetype").
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.base import JointType
 from ifcjoint.archetypes.end_plate import EndPlateUnjudged, ExtendedEndPlate, FlushEndPlate
@@ -68,6 +70,33 @@ def joint_type(
     return BY_ARCHETYPE.get(archetype, _LEFT)
 
 
+def run_joint(
+    joint: Joint,
+    a: JointAnatomy | None,
+    members: dict[str, Member],
+    settings: CheckSettings | None = None,
+    registry: tuple[JointType, ...] | None = None,
+) -> tuple[CheckResult, CheckResult]:
+    """Check one joint with its archetype's object.
+
+    Returns the engine's own result and the same result with the archetype's notes for a
+    check without demands; both say why when the joint is not checked.
+    """
+    if a is None:
+        r = not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
+        return r, r
+    st = settings or CheckSettings()
+    jt = joint_type(joint.archetype, registry)
+    inp = jt.engine_input(joint, a, members, st)
+    if isinstance(inp, NotChecked):
+        r = not_checked(inp)
+        return r, r
+    r = jt.check(inp, joint)
+    if not r.checked:
+        return r, r
+    return r, replace(r, notes=(*r.notes, *jt.capacity_notes(joint)))
+
+
 def check_joint(
     joint: Joint,
     a: JointAnatomy | None,
@@ -76,14 +105,9 @@ def check_joint(
     registry: tuple[JointType, ...] | None = None,
 ) -> CheckResult:
     """Check one joint with its archetype's object, or say why it is not checked."""
-    if a is None:
-        return not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
-    st = settings or CheckSettings()
-    jt = joint_type(joint.archetype, registry)
-    inp = jt.engine_input(joint, a, members, st)
-    if isinstance(inp, NotChecked):
-        return not_checked(inp)
-    return jt.check(inp, joint)
+    return run_joint(joint, a, members, settings, registry)[1]
 
 
-__all__ = ["BY_ARCHETYPE", "REGISTRY", "JointType", "check_joint", "decide", "joint_type"]
+__all__ = [
+    "BY_ARCHETYPE", "REGISTRY", "JointType", "check_joint", "decide", "joint_type", "run_joint",
+]

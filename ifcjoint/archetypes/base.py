@@ -14,7 +14,7 @@ from ifcjoint.anatomy import TOUCH_TOLERANCE, JointAnatomy
 from ifcjoint.archetypes.builders import require_major_axis
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
-from ifcjoint.model.codes import Archetype, NotChecked, NotCheckedCode, PartRole, Reason
+from ifcjoint.model.codes import Archetype, NotChecked, NotCheckedCode, Note, PartRole, Reason
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
 
@@ -43,6 +43,10 @@ class JointType:
     def check(self, inp: Any, joint: Joint) -> CheckResult:
         """The check of an engine input made by ``engine_input``."""
         raise NotImplementedError(f"{self.archetype} joints are not checked")
+
+    def capacity_notes(self, joint: Joint) -> tuple[Note, ...]:
+        """What to say beside the result checked without demands (e.g. the beta it took)."""
+        return ()
 
     def engine(self, inp: Any) -> CheckResult:
         """The engine alone (what a per-combination re-check with another beta runs)."""

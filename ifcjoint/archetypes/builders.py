@@ -7,7 +7,7 @@ taken from a documented default that is reported as assumed. No IFC here.
 from __future__ import annotations
 
 from ifcjoint.anatomy import JointAnatomy
-from ifcjoint.catalogue.materials import BOLT_CLASSES, steel_strengths
+from ifcjoint.catalogue.materials import BOLT_CLASSES, parse_steel_grade, steel_strength
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA, bolt_elongation_length
 from ifcjoint.ec3.components import BETA_W
@@ -16,6 +16,8 @@ from ifcjoint.engine.inputs import (
     EndPlateJointInput,
     MemberInput,
     PlateInput,
+    StiffenerInput,
+    WebPlateInput,
     WeldedJointInput,
     WeldsInput,
 )
@@ -51,10 +53,14 @@ def _assumed_welds(beam: MemberInput, st: CheckSettings) -> WeldsInput:
 def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
     # A rolled section's strength is read at its thickest element (the flange), as product
     # certificates and the published worked examples do; common practice, no source.
-    fy, fu = steel_strengths(grade, max(sec.tf, sec.tw), basis=basis)
+    g = parse_steel_grade(grade)
+    base, quality = (g.grade, g.quality) if g is not None else (grade, "")
+    s = steel_strength(base, max(sec.tf, sec.tw), basis=basis, quality=quality)
+    fy, fu = s.fy, s.fu
     return MemberInput(
         name=sec.name or m.name,
-        grade=grade,
+        grade=base,
+        strength_source=s.source,
         h=sec.h,
         b=sec.b,
         tw=sec.tw,
@@ -102,16 +108,63 @@ def beam_and_column(
     return beam, col
 
 
-def _shared_fields(a: JointAnatomy, beam: MemberInput, st: CheckSettings) -> dict:
+#: Corner snipe assumed on a stiffener whose outline the model gives as a box: at least the
+#: column's root radius, and 15 mm (common practice, no source).
+SNIPE_MIN = 15.0
+
+
+def _plate_fy(grade: str | None, t: float, col: MemberInput, st: CheckSettings) -> float:
+    """A column plate's yield strength: its own grade's, else the column's."""
+    if grade:
+        g = parse_steel_grade(grade)
+        if g is not None and g.en10025:
+            try:
+                return steel_strength(g.grade, t, basis=st.strength_basis, quality=g.quality).fy
+            except ValueError:
+                pass
+    return col.fy
+
+
+def column_plate_inputs(
+    a: JointAnatomy, col: MemberInput, st: CheckSettings
+) -> tuple[tuple[StiffenerInput, ...], tuple[WebPlateInput, ...]]:
+    """The column's stiffeners and web plates as engine inputs (sizes read, the rest assumed).
+
+    A stiffener's grade not read: the column's fy; its snipe: ``SNIPE_MIN`` or the root radius;
+    its weld to the flange: not known (alpha of Figure 6.11 without the weld deduction).
+    """
+    stiffeners = tuple(
+        StiffenerInput(
+            level=s.level,
+            t=s.t,
+            b=s.b,
+            fy=_plate_fy(s.grade, s.t, col, st),
+            grade=s.grade or "",
+            snipe=max(col.r, SNIPE_MIN),
+            guid=" ".join(s.guids),
+        )
+        for s in a.stiffener_plates
+    )
+    webs = tuple(
+        WebPlateInput(t=w.t, b=w.b, fy=_plate_fy(w.grade, w.t, col, st), sides=w.sides,
+                      grade=w.grade or "", guid=" ".join(w.guids))
+        for w in a.web_plate_readings
+    )
+    return stiffeners, webs
+
+
+def _shared_fields(
+    a: JointAnatomy, beam: MemberInput, col: MemberInput, st: CheckSettings
+) -> dict:
     """Fields both joint inputs take the same way: welds, factors, beta, column plates."""
+    stiffeners, webs = column_plate_inputs(a, col, st)
     return {
         "welds": _assumed_welds(beam, st),
         "params": st.params,
         "beta": 1.0,
         "braced": st.braced,
-        "stiffeners": a.stiffeners,
-        "supplementary_web_plates": a.web_plates,
-        "stiffener_depths": a.stiffener_depths,
+        "stiffeners": stiffeners,
+        "web_plates": webs,
     }
 
 
@@ -132,16 +185,19 @@ def end_plate_input(
     if any(len(r.bolts) != 2 for r in b.rows):
         return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
     plate_grade = p.grade or a.beam_grade
+    g = parse_steel_grade(plate_grade)
+    base, quality = (g.grade, g.quality) if g is not None else (plate_grade, "")
     try:
-        fy_p, fu_p = steel_strengths(plate_grade, p.tp, basis=st.strength_basis)
+        s = steel_strength(base, p.tp, basis=st.strength_basis, quality=quality)
     except ValueError as exc:
         return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    fy_p, fu_p = s.fy, s.fu
     fub = BOLT_CLASSES[b.bolt_class][1]
     return EndPlateJointInput(
         column=col,
         beam=beam,
         plate=PlateInput(
-            grade=plate_grade,
+            grade=base,
             tp=p.tp,
             bp=p.bp,
             hp=p.hp,
@@ -149,6 +205,7 @@ def end_plate_input(
             fu=fu_p,
             projection_top=p.projection_top,
             projection_bottom=p.projection_bottom(a.beam_section.h),
+            strength_source=s.source,
         ),
         bolts=BoltsInput(
             d=b.d,
@@ -161,7 +218,7 @@ def end_plate_input(
             L_b=bolt_elongation_length(p.tp + a.column_section.tf, b.d),
         ),
         alpha_method=st.alpha_method,
-        **_shared_fields(a, beam, st),
+        **_shared_fields(a, beam, col, st),
     )
 
 
@@ -174,4 +231,5 @@ def welded_input(
     if isinstance(members_in, NotChecked):
         return members_in
     beam, _col = members_in
-    return WeldedJointInput(column=members_in[1], beam=beam, **_shared_fields(a, beam, st))
+    col = members_in[1]
+    return WeldedJointInput(column=col, beam=beam, **_shared_fields(a, beam, col, st))

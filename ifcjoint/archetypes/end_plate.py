@@ -2,8 +2,6 @@
 
 from __future__ import annotations
 
-from dataclasses import replace
-
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.base import JointType, end_plate_ready
 from ifcjoint.archetypes.builders import end_plate_input
@@ -35,14 +33,14 @@ class _CheckedEndPlate(JointType):
         return check_end_plate_joint(inp)
 
     def check(self, inp: EndPlateJointInput, joint: Joint) -> CheckResult:
-        """The engine, with a note on beta until the demands give both sides' moments."""
-        r = check_end_plate_joint(inp)
-        if r.checked:
-            code = NoteCode.BETA_ONE_SINGLE_SIDED
-            if joint.partner:
-                code = NoteCode.BETA_ONE_UNTIL_DEMANDS
-            r = replace(r, notes=(*r.notes, Note(code)))
-        return r
+        """The end-plate engine."""
+        return check_end_plate_joint(inp)
+
+    def capacity_notes(self, joint: Joint) -> tuple[Note, ...]:
+        """Beta = 1 until the demands give both sides' moments."""
+        if joint.partner is None:
+            return (Note(NoteCode.BETA_ONE_SINGLE_SIDED),)
+        return (Note(NoteCode.BETA_ONE_UNTIL_DEMANDS),)
 
 
 class ExtendedEndPlate(_CheckedEndPlate):

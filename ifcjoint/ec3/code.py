@@ -19,6 +19,7 @@ class Component(StrEnum):
     WEB_PANEL_SHEAR = "column_web_panel_shear"
     WEB_PANEL_SHEAR_OVER_BETA = "column_web_panel_shear_over_beta"
     COLUMN_WEB_COMPRESSION = "column_web_compression"
+    STIFFENED_WEB_COMPRESSION = "stiffened_web_compression"
     COLUMN_WEB_TENSION = "column_web_tension"
     COLUMN_FLANGE_BENDING = "column_flange_bending"
     END_PLATE_BENDING = "end_plate_bending"
@@ -73,6 +74,14 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         formula=(
             "F_c,wc,Rd = omega k_wc b_eff,c,wc t_wc f_y,wc / gamma_M0, "
             "at most omega k_wc rho b_eff,c,wc t_wc f_y,wc / gamma_M1"
+        ),
+        zone=Zone.COMPRESSION,
+    ),
+    Component.STIFFENED_WEB_COMPRESSION: ComponentInfo(
+        name="column web with compression stiffeners",
+        formula=(
+            "min(crushing (A_s,net f_y,s + b_eff,c,wc t_wc f_y,wc) / gamma_M0, buckling of the "
+            "cruciform section chi A_s f_y / gamma_M1 (EN 1993-1-5 9.4, curve c))"
         ),
         zone=Zone.COMPRESSION,
     ),

@@ -1,7 +1,8 @@
 """Effective lengths of T-stubs for bolt rows (mm), circular (cp) and non-circular (nc).
 
-Unstiffened column flange: EN 1993-1-8 Table 6.4. End plate: Table 6.6. Each function returns
-``(l_eff_cp, l_eff_nc)``. The alpha factor of Figure 6.11 is an input here.
+Unstiffened column flange: EN 1993-1-8 Table 6.4; stiffened column flange: Table 6.5 (rows
+next to a stiffener with alpha of Figure 6.11, ``alpha_fig_6_11``); end plate: Table 6.6.
+Each function returns ``(l_eff_cp, l_eff_nc)``.
 """
 
 from __future__ import annotations
@@ -48,6 +49,27 @@ def column_flange_row_in_group(
     if end_row:
         return PI * m + p, 2 * m + 0.625 * e + 0.5 * p
     return 2 * p, p
+
+
+def column_flange_row_next_to_stiffener(
+    m: float, e: float, alpha: float, p: float | None = None
+) -> tuple[float, float]:
+    """Stiffened column flange: bolt row adjacent to a stiffener (alone, or end of a group).
+
+    EN 1993-1-8:2005, 6.2.6.4.2, Table 6.5: alone cp = 2 pi m, nc = alpha m; as the end row of
+    a group next to the stiffener cp = pi m + p, nc = 0.5 p + alpha m - (2 m + 0.625 e); alpha
+    of Figure 6.11 with m2 the distance to the stiffener. The other rows of a stiffened flange
+    take the forms of Table 6.4 (``column_flange_row_alone``, ``column_flange_row_in_group``).
+
+    Args:
+        m: distance bolt - root radius of the column (Figure 6.8), mm.
+        e: bolt to flange edge, mm.
+        alpha: factor of Figure 6.11.
+        p: the row's pitch share in a group, mm; None for the row alone.
+    """
+    if p is None:
+        return 2 * PI * m, alpha * m
+    return PI * m + p, 0.5 * p + alpha * m - (2 * m + 0.625 * e)
 
 
 def end_plate_extension_row(
@@ -116,36 +138,36 @@ ALPHA_MIN, ALPHA_MAX = 4.45, 8.0
 def alpha_curve_lambda1(alpha: float, lambda_2: float) -> float:
     """lambda_1 at which the curve of a given alpha of Figure 6.11 passes at height lambda_2.
 
-    EN 1993-1-8:2005, 6.2.6.5, Figure 6.11, by a closed-form representation of its curves
-    (from memory; see ``alpha_fig_6_11``): lambda_1,lim = 1.25 / (alpha - 2.75) and
-    lambda_2,lim = alpha lambda_1,lim / 2; above lambda_2,lim the curve is the vertical
-    lambda_1 = lambda_1,lim, below it lambda_2 = lambda_2,lim (lambda_1,lim / lambda_1) ^
-    (alpha / sqrt 2).
+    EN 1993-1-8:2005, 6.2.6.5, Figure 6.11, in the closed form published in SCI P398 (2013),
+    Appendix G: lambda_1,lim = 1.25 / (alpha - 2.75), lambda_2,lim = alpha lambda_1,lim / 2;
+    lambda_1 = lambda_1,lim where lambda_2 >= lambda_2,lim, else lambda_1 = lambda_1,lim +
+    (1 - lambda_1,lim) ((lambda_2,lim - lambda_2) / lambda_2,lim) ^ (0.185 alpha^1.785).
+
+    Args:
+        alpha: the curve, 4.45 ... 8.
+        lambda_2: m2 / (m1 + e), dimensionless.
     """
     l1_lim = 1.25 / (alpha - 2.75)
     l2_lim = alpha * l1_lim / 2
     if lambda_2 >= l2_lim:
         return l1_lim
-    if lambda_2 <= 0:
-        return float("inf")
-    return l1_lim * (l2_lim / lambda_2) ** (math.sqrt(2) / alpha)
+    x = (l2_lim - max(lambda_2, 0.0)) / l2_lim
+    return l1_lim + (1 - l1_lim) * x ** (0.185 * alpha**1.785)
 
 
-def alpha_fig_6_11(lambda_1: float, lambda_2: float) -> float:
+def alpha_fig_6_11(lambda_1: float, lambda_2: float, tol: float = 1e-4) -> float:
     """Alpha of Figure 6.11 for a bolt row next to a stiffener or a beam flange.
 
     EN 1993-1-8:2005, 6.2.6.4.2 and 6.2.6.5, Figure 6.11, with lambda_1 = m1 / (m1 + e) and
-    lambda_2 = m2 / (m1 + e). The chart is represented by the curves of
-    ``alpha_curve_lambda1`` (a closed form recalled from memory, not read from the chart), and
-    alpha is found by bisection between the chart's bounds 4.45 and 8. Two checks support it:
-    on the vertical branch alpha m1 equals 4 m1 + 1.25 e exactly, the unstiffened row's
-    non-circular length (Table 6.4), as the chart requires; and for the published example of
-    SCI P398 C.1 (sheet 9, alpha = 7.5 read from the chart) it gives 7.36. Use with that
-    accuracy in mind: the check keeps the conservative 4.45 unless asked for this.
+    lambda_2 = m2 / (m1 + e): the curve through (lambda_1, lambda_2) of the family
+    ``alpha_curve_lambda1`` (SCI P398 Appendix G), found by bisection and bounded to the
+    chart's range 4.45 ... 8. On the vertical branch alpha m1 equals 4 m1 + 1.25 e, the
+    unstiffened row's non-circular length (Table 6.4), as the chart requires.
 
     Args:
         lambda_1: m1 / (m1 + e), dimensionless.
         lambda_2: m2 / (m1 + e), dimensionless.
+        tol: how close (in alpha) the bisection stops.
 
     Example:
         >>> round(alpha_fig_6_11(0.3, 2.0), 3)  # vertical branch: 2.75 + 1.25 / 0.3
@@ -156,7 +178,7 @@ def alpha_fig_6_11(lambda_1: float, lambda_2: float) -> float:
     if alpha_curve_lambda1(ALPHA_MIN, lambda_2) <= lambda_1:
         return ALPHA_MIN
     lo, hi = ALPHA_MIN, ALPHA_MAX  # the curve's lambda_1 falls as alpha rises
-    for _ in range(60):
+    while hi - lo > tol:
         mid = 0.5 * (lo + hi)
         if alpha_curve_lambda1(mid, lambda_2) > lambda_1:
             lo = mid

@@ -6,8 +6,15 @@ resistances with what limited each row, Mj,Rd for both moment signs, Vj,Rd, Sj,i
 classification, and the complete input actually used, so the check can be repeated by hand.
 
 Scope: one column, one beam meeting its flange; extended or flush end plate, two bolts per
-row; rolled or welded I/H sections; transverse stiffeners count for the stiffness only.
-Anything else returns a result that says "not checked" with the reason (never a pass).
+row; rolled or welded I/H sections; transverse column stiffeners (Table 6.5, compression
+stiffeners) and supplementary web plates. Anything else returns a result that says "not
+checked" with the reason (never a pass).
+
+Modelling choices (each reported in the result's notes): n = e_min = the smaller of the
+column-flange and end-plate edge distances for both T-stubs (Table 6.2, Figure 6.8), n = e_x
+for the extension; alpha of Figure 6.11 from the chart's published closed form; prying forces
+assumed (Table 6.2 note); rows in the half of the lever arm nearest the tension flange are
+tension rows.
 """
 
 from __future__ import annotations
@@ -17,6 +24,7 @@ from dataclasses import dataclass, field
 
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import effective_lengths as el
+from ifcjoint.ec3 import stiffeners as sti
 from ifcjoint.ec3 import stiffness as stf
 from ifcjoint.ec3.bolts import (
     ALPHA_V,
@@ -30,19 +38,24 @@ from ifcjoint.ec3.bolts import (
 )
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Component
+from ifcjoint.ec3.detailing import e_min, p1_min, p2_min
 from ifcjoint.ec3.moment_resistance import M_j_Rd, distribute_tension
 from ifcjoint.ec3.tstub import TStubResult, t_stub
 from ifcjoint.engine.common import (
+    ColumnWeb,
+    beam_M_c_Rd,
     checked,
-    column_plate_notes,
-    plastic_modulus,
-    shear_area,
+    column_web,
+    resistances_valid,
+    slender_stiffener_note,
     slender_web,
-    stiffened_at,
+    stiffened_compression,
+    stiffener_at,
+    unique_notes,
     weld_notes,
 )
-from ifcjoint.engine.inputs import EndPlateJointInput
-from ifcjoint.engine.results import CheckResult, ComponentResult, SideResult, not_checked
+from ifcjoint.engine.inputs import EndPlateJointInput, StiffenerInput
+from ifcjoint.engine.results import ComponentResult, SideResult, not_checked
 from ifcjoint.model.codes import NotChecked, NotCheckedCode, Note, NoteCode
 
 #: Bolt head / nut across flats s and across points e (mm), ISO 4014 / ISO 4032 (from memory).
@@ -56,9 +69,8 @@ HEAD_SIZES = {
     30: (46.0, 50.85),
     36: (55.0, 60.79),
 }
-#: alpha of EN 1993-1-8 Figure 6.11 used when none is given: the chart's smallest value, 4.45,
-#: which gives the shortest effective length (conservative). A value read from the chart may
-#: be passed in; ``alpha_method="approximation"`` uses a representation of the chart.
+#: alpha of EN 1993-1-8 Figure 6.11 for ``alpha_method="conservative"``: the chart's smallest
+#: value, 4.45, which gives the shortest effective length.
 ALPHA_DEFAULT = 4.45
 
 _CFB = Component.COLUMN_FLANGE_BENDING
@@ -67,7 +79,7 @@ _EPB = Component.END_PLATE_BENDING
 _BWT = Component.BEAM_WEB_TENSION
 
 
-def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
+def check_end_plate_joint(inp: EndPlateJointInput):
     """Resistance, stiffness and classification of a bolted end-plate joint.
 
     EN 1993-1-8:2005, 6.2.7.2 (Mj,Rd by the component method, both moment signs), 6.2.2 and
@@ -77,32 +89,35 @@ def check_end_plate_joint(inp: EndPlateJointInput) -> CheckResult:
     why = _out_of_scope(inp)
     if why is not None:
         return not_checked(why, inp)
-    notes = [*weld_notes(inp.welds), *_alpha_note(inp)]
-    if inp.bolts.L_b is None:
-        notes.append(Note(NoteCode.PRYING_ASSUMED))
-    notes.extend(column_plate_notes(inp))
-    a_vc = shear_area(inp.column)
-    vwp = cmp.V_wp_Rd(inp.column.fy, a_vc, inp.params)
-    hog = _SideCheck(inp, "hogging", a_vc, vwp).result()
-    sag = _SideCheck(inp, "sagging", a_vc, vwp).result()
-    vjrd, vnote = _shear(inp, hog)
-    notes.append(vnote)
-    return checked(
-        inp, hog, sag, V_j_Rd=vjrd, V_wp_Rd=vwp, notes=notes, joint_kind="bolted_end_plate"
+    web = column_web(inp)
+    notes = [*weld_notes(inp.welds), *_alpha_note(inp), *web.notes]
+    hog = _SideCheck(inp, "hogging", web)
+    sag = _SideCheck(inp, "sagging", web)
+    sides = (hog.result(), sag.result())
+    notes += [Note(NoteCode.PRYING_ASSUMED, {"L_b": hog.lb}), *hog.notes, *sag.notes]
+    if inp.stiffeners or inp.web_plates:
+        notes.append(Note(NoteCode.STIFFNESS_UNREINFORCED))
+    notes.append(Note(NoteCode.SHEAR_FROM_BOLTS, _shear_summary(inp, sides[0])))
+    r = checked(
+        inp, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=web.v_wp_Rd,
+        notes=list(unique_notes(notes)), joint_kind="bolted_end_plate",
     )
+    return resistances_valid(r)
 
 
 def _alpha_note(inp: EndPlateJointInput) -> list[Note]:
-    """How alpha of Figure 6.11 was found, when it was not given."""
+    """How alpha of Figure 6.11 was found."""
     if inp.alpha is not None:
-        return []
-    if inp.alpha_method == "approximation":
-        return [Note(NoteCode.ALPHA_APPROXIMATION)]
-    return [Note(NoteCode.ALPHA_CONSERVATIVE, {"alpha": ALPHA_DEFAULT})]
+        return [Note(NoteCode.ALPHA_GIVEN, {"alpha": inp.alpha})]
+    if inp.alpha_method == "conservative":
+        return [Note(NoteCode.ALPHA_CONSERVATIVE, {"alpha": ALPHA_DEFAULT})]
+    return [Note(NoteCode.ALPHA_CHART)]
 
 
 def _out_of_scope(inp: EndPlateJointInput) -> NotChecked | None:
     col, beam, b = inp.column, inp.beam, inp.bolts
+    if beam.h <= 0 or col.h <= 0:
+        return NotChecked(NotCheckedCode.SECTION_DIMENSIONS_MISSING)
     if len(b.rows_from_beam_top) < 2:
         return NotChecked(NotCheckedCode.FEWER_THAN_TWO_ROWS)
     slender = slender_web(col)
@@ -110,8 +125,9 @@ def _out_of_scope(inp: EndPlateJointInput) -> NotChecked | None:
         return slender
     if b.gauge / 2 - col.tw / 2 - 0.8 * col.r <= 0:
         return NotChecked(NotCheckedCode.BOLTS_IN_ROOT_RADIUS)
-    if beam.h <= 0 or col.h <= 0:
-        return NotChecked(NotCheckedCode.SECTION_DIMENSIONS_MISSING)
+    mc_rd, cls = beam_M_c_Rd(beam, inp.params)
+    if mc_rd is None:
+        return NotChecked(NotCheckedCode.CLASS_4_BEAM, {"section": beam.name, "class": cls})
     return None
 
 
@@ -141,33 +157,43 @@ def _pitch_share(rows: list[float], i: int, j: int, k: int) -> float:
 
 
 @dataclass
+class _Stiffener:
+    """A transverse column stiffener seen from one moment sign's tension face."""
+
+    z: float  # its mid-plane below the tension face, mm
+    s: StiffenerInput
+
+
+@dataclass
 class _SideCheck:
-    """One moment sign: tension rows, components, distribution, Mj,Rd and Sj,ini.
+    """One moment sign: tension rows, components, distribution, Mj,Rd, Sj,ini and Vj,Rd.
 
     Geometry is measured from the flange in tension: for sagging, mirrored about mid-depth.
     """
 
     inp: EndPlateJointInput
     sign: str
-    a_vc: float
-    vwp: float
+    web: ColumnWeb
     comps: list[ComponentResult] = field(default_factory=list)
     kinds: list[str] = field(default_factory=list)  # extension | first | other, per row
-    plate_leff: list[tuple[float, float]] = field(default_factory=list)  # (min l_eff, m)
-    alpha: float = ALPHA_DEFAULT
+    leff_col: list[float] = field(default_factory=list)  # smallest column l_eff per row
+    leff_plate: list[float] = field(default_factory=list)  # smallest plate l_eff per row
+    m_plate: list[float] = field(default_factory=list)  # m (or mx) of the plate per row
+    notes: list[Note] = field(default_factory=list)
+    alpha_plate: float = ALPHA_DEFAULT
 
     def __post_init__(self) -> None:
         inp = self.inp
         beam, col, pl, b, w = inp.beam, inp.column, inp.plate, inp.bolts, inp.welds
-        if self.sign == "hogging":
+        hog = self.sign == "hogging"
+        if hog:
             rows = list(b.rows_from_beam_top)
-            self.proj = pl.projection_top
             self.a_t, self.a_c = w.top_flange_throat, w.bottom_flange_throat
         else:
             rows = sorted(beam.h - z for z in b.rows_from_beam_top)
-            self.proj = pl.projection_bottom
             self.a_t, self.a_c = w.bottom_flange_throat, w.top_flange_throat
-        self.comp_proj = pl.projection_bottom if self.sign == "hogging" else pl.projection_top
+        self.proj = pl.projection_top if hog else pl.projection_bottom
+        self.comp_proj = pl.projection_bottom if hog else pl.projection_top
         self.cc = beam.h - beam.tf / 2  # centre of compression from the tension face
         # Tension rows: the half of the lever arm nearest the tension flange (common practice,
         # no source: rows near the compression flange are taken as shear rows).
@@ -185,41 +211,56 @@ class _SideCheck:
         self.e_c = (col.b - b.gauge) / 2
         self.m_p = b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w
         self.e_p = (pl.bp - b.gauge) / 2
+        # n = e_min for both T-stubs: the smaller edge distance of column flange and plate
+        # (EN 1993-1-8 Table 6.2, Figure 6.8, 6.2.6.4.1(4), 6.2.6.5(3)).
+        self.e_min = min(self.e_c, self.e_p)
+        self.lb = b.L_b or bolt_elongation_length(pl.tp + col.tf, b.d)
+        # Stiffeners of the tension zone (Table 6.5); those of the compression zone are the
+        # compression stiffeners of 6.2.6.2.
+        in_tension = [
+            _Stiffener(z=s.level if hog else beam.h - s.level, s=s) for s in inp.stiffeners
+        ]
+        self.stiffeners = [x for x in in_tension if self.cc - x.z > (beam.h - beam.tf) / 2]
+        if self.stiffeners:
+            self.notes.append(Note(NoteCode.TENSION_STIFFENER))
+        flange_c = beam.h - beam.tf / 2 if hog else beam.tf / 2
+        s_c = stiffener_at(inp.stiffeners, flange_c, beam.tf)
+        ok = s_c is not None and sti.stiffener_outstand_ok(s_c.b, s_c.t, s_c.fy)
+        self.comp_stiffener = s_c if ok else None
+        self.slender = s_c if s_c is not None and not ok else None
 
     # --- T-stubs (6.2.6.4, 6.2.6.5, Table 6.2) ---------------------------------------
-    def col_tstub(self, cp: float, nc: float, n_rows: int) -> TStubResult:
-        """Column flange T-stub of n_rows rows (6.2.6.4, Table 6.2)."""
-        col = self.inp.column
-        return self._tstub(cp, nc, col.tf, col.fy, self.m_c, self.e_c, n_rows)
-
-    def plate_tstub(self, cp: float, nc: float, m: float, e_min: float, n_rows: int):
-        """End plate T-stub of n_rows rows (6.2.6.5, Table 6.2)."""
-        pl = self.inp.plate
-        return self._tstub(cp, nc, pl.tp, pl.fy, m, e_min, n_rows)
-
-    def _tstub(self, cp, nc, t, fy, m, e_min, n_rows) -> TStubResult:
+    def _tstub(self, cp, nc, t, fy, m, n_edge, n_rows) -> TStubResult:
         return t_stub(
             l_eff_1=min(cp, nc),
             l_eff_2=nc,
             tf=t,
             fy=fy,
             m=m,
-            e_min=e_min,
+            e_min=n_edge,
             sum_F_t_Rd=self.ft_row * n_rows,
             e_w=self.ew,
             params=self.inp.params,
         )
 
-    def alpha_for(self, z_row: float) -> float:
-        """Alpha for the first row below the tension flange at z_row from the tension face."""
+    def col_tstub(self, cp: float, nc: float, n_rows: int) -> TStubResult:
+        """Column flange T-stub of n_rows rows (6.2.6.4, Table 6.2), n from e_min."""
+        col = self.inp.column
+        return self._tstub(cp, nc, col.tf, col.fy, self.m_c, self.e_min, n_rows)
+
+    def plate_tstub(self, cp: float, nc: float, m: float, n_edge: float, n_rows: int):
+        """End plate T-stub of n_rows rows (6.2.6.5, Table 6.2)."""
+        pl = self.inp.plate
+        return self._tstub(cp, nc, pl.tp, pl.fy, m, n_edge, n_rows)
+
+    def alpha(self, m1: float, e: float, m2: float, *, given: float | None = None) -> float:
+        """Alpha of Figure 6.11 for a row next to a flange or a stiffener (``given`` wins)."""
         inp = self.inp
-        lam_base = self.m_p + self.e_p
-        if inp.alpha is not None:
-            return inp.alpha
-        if inp.alpha_method != "approximation" or lam_base <= 0:
+        if given is not None:
+            return given
+        if inp.alpha_method == "conservative" or m1 + e <= 0:
             return ALPHA_DEFAULT
-        m2 = z_row - inp.beam.tf - 0.8 * self.leg_f
-        return el.alpha_fig_6_11(self.m_p / lam_base, max(m2, 0.0) / lam_base)
+        return el.alpha_fig_6_11(m1 / (m1 + e), max(m2, 0.0) / (m1 + e))
 
     def add(self, clause: str, component: Component, f: float, **kw) -> float:
         """Record a component's resistance; returns it."""
@@ -227,23 +268,63 @@ class _SideCheck:
         self.comps.append(c)
         return f
 
-    # --- rows alone --------------------------------------------------------------------
+    # --- the column flange, stiffened or not (Tables 6.4, 6.5) ------------------------
+    def _stiffener_next(self, i: int) -> tuple[_Stiffener, float] | None:
+        """The stiffener row i (1-based) lies next to, with m2, or None (Table 6.5)."""
+        z = self.tension[i - 1]
+        best = None
+        for st in self.stiffeners:
+            between = [x for x in self.tension if min(z, st.z) < x < max(z, st.z)]
+            if between:
+                continue  # another row lies between: not adjacent
+            m2 = abs(z - st.z) - st.s.t / 2 - 0.8 * st.s.weld_leg
+            if best is None or m2 < best[1]:
+                best = (st, m2)
+        return best
+
+    def _crosses_stiffener(self, i: int, j: int) -> bool:
+        """Whether a stiffener lies between rows i and j (no group crosses one, Table 6.5)."""
+        a, b = self.tension[i - 1], self.tension[j - 1]
+        return any(a < st.z < b for st in self.stiffeners)
+
+    def col_flange_alone(self, i: int) -> tuple[float, float, float | None]:
+        """Column flange l_eff (cp, nc) of row i alone, and alpha when next to a stiffener."""
+        nxt = self._stiffener_next(i)
+        if nxt is None:
+            return (*el.column_flange_row_alone(self.m_c, self.e_c), None)
+        a = self.alpha(self.m_c, self.e_c, nxt[1])
+        return (*el.column_flange_row_next_to_stiffener(self.m_c, self.e_c, a), a)
+
+    def col_flange_in_group(self, i: int, j: int, k: int) -> tuple[float, float]:
+        """Column flange l_eff share of row k in group i..j (Tables 6.4 and 6.5)."""
+        share = _pitch_share(self.tension, i, j, k)
+        end = k in (i, j)
+        nxt = self._stiffener_next(k) if end else None
+        if nxt is not None:
+            a = self.alpha(self.m_c, self.e_c, nxt[1])
+            return el.column_flange_row_next_to_stiffener(self.m_c, self.e_c, a, p=share)
+        return el.column_flange_row_in_group(self.m_c, self.e_c, share, end_row=end)
+
+    # --- rows alone ----------------------------------------------------------------------
     def rows_alone(self) -> list[dict]:
         """Each tension row alone: column flange and web, end plate and beam web."""
         inp = self.inp
         col, beam, p = inp.column, inp.beam, inp.params
-        # The column side of a row alone is the same for every row of an unstiffened column.
-        cp, nc = el.column_flange_row_alone(self.m_c, self.e_c)
-        ts = self.col_tstub(cp, nc, 1)
-        om = cmp.omega(inp.beta, min(cp, nc), col.tw, self.a_vc)
-        fwc = cmp.F_t_wc_Rd(b_eff=min(cp, nc), t_wc=col.tw, fy_wc=col.fy, omega_=om, params=p)
         alone = []
         for i, z in enumerate(self.tension, start=1):
             d: dict[Component, float] = {}
-            col_in = {"l_eff_cp": cp, "l_eff_nc": nc, "m": self.m_c, "e": self.e_c}
+            cp, nc, a_col = self.col_flange_alone(i)
+            ts = self.col_tstub(cp, nc, 1)
+            col_in = {"l_eff_cp": cp, "l_eff_nc": nc, "m": self.m_c, "e": self.e_c,
+                      "n": min(self.e_min, 1.25 * self.m_c), "alpha": a_col}
             d[_CFB] = self.add("6.2.6.4", _CFB, ts.F_T_Rd, mode=ts.mode, row=i, inputs=col_in)
-            web_in = {"b_eff": min(cp, nc), "omega": om}
+            om = cmp.omega(inp.beta, min(cp, nc), col.tw, self.web.a_vc)
+            fwc = cmp.F_t_wc_Rd(
+                b_eff=min(cp, nc), t_wc=self.web.t_tension, fy_wc=col.fy, omega_=om, params=p
+            )
+            web_in = {"b_eff": min(cp, nc), "omega": om, "t_wc": self.web.t_tension}
             d[_CWT] = self.add("6.2.6.3", _CWT, fwc, row=i, inputs=web_in)
+            self.leff_col.append(min(cp, nc))
             if z < 0:  # extension row (outside the tension flange)
                 self._extension_row(i, z, d)
             else:
@@ -257,27 +338,33 @@ class _SideCheck:
         mx = -z - 0.8 * self.leg_f
         ex = self.proj + z if self.proj is not None else -z
         cpp, ncp = el.end_plate_extension_row(mx, ex, self.e_p, b.gauge, pl.bp)
-        tsp = self.plate_tstub(cpp, ncp, mx, min(ex, self.e_p), 1)
-        self.plate_leff.append((min(cpp, ncp), mx))
-        inputs = {"l_eff_cp": cpp, "l_eff_nc": ncp, "mx": mx, "ex": ex}
+        # n = e_x for the extension (Figure 6.10; the T-stub takes n <= 1.25 m_x)
+        tsp = self.plate_tstub(cpp, ncp, mx, ex, 1)
+        self.leff_plate.append(min(cpp, ncp))
+        self.m_plate.append(mx)
+        inputs = {"l_eff_cp": cpp, "l_eff_nc": ncp, "mx": mx, "ex": ex,
+                  "n": min(ex, 1.25 * mx)}
         d[_EPB] = self.add("6.2.6.5", _EPB, tsp.F_T_Rd, mode=tsp.mode, row=i, inputs=inputs)
 
     def _row_below_flange(self, i: int, z: float, d: dict, beam, p) -> None:
         first = not self.kinds or self.kinds[-1] == "extension"
         self.kinds.append("first" if first else "other")
         if first:
-            self.alpha = self.alpha_for(z)
-            cpp, ncp = el.end_plate_first_row_below_flange(self.m_p, self.e_p, self.alpha)
+            m2 = z - beam.tf - 0.8 * self.leg_f
+            self.alpha_plate = self.alpha(self.m_p, self.e_p, m2, given=self.inp.alpha)
+            cpp, ncp = el.end_plate_first_row_below_flange(self.m_p, self.e_p, self.alpha_plate)
         else:
             cpp, ncp = el.end_plate_other_row(self.m_p, self.e_p)
-        tsp = self.plate_tstub(cpp, ncp, self.m_p, self.e_p, 1)
-        self.plate_leff.append((min(cpp, ncp), self.m_p))
+        tsp = self.plate_tstub(cpp, ncp, self.m_p, self.e_min, 1)
+        self.leff_plate.append(min(cpp, ncp))
+        self.m_plate.append(self.m_p)
         inputs = {
             "l_eff_cp": cpp,
             "l_eff_nc": ncp,
             "m": self.m_p,
             "e": self.e_p,
-            "alpha": self.alpha if first else None,
+            "n": min(self.e_min, 1.25 * self.m_p),
+            "alpha": self.alpha_plate if first else None,
         }
         d[_EPB] = self.add("6.2.6.5", _EPB, tsp.F_T_Rd, mode=tsp.mode, row=i, inputs=inputs)
         fwb = cmp.F_t_wb_Rd(b_eff=min(cpp, ncp), t_wb=beam.tw, fy_wb=beam.fy, params=p)
@@ -285,46 +372,50 @@ class _SideCheck:
 
     # --- groups of rows ------------------------------------------------------------------
     def groups(self) -> dict[tuple[int, int], dict[Component, float]]:
-        """Every group of consecutive tension rows (Tables 6.4 and 6.6, rows as a group)."""
+        """Every group of consecutive tension rows (Tables 6.4, 6.5 and 6.6, rows as a group)."""
         out: dict[tuple[int, int], dict[Component, float]] = {}
         n = len(self.tension)
         for i in range(1, n + 1):
             for j in range(i + 1, n + 1):
-                out[(i, j)] = self._group(i, j)
+                g = self._group(i, j)
+                if g:
+                    out[(i, j)] = g
         return out
 
     def _group(self, i: int, j: int) -> dict[Component, float]:
-        inp, col, beam, p = self.inp, self.inp.column, self.inp.beam, self.inp.params
+        inp = self.inp
+        col, beam, p = inp.column, inp.beam, inp.params
         rows = tuple(range(i, j + 1))
         g: dict[Component, float] = {}
-        cp_s = nc_s = 0.0
-        for k in rows:
-            share = _pitch_share(self.tension, i, j, k)
-            a_, b_ = el.column_flange_row_in_group(self.m_c, self.e_c, share, end_row=k in (i, j))
-            cp_s, nc_s = cp_s + a_, nc_s + b_
-        ts = self.col_tstub(cp_s, nc_s, len(rows))
-        g[_CFB] = ts.F_T_Rd
-        om = cmp.omega(inp.beta, min(cp_s, nc_s), col.tw, self.a_vc)
-        g[_CWT] = cmp.F_t_wc_Rd(
-            b_eff=min(cp_s, nc_s), t_wc=col.tw, fy_wc=col.fy, omega_=om, params=p
-        )
-        col_in = {"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s}
-        self.add("6.2.6.4", _CFB, ts.F_T_Rd, mode=ts.mode, rows=rows, inputs=col_in)
+        if not self._crosses_stiffener(i, j):
+            shares = [self.col_flange_in_group(i, j, k) for k in rows]
+            cp_s, nc_s = sum(a for a, _ in shares), sum(b for _, b in shares)
+            for k, (a_, b_) in zip(rows, shares, strict=True):
+                self.leff_col[k - 1] = min(self.leff_col[k - 1], a_, b_)
+            ts = self.col_tstub(cp_s, nc_s, len(rows))
+            g[_CFB] = ts.F_T_Rd
+            om = cmp.omega(inp.beta, min(cp_s, nc_s), col.tw, self.web.a_vc)
+            g[_CWT] = cmp.F_t_wc_Rd(
+                b_eff=min(cp_s, nc_s), t_wc=self.web.t_tension, fy_wc=col.fy, omega_=om,
+                params=p,
+            )
+            col_in = {"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s}
+            self.add("6.2.6.4", _CFB, ts.F_T_Rd, mode=ts.mode, rows=rows, inputs=col_in)
         if any(self.kinds[k - 1] == "extension" for k in rows):
             return g
-        cp_s = nc_s = 0.0
+        shares = []
         for k in rows:
             share = _pitch_share(self.tension, i, j, k)
             if self.kinds[k - 1] == "first" and k == i:
-                a_, b_ = el.end_plate_first_row_below_flange(
-                    self.m_p, self.e_p, self.alpha, p=share
-                )
+                shares.append(el.end_plate_first_row_below_flange(
+                    self.m_p, self.e_p, self.alpha_plate, p=share))
             else:
-                a_, b_ = el.end_plate_other_row(
-                    self.m_p, self.e_p, p=share, end_row=k in (i, j)
-                )
-            cp_s, nc_s = cp_s + a_, nc_s + b_
-        tsp = self.plate_tstub(cp_s, nc_s, self.m_p, self.e_p, len(rows))
+                shares.append(el.end_plate_other_row(
+                    self.m_p, self.e_p, p=share, end_row=k in (i, j)))
+        cp_s, nc_s = sum(a for a, _ in shares), sum(b for _, b in shares)
+        for k, (a_, b_) in zip(rows, shares, strict=True):
+            self.leff_plate[k - 1] = min(self.leff_plate[k - 1], a_, b_)
+        tsp = self.plate_tstub(cp_s, nc_s, self.m_p, self.e_min, len(rows))
         g[_EPB] = tsp.F_T_Rd
         g[_BWT] = cmp.F_t_wb_Rd(b_eff=min(cp_s, nc_s), t_wb=beam.tw, fy_wb=beam.fy, params=p)
         plate_in = {"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s}
@@ -333,9 +424,10 @@ class _SideCheck:
 
     # --- compression side ----------------------------------------------------------------
     def compression(self) -> tuple[dict[Component, float], float, float, float]:
-        """Column web in compression, beam flange in compression, web panel / beta.
+        """Column web in compression (or its stiffeners), beam flange, web panel / beta.
 
-        Returns the compression limits, Fc,wc,Rd, Fc,fb,Rd and b_eff,c,wc.
+        Returns the compression limits, the column side's resistance, Fc,fb,Rd and
+        b_eff,c,wc.
         """
         inp = self.inp
         col, beam, pl, p = inp.column, inp.beam, inp.plate, inp.params
@@ -344,68 +436,87 @@ class _SideCheck:
         s_p = pl.tp + min(max(self.comp_proj, 0.0), pl.tp)
         beff = cmp.b_eff_c_wc_end_plate(beam.tf, self.a_c, col.tf, col.s, s_p)
         dwc = col.h - 2 * (col.tf + col.r)
-        om_c = cmp.omega(inp.beta, beff, col.tw, self.a_vc)
+        t_wc = self.web.t_compression
+        om_c = cmp.omega(inp.beta, beff, col.tw, self.web.a_vc)
         kwc = cmp.k_wc(inp.sigma_com_Ed, col.fy)
         fcwc = cmp.F_c_wc_Rd(
-            b_eff=beff, t_wc=col.tw, d_wc=dwc, fy_wc=col.fy, omega_=om_c, k_wc_=kwc, params=p
+            b_eff=beff, t_wc=t_wc, d_wc=dwc, fy_wc=col.fy, omega_=om_c, k_wc_=kwc, params=p
         )
-        mc_rd = plastic_modulus(beam) * beam.fy / p.gamma_M0
+        web_in = {"b_eff_c_wc": beff, "omega": om_c, "s_p": s_p, "k_wc": kwc, "t_wc": t_wc}
+        self.add("6.2.6.2", Component.COLUMN_WEB_COMPRESSION, fcwc, inputs=web_in)
+        column_side = fcwc
+        stiffened = self._stiffened_compression(beff, dwc)
+        if stiffened is not None:
+            column_side = max(fcwc, stiffened)
+        mc_rd, cls = beam_M_c_Rd(beam, p)
         fcfb = cmp.F_c_fb_Rd(mc_rd, beam.h, beam.tf)
+        if cls == 3:
+            self.notes.append(Note(NoteCode.BEAM_CLASS_3, {"section": beam.name}))
         compression = {
-            Component.COLUMN_WEB_COMPRESSION: fcwc,
+            Component.COLUMN_WEB_COMPRESSION if stiffened is None
+            else Component.STIFFENED_WEB_COMPRESSION: column_side,
             Component.BEAM_FLANGE_COMPRESSION: fcfb,
         }
-        web_in = {"b_eff_c_wc": beff, "omega": om_c, "s_p": s_p, "k_wc": kwc}
-        self.add("6.2.6.2", Component.COLUMN_WEB_COMPRESSION, fcwc, inputs=web_in)
-        self.add("6.2.6.7", Component.BEAM_FLANGE_COMPRESSION, fcfb, inputs={"Mc_Rd": mc_rd})
+        self.add("6.2.6.7", Component.BEAM_FLANGE_COMPRESSION, fcfb,
+                 inputs={"Mc_Rd": mc_rd, "section_class": cls})
         if inp.beta > 0:
-            compression[Component.WEB_PANEL_SHEAR_OVER_BETA] = self.vwp / inp.beta
-        panel_in = {"A_vc": self.a_vc, "beta": inp.beta}
-        self.add("6.2.6.1", Component.WEB_PANEL_SHEAR, self.vwp, inputs=panel_in)
-        return compression, fcwc, fcfb, beff
+            compression[Component.WEB_PANEL_SHEAR_OVER_BETA] = self.web.v_wp_Rd / inp.beta
+        panel_in = {"A_vc": self.web.a_vc, "beta": inp.beta}
+        self.add("6.2.6.1", Component.WEB_PANEL_SHEAR, self.web.v_wp_Rd, inputs=panel_in)
+        return compression, column_side, fcfb, beff
+
+    def _stiffened_compression(self, beff: float, dwc: float) -> float | None:
+        """Compression stiffeners with their strip of web (``common.stiffened_compression``)."""
+        self.notes.extend(slender_stiffener_note(self.slender))
+        found = stiffened_compression(self.inp, self.comp_stiffener, beff)
+        if found is None:
+            return None
+        f, inputs, note = found
+        self.add("6.2.6.2; EN 1993-1-5 9.4", Component.STIFFENED_WEB_COMPRESSION, f,
+                 inputs=inputs)
+        self.notes.append(note)
+        return f
 
     # --- stiffness (6.3) -----------------------------------------------------------------
     def stiffness(self, beff: float) -> tuple[float, float]:
-        """Sj,ini and the equivalent lever arm from k1, k2 and k3, k4, k5, k10 per row."""
+        """Sj,ini and the equivalent lever arm from k1, k2 and k3, k4, k5, k10 per row.
+
+        EN 1993-1-8:2005, 6.3.1, 6.3.3.1, Table 6.11: l_eff of k3, k4 and k5 is the smallest
+        of the row's effective lengths alone or as part of a group; k3 follows its formula for
+        a bolted joint, stiffened or not; k2 is infinite with a compression stiffener. The web
+        panel and web take the unreinforced column (safe side for the stiffness).
+        """
         inp = self.inp
-        col, beam, pl, b = inp.column, inp.beam, inp.plate, inp.bolts
+        col, pl, b = inp.column, inp.plate, inp.bolts
         dwc = col.h - 2 * (col.tf + col.r)
-        lb = b.L_b or bolt_elongation_length(pl.tp + col.tf, b.d)
-        # Stiffeners (Table 6.11, stiffened web): at the compression flange k2 = infinite; at
-        # the tension flange k3 = infinite for the nearest row on each side of it.
-        hog = self.sign == "hogging"
-        comp_depth = beam.h - beam.tf / 2 if hog else beam.tf / 2
-        tens_depth = beam.tf / 2 if hog else beam.h - beam.tf / 2
-        comp_stiff = stiffened_at(inp.stiffener_depths, comp_depth, beam.tf)
-        next_to_stiffener = set()
-        if stiffened_at(inp.stiffener_depths, tens_depth, beam.tf):
-            # rows are measured from the tension face here: the flange sits at tf / 2
-            above = [k for k, z in enumerate(self.tension) if z < beam.tf / 2]
-            below = [k for k, z in enumerate(self.tension) if z >= beam.tf / 2]
-            next_to_stiffener = set(above[-1:]) | set(below[:1])
-        cp, nc = el.column_flange_row_alone(self.m_c, self.e_c)
-        lmin = min(cp, nc)
         keff = []
         for i in range(len(self.tension)):
-            k3 = math.inf if i in next_to_stiffener else stf.k3_web_tension(lmin, col.tw, dwc)
-            k4 = stf.k4_column_flange(lmin, col.tf, self.m_c)
-            lp, mm = self.plate_leff[i]
-            k5 = stf.k5_end_plate(lp, pl.tp, mm)
-            k10 = stf.k10_bolts(b.As, lb)
+            lc = self.leff_col[i]
+            k3 = stf.k3_web_tension(lc, col.tw, dwc)
+            k4 = stf.k4_column_flange(lc, col.tf, self.m_c)
+            k5 = stf.k5_end_plate(self.leff_plate[i], pl.tp, self.m_plate[i])
+            k10 = stf.k10_bolts(b.As, self.lb)
             keff.append(stf.k_eff_row([k3, k4, k5, k10]))
-        if keff:
-            zeq, keq = stf.equivalent_lever_arm(keff, self.h_r)
-        else:
-            zeq, keq = self.cc, math.inf
-        k1 = stf.k1_web_panel(self.a_vc, inp.beta, zeq)
-        k2 = math.inf if comp_stiff else stf.k2_web_compression(beff, col.tw, dwc)
+        zeq, keq = stf.equivalent_lever_arm(keff, self.h_r)
+        k1 = stf.k1_web_panel(self.web.a_vc_plain, inp.beta, zeq)
+        k2 = math.inf if self.comp_stiffener is not None else stf.k2_web_compression(
+            beff, col.tw, dwc
+        )
         return stf.S_j_ini(zeq, [k1, k2, keq], inp.params), zeq
 
     def result(self) -> SideResult:
-        """The side's resistance, stiffness and governing limit."""
+        """The side's resistance, stiffness, shear and governing limit."""
         alone = self.rows_alone()
         groups = self.groups()
-        compression, fcwc, fcfb, beff = self.compression()
+        compression, column_side, fcfb, beff = self.compression()
+        v, gap = _shear(self.inp, len(self.tension))
+        if not self.tension:
+            return SideResult(
+                sign=self.sign, M_j_Rd=0.0, z=0.0, rows=(), components=tuple(self.comps),
+                S_j_ini=None, governing=None, F_c_flange_Rd=min(column_side, fcfb),
+                V_j_Rd=v, shear_gap=gap,
+                no_tension=NotChecked(NotCheckedCode.NO_TENSION_ROWS, {"sign": self.sign}),
+            )
         rr = distribute_tension(
             h=self.h_r, alone=alone, groups=groups, compression=compression, F_t_Rd=self.ft
         )
@@ -423,54 +534,94 @@ class _SideCheck:
             rows=tuple(rr),
             components=tuple(self.comps),
             S_j_ini=sj,
-            governing=min(rr, key=lambda r: r.F_tr_Rd).limited_by if rr else None,
+            governing=min(rr, key=lambda r: r.F_tr_Rd).limited_by,
             F_t_half_Rd=sum(r.F_tr_Rd for r in rr_n),
-            F_c_flange_Rd=min(fcwc, fcfb),
+            F_c_flange_Rd=min(column_side, fcfb),
+            V_j_Rd=v,
+            shear_gap=gap,
         )
 
 
-def _shear(inp: EndPlateJointInput, hog: SideResult) -> tuple[float, Note]:
-    """Vj,Rd of the bolt group (EN 1993-1-8 Table 3.4 and 3.6.1; 6.2.2(2) note).
+def _bearing_gap(inp: EndPlateJointInput, e1: float, p1: float | None) -> NotChecked | None:
+    """Why Table 3.4's bearing formula does not apply: a spacing below Table 3.3's minimum.
 
-    Common practice: bolts in tension rows take (1 - 1/1.4) Fv,Rd (the interaction of Table 3.4
-    with Ft,Ed = Ft,Rd); the other rows their full shear and bearing resistance.
+    EN 1993-1-8:2005, 3.5 and Table 3.3: k1 and alpha_b of Table 3.4 hold for e1, e2 >= 1.2 d0,
+    p1 >= 2.2 d0, p2 >= 2.4 d0 (0.5 mm allowed for modelling round-off).
     """
-    b, p = inp.bolts, inp.params
-    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
-    # Bearing (Table 3.4) on the end plate and on the column flange, load downwards: end
-    # distances to the plate's edges, the smallest pitch, side edge and gauge.
+    b, pl, col = inp.bolts, inp.plate, inp.column
+    d0 = b.d0
+    checks = [
+        ("e1", e1, e_min(d0)),
+        ("e2 (plate)", (pl.bp - b.gauge) / 2, e_min(d0)),
+        ("e2 (column flange)", (col.b - b.gauge) / 2, e_min(d0)),
+        ("p2", b.gauge, p2_min(d0)),
+    ]
+    if p1 is not None:
+        checks.append(("p1", p1, p1_min(d0)))
+    for name, value, least in checks:
+        if value < least - 0.5:
+            return NotChecked(NotCheckedCode.BEARING_OUT_OF_RANGE,
+                              {"what": name, "value": value, "limit": least})
+    return None
+
+
+def _bearing(inp: EndPlateJointInput) -> tuple[float, float, NotChecked | None]:
+    """Bearing of one bolt on the end plate and on the column flange, load downwards (N).
+
+    EN 1993-1-8:2005, 3.6.1, Table 3.4: end distances to the plate's edges, the smallest
+    pitch, side edge and gauge; the column flange has no end distance (it continues).
+    """
+    b, pl, col, p = inp.bolts, inp.plate, inp.column, inp.params
     rows = sorted(b.rows_from_beam_top)
-    pl, col = inp.plate, inp.column
     p1 = min((y - x for x, y in zip(rows, rows[1:], strict=False)), default=None)
     e1 = min(rows[0] + pl.projection_top, pl.projection_bottom + inp.beam.h - rows[-1])
+    gap = _bearing_gap(inp, e1, p1)
+    if gap is not None:
+        return 0.0, 0.0, gap
     fb_plate = F_b_Rd(
         k1_bearing(d0=b.d0, e2=(pl.bp - b.gauge) / 2, p2=b.gauge),
         alpha_b(d0=b.d0, fub=b.fub, fu=pl.fu, e1=e1, p1=p1),
-        pl.fu,
-        b.d,
-        pl.tp,
-        p,
+        pl.fu, b.d, pl.tp, p,
     )
     fb_col = F_b_Rd(
         k1_bearing(d0=b.d0, e2=(col.b - b.gauge) / 2, p2=b.gauge),
         alpha_b(d0=b.d0, fub=b.fub, fu=col.fu, p1=p1),
-        col.fu,
-        b.d,
-        col.tf,
-        p,
+        col.fu, b.d, col.tf, p,
     )
-    per_bolt = min(fv, fb_plate, fb_col)
+    return fb_plate, fb_col, None
+
+
+def _shear(inp: EndPlateJointInput, n_tension: int) -> tuple[float | None, NotChecked | None]:
+    """Vj,Rd of the bolt group with n_tension rows in tension (N), or why not.
+
+    EN 1993-1-8:2005, Table 3.4 and 6.2.2(2) note; common practice: a bolt in a tension row
+    takes min((1 - 1/1.4) Fv,Rd, Fb,Rd) (the interaction of Table 3.4 with Ft,Ed = Ft,Rd),
+    the other bolts min(Fv,Rd, Fb,Rd); two bolts per row.
+    """
+    b, p = inp.bolts, inp.params
+    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
+    fb_plate, fb_col, gap = _bearing(inp)
+    if gap is not None:
+        return None, gap
+    fb = min(fb_plate, fb_col)
+    n_rows = len(b.rows_from_beam_top)
+    tension_bolt = min((1 - 1 / 1.4) * fv, fb)
+    return 2 * n_tension * tension_bolt + 2 * (n_rows - n_tension) * min(fv, fb), None
+
+
+def _shear_summary(inp: EndPlateJointInput, hog: SideResult) -> dict:
+    """What the Vj,Rd note says: bolts in each kind of row and their resistances (N)."""
+    b, p = inp.bolts, inp.params
+    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
+    fb_plate, fb_col, gap = _bearing(inp)
     n_tension = len(hog.rows)
     n_rows = len(b.rows_from_beam_top)
-    v = 2 * n_tension * (1 - 1 / 1.4) * per_bolt + 2 * (n_rows - n_tension) * per_bolt
-    note = Note(
-        NoteCode.SHEAR_FROM_BOLTS,
-        {
-            "n_shear": 2 * (n_rows - n_tension),
-            "per_bolt": per_bolt,
-            "n_tension": 2 * n_tension,
-            "fb_plate": fb_plate,
-            "fb_col": fb_col,
-        },
-    )
-    return v, note
+    return {
+        "n_shear": 2 * (n_rows - n_tension),
+        "per_bolt": min(fv, fb_plate, fb_col) if gap is None else 0.0,
+        "n_tension": 2 * n_tension,
+        "fb_plate": fb_plate,
+        "fb_col": fb_col,
+        "fv": fv,
+        "out_of_range": gap is not None,
+    }

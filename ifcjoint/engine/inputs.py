@@ -21,6 +21,7 @@ class MemberInput:
         span: beam span for the stiffness classification, mm.
         Iy: second moment about the strong axis, mm4.
         Wpl_y: plastic modulus, mm3.
+        strength_source: the table and row fy and fu were read from.
     """
 
     name: str
@@ -36,11 +37,59 @@ class MemberInput:
     span: float | None = None
     Iy: float | None = None
     Wpl_y: float | None = None
+    strength_source: str = ""
 
     @property
     def s(self) -> float:
         """S of EN 1993-1-8 6.2.6.2(1): the root radius r_c (0 for a welded section, above)."""
         return self.r
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class StiffenerInput:
+    """A pair of transverse column stiffeners, one each side of the web (mm, MPa).
+
+    Attributes:
+        level: depth of the stiffener's mid-plane below the top face of the beam, mm.
+        t: thickness, mm.
+        b: width of one stiffener from the web face, mm.
+        fy: yield strength, MPa.
+        grade: steel grade as read (empty: not known, the column's fy is used).
+        snipe: corner snipe at the web-flange root, mm (lost from the width in crushing).
+        weld_leg: leg of the stiffener-to-flange fillet weld, mm (0: not known; alpha of
+            Figure 6.11 is then taken with no weld deduction, the lower value).
+        guid: GlobalId of the plate(s) in the model, if any.
+    """
+
+    level: float
+    t: float
+    b: float
+    fy: float
+    grade: str = ""
+    snipe: float = 0.0
+    weld_leg: float = 0.0
+    guid: str = ""
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class WebPlateInput:
+    """Supplementary web plates on the column web (mm, MPa).
+
+    Attributes:
+        t: thickness, mm.
+        b: width b_s across the web, mm.
+        fy: yield strength, MPa.
+        sides: 1 (one plate) or 2 (a plate each side of the web).
+        grade: steel grade as read.
+        guid: GlobalId(s) in the model.
+    """
+
+    t: float
+    b: float
+    fy: float
+    sides: int = 1
+    grade: str = ""
+    guid: str = ""
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -55,6 +104,7 @@ class PlateInput:
     fu: float
     projection_top: float
     projection_bottom: float
+    strength_source: str = ""
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -98,9 +148,8 @@ class _JointInputBase:
     beta: float = 1.0  # transformation parameter (5.3(7), Table 5.4): 1 single-sided
     column_continues_above: bool = True
     braced: bool = True
-    stiffeners: tuple[str, ...] = ()
-    supplementary_web_plates: tuple[str, ...] = ()
-    stiffener_depths: tuple[float, ...] = ()  # transverse stiffeners, mm below the beam top
+    stiffeners: tuple[StiffenerInput, ...] = ()  # transverse column stiffeners (pairs)
+    web_plates: tuple[WebPlateInput, ...] = ()  # supplementary web plates
     sigma_com_Ed: float = 0.0  # longitudinal compression in the column web, MPa
 
 
@@ -110,8 +159,8 @@ class EndPlateJointInput(_JointInputBase):
 
     plate: PlateInput
     bolts: BoltsInput
-    alpha: float | None = None  # Figure 6.11 for the row below the tension flange (fixed)
-    alpha_method: str = "conservative"  # "conservative" (4.45) | "approximation" (Fig 6.11)
+    alpha: float | None = None  # Figure 6.11 for the end plate's first row below the flange
+    alpha_method: str = "chart"  # "chart" (Figure 6.11, SCI P398 App. G) | "conservative" (4.45)
     washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
 
 
@@ -127,8 +176,8 @@ JointInput = EndPlateJointInput | WeldedJointInput
 #: The order of the input's fields in the outputs (the order a calculation sheet reads).
 _RECORD_ORDER = (
     "column", "beam", "plate", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
-    "column_continues_above", "braced", "stiffeners", "supplementary_web_plates",
-    "stiffener_depths", "washer_dia", "sigma_com_Ed",
+    "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
+    "sigma_com_Ed",
 )
 
 

@@ -50,10 +50,14 @@ class SideResult:
         z: lever arm, mm (equivalent, 6.3.3.1).
         rows: the effective tension resistance of each row.
         components: every component resistance, in the order computed.
-        S_j_ini: initial rotational stiffness, N mm / rad.
+        S_j_ini: initial rotational stiffness, N mm / rad (None: no bolt row in tension).
         governing: what limited the resistance.
         F_t_half_Rd: tension of this half's rows with no compression limit, N (for Nj,Rd).
         F_c_flange_Rd: compression resistance at this sign's compression flange, N.
+        V_j_Rd: shear resistance of the joint with this sign's tension rows, N (None: not
+            available, ``shear_gap`` says why).
+        no_tension: why this sign carries no moment (no bolt row in its tension zone), or None.
+        shear_gap: why the shear resistance is not available, or None.
     """
 
     sign: str
@@ -61,10 +65,13 @@ class SideResult:
     z: float
     rows: tuple[RowResult, ...]
     components: tuple[ComponentResult, ...]
-    S_j_ini: float
+    S_j_ini: float | None
     governing: Limit | None
     F_t_half_Rd: float = 0.0
     F_c_flange_Rd: float = 0.0
+    V_j_Rd: float | None = None
+    no_tension: NotChecked | None = None
+    shear_gap: NotChecked | None = None
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -151,7 +158,9 @@ class CheckResult:
     def m_phi(self, sign: str = "hogging") -> list[tuple[float, float]]:
         """Design M-phi curve (rad, N mm) for one sign, EN 1993-1-8 6.3.1(4)."""
         side = self.side(sign)
-        if side is None or side.S_j_ini <= 0 or not math.isfinite(side.S_j_ini):
+        if side is None or side.S_j_ini is None or side.S_j_ini <= 0:
+            return []
+        if not math.isfinite(side.S_j_ini) or side.M_j_Rd <= 0:
             return []
         return stf.m_phi_curve(side.M_j_Rd, side.S_j_ini, self.joint_kind)
 

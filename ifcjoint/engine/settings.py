@@ -33,16 +33,16 @@ class CheckSettings:
             (EN 1993-1-8 4.5.3.3), rounded up to the mm.
         strength_basis: ``EN 1993-1-1`` (Table 3.1) or ``EN 10025`` (product standard).
         braced: frame braced (kb = 8) or not (kb = 25) for the stiffness classification.
-        alpha_method: alpha of EN 1993-1-8 Figure 6.11: ``conservative`` (4.45, the chart's
-            lowest value) or ``approximation`` (a representation of the chart, see
-            ``ifcjoint.ec3.effective_lengths.alpha_fig_6_11``).
+        alpha_method: alpha of EN 1993-1-8 Figure 6.11: ``chart`` (the chart's published
+            closed form, ``ifcjoint.ec3.effective_lengths.alpha_fig_6_11``) or
+            ``conservative`` (4.45, the chart's lowest value, everywhere).
     """
 
     code: Eurocode3 = EN_1993_1_8
     weld_throat_ratio: float | None = None
     strength_basis: str = "EN 1993-1-1"
     braced: bool = True
-    alpha_method: str = "conservative"
+    alpha_method: str = "chart"
 
     @property
     def params(self) -> Parameters:

@@ -61,13 +61,18 @@ class Utilisation:
 
 @dataclass(frozen=True, slots=True, kw_only=True)
 class CombinationResult:
-    """The check of one joint for one load combination."""
+    """The check of one joint for one load combination.
+
+    ``gaps`` are the verifications that could not be made (a resistance not available): the
+    combination is not fully checked while any remains.
+    """
 
     demand: Demand
     beta: float
     result: CheckResult
     utilisations: tuple[Utilisation, ...]
     notes: tuple[Note, ...] = ()
+    gaps: tuple[NotChecked, ...] = ()
 
     @property
     def governing(self) -> Utilisation | None:
@@ -150,6 +155,9 @@ def web_panel_shear(demand: Demand, z: float) -> tuple[float, Note | None]:
 
 
 def _ratio(demand: float, resistance: float) -> float:
+    """Demand over resistance; a zero demand is 0 whatever the resistance."""
+    if demand == 0:
+        return 0.0
     return float(demand / resistance) if resistance > 0 else float("inf")
 
 
@@ -188,28 +196,22 @@ def verify_combination(
     c = demand.combination
     sign = "hogging" if demand.M_Ed < 0 else "sagging"
     side = r.side(sign)
-    m_rd = side.M_j_Rd
-    us = [
-        Utilisation(
-            verification=Verification.MOMENT,
-            clause=EC3.clause("6.2.7.2"),
-            demand=abs(demand.M_Ed),
-            resistance=m_rd,
-            utilisation=_ratio(abs(demand.M_Ed), m_rd),
-            combination=c,
-            sense=sign,
-            detail={"governing": side.governing},
-        ),
-        Utilisation(
-            verification=Verification.SHEAR,
-            clause=EC3.clause("Table 3.4"),
-            demand=abs(demand.V_Ed),
-            resistance=r.V_j_Rd,
-            utilisation=_ratio(abs(demand.V_Ed), r.V_j_Rd),
-            combination=c,
-        ),
-    ]
-    v_wp, vnote = web_panel_shear(demand, side.z)
+    us = [_moment(demand, side, c)]
+    gaps = []
+    if side.V_j_Rd is None:
+        gaps.append(side.shear_gap)
+    else:
+        us.append(
+            Utilisation(
+                verification=Verification.SHEAR,
+                clause=EC3.clause("Table 3.4"),
+                demand=abs(demand.V_Ed),
+                resistance=side.V_j_Rd,
+                utilisation=_ratio(abs(demand.V_Ed), side.V_j_Rd),
+                combination=c,
+            )
+        )
+    v_wp, vnote = web_panel_shear(demand, side.z if side.z > 0 else inp.beam.h - inp.beam.tf)
     if vnote is not None:
         notes.append(vnote)
     us.append(
@@ -218,30 +220,54 @@ def verify_combination(
             clause=EC3.clause("6.2.6.1; 5.3(3)"),
             demand=v_wp,
             resistance=r.V_wp_Rd,
-            utilisation=float(v_wp / r.V_wp_Rd),
+            utilisation=_ratio(v_wp, r.V_wp_Rd),
             combination=c,
-            detail={"z": side.z},
+            detail={"z": side.z if side.z > 0 else inp.beam.h - inp.beam.tf},
         )
     )
-    beam = inp.beam
-    area = _i_area(beam.h, beam.b, beam.tw, beam.tf, beam.r)
-    if cmp.axial_force_significant(demand.N_Ed, area, beam.fy, inp.params):
-        n_rd = r.N_j_Rd_tension if demand.N_Ed > 0 else r.N_j_Rd_compression
-        us.append(
-            Utilisation(
-                verification=Verification.BENDING_AND_AXIAL,
-                clause=EC3.clause("6.2.7.1(3)"),
-                demand=abs(demand.N_Ed),
-                resistance=n_rd,
-                utilisation=M_N_interaction(demand.M_Ed, m_rd, demand.N_Ed, n_rd),
-                combination=c,
-                sense="tension" if demand.N_Ed > 0 else "compression",
-            )
-        )
+    mn = _axial(inp, demand, r, side.M_j_Rd, c)
+    if mn is not None:
+        us.append(mn)
     elif demand.N_Ed:
         notes.append(Note(NoteCode.AXIAL_NEGLECTED))
     return CombinationResult(
-        demand=demand, beta=beta, result=r, utilisations=tuple(us), notes=tuple(notes)
+        demand=demand, beta=beta, result=r, utilisations=tuple(us), notes=tuple(notes),
+        gaps=tuple(gaps),
+    )
+
+
+def _moment(demand: Demand, side, c: str) -> Utilisation:
+    """The moment against Mj,Rd of its sign (6.2.7.2); a sign with no tension row has none."""
+    detail = {"governing": side.governing}
+    if side.no_tension is not None:
+        detail = {"no_tension": side.no_tension}
+    return Utilisation(
+        verification=Verification.MOMENT,
+        clause=EC3.clause("6.2.7.2"),
+        demand=abs(demand.M_Ed),
+        resistance=side.M_j_Rd,
+        utilisation=_ratio(abs(demand.M_Ed), side.M_j_Rd),
+        combination=c,
+        sense=side.sign,
+        detail=detail,
+    )
+
+
+def _axial(inp: JointInput, demand: Demand, r: CheckResult, m_rd: float, c: str):
+    """The M-N interaction when the axial force matters (6.2.7.1(2)-(3)), else None."""
+    beam = inp.beam
+    area = _i_area(beam.h, beam.b, beam.tw, beam.tf, beam.r)
+    if not cmp.axial_force_significant(demand.N_Ed, area, beam.fy, inp.params):
+        return None
+    n_rd = r.N_j_Rd_tension if demand.N_Ed > 0 else r.N_j_Rd_compression
+    return Utilisation(
+        verification=Verification.BENDING_AND_AXIAL,
+        clause=EC3.clause("6.2.7.1(3)"),
+        demand=abs(demand.N_Ed),
+        resistance=n_rd,
+        utilisation=M_N_interaction(demand.M_Ed, m_rd, demand.N_Ed, n_rd),
+        combination=c,
+        sense="tension" if demand.N_Ed > 0 else "compression",
     )
 
 
@@ -273,15 +299,19 @@ def verify_joint(
     engine: Engine,
     double_sided: bool,
     braced_default: bool = True,
+    seed: CheckResult | None = None,
 ) -> JointVerdict:
     """Verify a checkable joint against every load combination; governing over all.
 
     EN 1993-1-8:2005, 6.2.7, 6.2.6.1, Table 3.4, 6.2.7.1(3) per combination (see
     ``verify_combination``) and 5.2.2 for the assumption check. No demands: not checked.
+    A combination that could not be fully verified keeps the joint from passing. ``seed`` is
+    the engine's result for ``inp`` itself, so the engine does not run again for it.
     """
     if not demands:
         return JointVerdict(status=Status.NO_DEMANDS, reason=NotChecked(NotCheckedCode.NO_DEMANDS))
-    cache: dict = {}  # combinations with the same beta and bracing share one engine run
+    # combinations with the same beta and bracing share one engine run
+    cache: dict = {} if seed is None else {(inp.beta, inp.braced): seed}
     combos = tuple(
         verify_combination(
             inp,
@@ -299,6 +329,12 @@ def verify_joint(
         return JointVerdict(status=reason.status, reason=reason, combinations=combos)
     assumed = next((d.assumed_joint for d in demands if d.assumed_joint), None)
     gov = max((c.governing for c in combos), key=lambda u: u.utilisation)
-    status = Status.FAIL if gov.utilisation > 1.0 else Status.PASS
     assumption = assumption_check(combos[0].result, assumed)
-    return JointVerdict(status=status, combinations=combos, assumption=assumption)
+    gaps = [g for c in combos for g in c.gaps]
+    if gov.utilisation > 1.0:
+        status, reason = Status.FAIL, None
+    elif gaps:
+        status, reason = gaps[0].status, gaps[0]
+    else:
+        status, reason = Status.PASS, None
+    return JointVerdict(status=status, reason=reason, combinations=combos, assumption=assumption)

@@ -198,6 +198,9 @@ class NotCheckedCode(StrEnum):
     NO_DEMANDS = "no_demands"
     NO_SPAN_OR_IY = "no_span_or_iy"  # stiffness not classified
     NO_PLASTIC_MODULI = "no_plastic_moduli"  # strength not classified
+    NO_TENSION_ROWS = "no_tension_rows"  # a moment sign with no bolt row in its tension zone
+    BEARING_OUT_OF_RANGE = "bearing_out_of_range"  # Table 3.4 used outside Table 3.3's limits
+    CLASS_4_BEAM = "class_4_beam"  # M_c,Rd needs the effective section (EN 1993-1-5)
 
     @property
     def status(self) -> Status:
@@ -246,11 +249,19 @@ class NoteCode(StrEnum):
     """What the engine or the verification says about how a result was obtained."""
 
     WELDS_ASSUMED = "welds_assumed"
-    ALPHA_APPROXIMATION = "alpha_approximation"
+    ALPHA_CHART = "alpha_chart"
+    ALPHA_GIVEN = "alpha_given"
     ALPHA_CONSERVATIVE = "alpha_conservative"
     PRYING_ASSUMED = "prying_assumed"
-    STIFFENERS_IGNORED = "stiffeners_ignored"
+    COMPRESSION_STIFFENER = "compression_stiffener"
+    STIFFENER_SLENDER = "stiffener_slender"
+    TENSION_STIFFENER = "tension_stiffener"
+    TENSION_STIFFENER_WELDED = "tension_stiffener_welded"  # welded: stiffness only
+    WEB_PLATES_USED = "web_plates_used"
     WEB_PLATES_IGNORED = "web_plates_ignored"
+    WEB_PANEL_STIFFENED = "web_panel_stiffened"
+    STIFFNESS_UNREINFORCED = "stiffness_unreinforced"
+    BEAM_CLASS_3 = "beam_class_3"
     SHEAR_FROM_BOLTS = "shear_from_bolts"
     SHEAR_FROM_WELDS = "shear_from_welds"
     BETA_ONE_SINGLE_SIDED = "beta_one_single_sided"

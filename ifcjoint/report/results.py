@@ -48,9 +48,9 @@ def _k(x: float | None, f: float, digits: int = 2) -> float | None:
     return None if x is None else round(float(x) / f, digits)
 
 
-def _finite_k(x: float, f: float, digits: int) -> float | None:
-    """As ``_k``; None when infinite (nothing flexible)."""
-    return round(float(x) / f, digits) if math.isfinite(x) else None
+def _finite_k(x: float | None, f: float, digits: int) -> float | None:
+    """As ``_k``; None when infinite (nothing flexible) or not available."""
+    return round(float(x) / f, digits) if x is not None and math.isfinite(x) else None
 
 
 def _demand_dict(d) -> dict:
@@ -134,10 +134,12 @@ def result_dict(r: CheckResult, code: Eurocode3) -> dict:
         "resistance": {
             "Mj_Rd_hogging_kNm": round(float(h.M_j_Rd) / 1e6, 2),
             "Mj_Rd_sagging_kNm": round(float(s.M_j_Rd) / 1e6, 2) if s else None,
-            "Vj_Rd_kN": round(float(r.V_j_Rd) / 1e3, 2),
-            "Vwp_Rd_kN": round(float(r.V_wp_Rd) / 1e3, 2),
-            "Nj_Rd_tension_kN": round(float(r.N_j_Rd_tension) / 1e3, 2),
-            "Nj_Rd_compression_kN": round(float(r.N_j_Rd_compression) / 1e3, 2),
+            "Vj_Rd_kN": _k(r.V_j_Rd, 1e3),
+            "Vj_Rd_hogging_kN": _k(h.V_j_Rd, 1e3),
+            "Vj_Rd_sagging_kN": _k(s.V_j_Rd, 1e3) if s else None,
+            "Vwp_Rd_kN": _k(r.V_wp_Rd, 1e3),
+            "Nj_Rd_tension_kN": _k(r.N_j_Rd_tension, 1e3),
+            "Nj_Rd_compression_kN": _k(r.N_j_Rd_compression, 1e3),
             "Sj_ini_kNm_per_rad": _finite_k(h.S_j_ini, 1e6, 1),
             "Sj_ini_sagging_kNm_per_rad": _finite_k(s.S_j_ini, 1e6, 1) if s else None,
             "z_mm": round(float(h.z), 1),
@@ -156,6 +158,13 @@ def result_dict(r: CheckResult, code: Eurocode3) -> dict:
             for sign in ("hogging", "sagging")
         },
         "notes": [coded(n) for n in r.notes],
+        "gaps": [
+            {"sign": side.sign, "code": gap.code, "reason": coded(gap)}
+            for side in (h, s)
+            if side is not None
+            for gap in (side.no_tension, side.shear_gap)
+            if gap is not None
+        ],
         "inputs": inputs,
     }
 
@@ -235,8 +244,13 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
 
 
 def joint_check_dict(jc, code: Eurocode3) -> dict:
-    """The check part of one joint (added to the scan JSON's joint)."""
-    g = jc.verdict.governing
+    """The check part of one joint (added to the scan JSON's joint).
+
+    The joint's utilisation and governing check are given only for a joint that was checked
+    (pass or fail): a partial check (a resistance not available) never shows a ratio below 1
+    as if it were the joint's; its combinations still list what was computed.
+    """
+    g = jc.verdict.governing if Status(jc.status).checked else None
     r = result_dict(jc.result, code)
     problems = []
     for p in jc.problems:
@@ -271,6 +285,7 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
         "tension_rows": r.get("tension_rows", []),
         "classification": r.get("classification", {}),
         "engine_notes": r.get("notes", []),
+        "gaps": r.get("gaps", []),
         "m_phi": r.get("m_phi"),
         "sagging": r.get("sagging"),
         "inputs": r.get("inputs") or None,

@@ -15,7 +15,7 @@ from typing import TextIO
 import pandas as pd
 
 from ifcjoint import TOOL_NAME, __version__
-from ifcjoint.anatomy import JointAnatomy
+from ifcjoint.anatomy import JointAnatomy, stiffener_guids, web_plate_guids
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.fileio import atomic_write_text, safe_cell
 from ifcjoint.model.codes import Axis, PartRole
@@ -106,9 +106,14 @@ def anatomy_dict(j: Joint, a: JointAnatomy) -> dict:
                 for r in b.rows
             ],
         },
-        "stiffeners": list(a.stiffeners),
-        "stiffener_depths_mm": [round(float(x), 1) for x in a.stiffener_depths],
-        "web_plates": list(a.web_plates),
+        "stiffeners": list(stiffener_guids(a)),
+        "stiffener_depths_mm": [round(float(x.level), 1) for x in a.stiffener_plates],
+        "stiffener_plates": [
+            {"guids": list(x.guids), "level_mm": _r(x.level), "t": _r(x.t), "b": _r(x.b),
+             "sides": x.sides, "grade": x.grade}
+            for x in a.stiffener_plates
+        ],
+        "web_plates": list(web_plate_guids(a)),
         "unread": list(a.unread),
         "assumed": list(a.assumed),
     }

@@ -113,6 +113,18 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.NO_DEMANDS: lambda v: "no demand row for this joint",
     NotCheckedCode.NO_SPAN_OR_IY: lambda v: "not classified: beam span or Iy unknown",
     NotCheckedCode.NO_PLASTIC_MODULI: lambda v: "not classified: plastic moduli unknown",
+    NotCheckedCode.NO_TENSION_ROWS: lambda v: (
+        f"no bolt row in the tension zone for {v['sign']}: the joint carries no "
+        f"{v['sign']} moment (Mj,Rd = 0)"
+    ),
+    NotCheckedCode.BEARING_OUT_OF_RANGE: lambda v: (
+        f"bolt bearing not computed: {v['what']} = {v['value']:.1f} mm is below "
+        f"{v['limit']:.1f} mm, the range where Table 3.4 holds (Table 3.3)"
+    ),
+    NotCheckedCode.CLASS_4_BEAM: lambda v: (
+        f"beam {v['section']} is class {v['class']} in bending: M_c,Rd needs its effective "
+        "section (EN 1993-1-5), not computed here"
+    ),
 }
 
 
@@ -127,37 +139,70 @@ NOTES: dict[NoteCode, Words] = {
         f"weld throats assumed (not modelled): flanges a = {v['a_top']:g} / "
         f"{v['a_bottom']:g} mm, web a = {v['a_web']:g} mm"
     ),
-    NoteCode.ALPHA_APPROXIMATION: lambda v: (
-        "alpha (EN 1993-1-8 Fig 6.11) from a closed-form representation of the chart "
-        "recalled from memory (7.36 where the published example reads 7.5); values per row "
-        "in the end-plate components"
+    NoteCode.ALPHA_CHART: lambda v: (
+        "alpha (EN 1993-1-8 Fig 6.11) from the chart's published closed form (SCI P398 "
+        "Appendix G), for each row next to a flange or a stiffener; values per row in the "
+        "components"
     ),
+    NoteCode.ALPHA_GIVEN: lambda v: f"alpha (EN 1993-1-8 Fig 6.11) given: {v['alpha']:g}",
     NoteCode.ALPHA_CONSERVATIVE: lambda v: (
-        f"alpha (EN 1993-1-8 Fig 6.11) taken as {v['alpha']} (the chart's lowest "
-        "value, conservative); --alpha approximation uses a representation of the chart"
+        f"alpha (EN 1993-1-8 Fig 6.11) taken as {v['alpha']} everywhere (the chart's lowest "
+        "value, conservative; --alpha chart reads the chart)"
     ),
     NoteCode.PRYING_ASSUMED: lambda v: (
-        "bolt elongation length L_b from the plies (grip, two washers, half the head and "
-        "nut); the T-stubs assume prying forces (Table 6.2)"
+        "T-stubs with prying forces (Table 6.2; the no-prying case is not used); bolt "
+        f"elongation length L_b = {v['L_b']:.1f} mm (grip, two washers, half the head and "
+        "nut) for k10"
     ),
-    NoteCode.STIFFENERS_IGNORED: lambda v: (
-        f"{v['n']} transverse column stiffener(s): the resistances are those "
-        "of the unstiffened column (stiffeners ignored, on the safe side: a stiffener cannot "
-        "lower the plastic resistance); stiffness with k2 = infinite where the compression "
-        "flange and k3 = infinite for the rows next to a tension flange that a stiffener "
-        "lines up with (Table 6.11, stiffened web)"
+    NoteCode.COMPRESSION_STIFFENER: lambda v: (
+        f"compression stiffeners: {v['F'] / 1e3:.0f} kN, the lesser of crushing "
+        f"{v['crushing'] / 1e3:.0f} kN and buckling of the cruciform section "
+        f"{v['buckling'] / 1e3:.0f} kN (EN 1993-1-5 9.4, curve c)"
+    ),
+    NoteCode.STIFFENER_SLENDER: lambda v: (
+        f"a compression stiffener {v['b']:.0f} x {v['t']:.0f} mm has a slender outstand "
+        "(b / t > 14 epsilon): ignored, on the safe side"
+    ),
+    NoteCode.TENSION_STIFFENER: lambda v: (
+        "rows next to a tension stiffener take the stiffened column flange of Table 6.5; no "
+        "group of rows crosses a stiffener"
+    ),
+    NoteCode.TENSION_STIFFENER_WELDED: lambda v: (
+        "tension stiffener: k3 infinite (Table 6.11, stiffened welded connection); the "
+        "resistance keeps the unstiffened column web in tension and flange in bending (6.2.6.3, "
+        "6.2.6.4.3), on the safe side"
+    ),
+    NoteCode.WEB_PLATES_USED: lambda v: (
+        f"{v['n']} supplementary web plate(s) on {v['sides']} side(s): A_vc raised by b_s t_wc "
+        "(6.2.6.1(6)), effective web thickness in compression and tension (6.2.6.2(6), "
+        "6.2.6.3(8), fillet welds assumed)"
     ),
     NoteCode.WEB_PLATES_IGNORED: lambda v: (
-        f"{v['n']} supplementary web plate(s): ignored "
-        "(6.2.6.1(6)-(8) would raise Avc and the web resistances; on the safe side), "
-        "stiffness of the unreinforced web"
+        f"{v['n']} supplementary web plate(s) thinner or weaker than the web: ignored "
+        "(6.2.6.1(7)), on the safe side"
+    ),
+    NoteCode.WEB_PANEL_STIFFENED: lambda v: (
+        f"web panel between stiffeners {v['d_s']:.0f} mm apart: V_wp,add,Rd = "
+        f"{v['V_add'] / 1e3:.0f} kN added (6.2.6.1(4))"
+    ),
+    NoteCode.STIFFNESS_UNREINFORCED: lambda v: (
+        "stiffness: stiffeners and web plates raise only the coefficients Table 6.11 lets "
+        "them raise (k2 infinite under a compression stiffener; k3 infinite in a stiffened "
+        "welded joint, by its formula when bolted); k1 keeps the column's own shear area "
+        "(safe side)"
+    ),
+    NoteCode.BEAM_CLASS_3: lambda v: (
+        f"beam {v['section']} is class 3 in bending: M_c,Rd = W_el f_y / gamma_M0 in the beam "
+        "flange in compression (EN 1993-1-1 6.2.5(2))"
     ),
     NoteCode.SHEAR_FROM_BOLTS: lambda v: (
-        f"Vj,Rd: {v['n_shear']} bolt(s) in shear rows at "
-        f"{v['per_bolt'] / 1e3:.1f} kN, {v['n_tension']} in tension rows at (1 - 1/1.4) of "
-        "that (Table 3.4 interaction, common practice); bearing (Table 3.4) on the plate "
-        f"{v['fb_plate'] / 1e3:.0f} kN and on the column flange {v['fb_col'] / 1e3:.0f} kN "
-        "per bolt"
+        "Vj,Rd: bearing outside Table 3.4's range, not computed"
+        if v["out_of_range"] else
+        f"Vj,Rd: {v['n_shear']} bolt(s) in shear rows at min(Fv,Rd, Fb,Rd) = "
+        f"{v['per_bolt'] / 1e3:.1f} kN, {v['n_tension']} in tension rows at "
+        f"min((1 - 1/1.4) Fv,Rd, Fb,Rd) (Table 3.4 interaction, common practice); bearing "
+        f"(Table 3.4) on the plate {v['fb_plate'] / 1e3:.0f} kN and on the column flange "
+        f"{v['fb_col'] / 1e3:.0f} kN per bolt"
     ),
     NoteCode.SHEAR_FROM_WELDS: lambda v: (
         "Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"
@@ -336,6 +381,8 @@ def verification_name(
 def verification_detail(u, code: Eurocode3 = EN_1993_1_8) -> str:
     """The line under a utilisation: what governed, the lever arm, Nj,Rd."""
     if u.verification == Verification.MOMENT:
+        if u.detail.get("no_tension") is not None:
+            return coded(u.detail["no_tension"])
         return f"governed by {limit_words(u.detail.get('governing'), code)}"
     if u.verification == Verification.WEB_PANEL_SHEAR:
         return f"{code.symbol('V_wp_Ed')} by Eq. (5.3) with z = {u.detail['z']:.0f} mm"

@@ -98,7 +98,7 @@ def test_clean_extended_end_plate_reads_right_and_has_no_findings():
     assert (a.bolts.d, a.bolts.bolt_class, a.bolts.d0) == (20, "8.8", 22)
     assert a.bolts.d0_source.startswith("model")
     assert (a.beam_section.name, a.column_section.name) == ("IPE 400", "HEB 260")
-    assert (a.beam_grade, a.column_grade) == ("S355", "S355")
+    assert (a.beam_grade, a.column_grade) == ("S355J2", "S355J2")  # grade with its quality
 
 
 def test_flush_plate_and_assumed_hole_diameter():

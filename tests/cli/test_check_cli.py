@@ -17,6 +17,7 @@ from tests.conftest import DEMO_CREATED, SAMPLES, load_truth
 DEMO = SAMPLES / "kestrel-workshop-ifc4-mm.ifc"
 DEMANDS = SAMPLES / "kestrel-workshop-demands.csv"
 INCOMPLETE_DEFECTS = {"plate_without_bolts", "bolts_without_plate", "gap_to_column"}
+OUT_OF_RANGE_DEFECTS = {"edge_distance", "pitch"}
 
 
 def run(*args):
@@ -29,6 +30,9 @@ def designed_status(t: dict) -> str:
         return "unsupported"  # fin plates on the column web: not checked, said so
     if INCOMPLETE_DEFECTS & set(t["defects"]):
         return "incomplete"
+    if OUT_OF_RANGE_DEFECTS & set(t["defects"]):
+        # Table 3.4 holds only within Table 3.3's limits: no bearing resistance, never a pass
+        return "unsupported"
     if not t["key"].startswith("X/"):
         return "no_demands"  # the cantilever: the scenario gives it no forces
     level, line = (int(x) for x in t["key"].split("/")[1:3])
@@ -152,11 +156,16 @@ def test_params_file_changes_the_resistance(tmp_path, demo_check):
     data = json.loads(js.read_text())
     assert data["check"]["params"]["gamma_M2"] == 1.5
     base = {jc.joint.id: jc for jc in demo_check.joints}
+    changed = 0
     for j in data["joints"]:
         res = j["check"]["resistance"]
         if res:
             ref = result_dict(base[j["id"]].result, EN_1993_1_8)["resistance"]
-            assert res["Vj_Rd_kN"] <= ref["Vj_Rd_kN"] + 1e-9
+            assert (res["Vj_Rd_kN"] is None) == (ref["Vj_Rd_kN"] is None)
+            if res["Vj_Rd_kN"] is not None:
+                assert res["Vj_Rd_kN"] <= ref["Vj_Rd_kN"] + 1e-9
+                changed += res["Vj_Rd_kN"] < ref["Vj_Rd_kN"] - 1e-6
+    assert changed > 0
 
 
 def test_html_and_markdown_from_check_and_again_from_the_json(tmp_path):
@@ -202,7 +211,10 @@ def test_results_do_not_depend_on_the_model_length_unit():
         assert x["status"] == y["status"]
         if x["status"] == "checked":
             for k, v in x["resistance"].items():
-                assert y["resistance"][k] == pytest.approx(v, rel=1e-3, abs=0.05), (key, k)
+                if v is None:
+                    assert y["resistance"][k] is None, (key, k)
+                else:
+                    assert y["resistance"][k] == pytest.approx(v, rel=1e-3, abs=0.05), (key, k)
             assert x["classification"] == y["classification"]
             compared += 1
     assert compared >= 30

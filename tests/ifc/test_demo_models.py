@@ -144,7 +144,7 @@ def test_demo_anatomy_matches_what_was_built(scan_cached):
     assert checked >= 25
 
 
-def test_stiffened_columns_are_recorded_and_checked_with_a_note(build_variant, scan_cached):
+def test_stiffened_columns_are_read_and_enter_the_resistance(build_variant, scan_cached):
     """Transverse web stiffeners built at the level-1 beam flanges of line A: recorded in the
     anatomy at the flange levels; the check uses them for the stiffness and says so."""
     from ifcjoint.archetypes import check_joint
@@ -162,13 +162,18 @@ def test_stiffened_columns_are_recorded_and_checked_with_a_note(build_variant, s
             continue
         j = by_key[(t["beam"], emap[(t["beam"], t["beam_end"])])]
         a = r.anatomy[j.id]
-        assert len(a.stiffeners) == 4
+        assert sum(len(st.guids) for st in a.stiffener_plates) == 4
+        assert len(a.stiffener_plates) == 2 and all(st.sides == 2 for st in a.stiffener_plates)
         h, tf = a.beam_section.h, a.beam_section.tf
-        for d in a.stiffener_depths:  # each lines up with one of the beam's flanges
-            assert min(abs(d - tf / 2), abs(d - (h - tf / 2))) <= tf / 2 + 1.0
+        for st in a.stiffener_plates:  # each level lines up with one of the beam's flanges
+            assert min(abs(st.level - tf / 2), abs(st.level - (h - tf / 2))) <= tf / 2 + 1.0
+            assert st.t > 0 and st.b > 0
         if j.archetype in ("extended_end_plate", "flush_end_plate"):
             res = check_joint(j, a, members)
             assert res.checked
-            assert any(n.code == NoteCode.STIFFENERS_IGNORED for n in res.notes)
+            # both stiffeners enter the resistance (6.2.6.2, 6.2.6.4.2), said in the notes
+            codes = {n.code for n in res.notes}
+            assert {NoteCode.COMPRESSION_STIFFENER, NoteCode.TENSION_STIFFENER} <= codes
+            assert len(res.input.stiffeners) == 2
             seen += 1
     assert seen >= 4
