@@ -28,6 +28,7 @@ from ifcjoint.errors import (
     EXIT_OK,
     ConfigError,
     IfcjointError,
+    OutputError,
     ResultsFileError,
     UsageError,
 )
@@ -520,6 +521,106 @@ def report(results_json, html_out, md_out, quiet):
              lambda: write_outputs(data, {"html": html_out, "md": md_out},
                                    {"html": {"progress": bar}}, done=_wrote(quiet)))
     sys.exit(EXIT_OK)
+
+
+def _export_description(results_json: str, joint_key: str | None, out: str | None) -> str:
+    """Write one joint of a results JSON as a description; returns what was written."""
+    from ifcjoint.archetypes.description import DescriptionError, description_from_joint
+    from ifcjoint.tables.joint_file import write_description
+
+    data = _read_results(results_json)
+    if not joint_key:
+        raise UsageError("--from needs --joint ID (a joint id or label of the results JSON)")
+    joints = data.get("joints") or []
+    found = [j for j in joints if j.get("id") == joint_key] or [
+        j for j in joints if j.get("label") == joint_key
+    ]
+    if len(found) != 1:
+        near = [j["id"] for j in joints if joint_key.lower() in
+                f"{j.get('id', '')} {j.get('label', '')}".lower()][:5]
+        hint = f"; close: {', '.join(near)}" if near else ""
+        what = "is not" if not found else f"matches {len(found)} joints; give the id, it"
+        raise UsageError(f"{results_json}: {joint_key!r} {what} a joint id or label{hint}")
+    try:
+        desc = description_from_joint(found[0])
+    except DescriptionError as exc:
+        raise ResultsFileError(f"{results_json}: joint {joint_key}: {exc}") from exc
+    if out:
+        try:
+            write_description(desc, out)
+        except OSError as exc:
+            raise OutputError(f"cannot write {out}: {exc}") from exc
+        return out
+    import tomli_w
+
+    click.echo(tomli_w.dumps(desc), nl=False)
+    return ""
+
+
+@main.command()
+@click.argument("description", required=False, type=click.Path(dir_okay=False, path_type=str))
+@click.option("--html", "html_out", type=click.Path(dir_okay=False),
+              help="The calculation sheet as a self-contained HTML page.")
+@click.option("--json", "json_out", type=click.Path(dir_okay=False),
+              help="The one-joint results JSON (docs/joint-file.md).")
+@click.option("--from", "from_results", type=click.Path(dir_okay=False, path_type=str),
+              help="Export a joint of this results JSON (of `check --json`) as a description "
+              "to edit and run; with --joint and --out.")
+@click.option("--joint", "joint_key", help="With --from: the joint's id or label.")
+@click.option("--out", "out_path", type=click.Path(dir_okay=False),
+              help="With --from: the description to write (.toml or .json); TOML on stdout "
+              "when not given.")
+@click.option("--fail-on", type=click.Choice(list(GATES)), default="never", show_default=True,
+              help="What makes the exit code 1 (as for check).")
+@click.option(
+    "--timestamp",
+    type=click.DateTime(formats=["%Y-%m-%dT%H:%M:%S", "%Y-%m-%d"]),
+    default=None,
+    help="Date to record in the outputs (UTC) instead of now, for reproducible files.",
+)
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
+@click.option("--debug", is_flag=True, help="Print a traceback on an internal error.")
+def calc(description, html_out, json_out, from_results, joint_key, out_path, fail_on,
+         timestamp, quiet, debug):
+    """Calculate one joint from a DESCRIPTION (TOML or JSON, docs/joint-file.md).
+
+    Prints its calculation sheet: inputs, components with clauses, row distribution,
+    resistances, stiffness, classification and utilisations. With --from, exports a joint of
+    a results JSON as a description instead (edit it and run it: "what if the plate were
+    25 mm?").
+    """
+    import datetime as dt
+
+    from ifcjoint.model.codes import UNCHECKED, Status
+    from ifcjoint.pipeline import calc as run_calc
+    from ifcjoint.report.calc import write_calc_outputs
+    from ifcjoint.report.sheet import render_sheet_text
+
+    if from_results:
+        if description:
+            _exit(UsageError("give a DESCRIPTION to calculate or --from to export, not both"))
+        wrote = _guarded("exporting the joint", debug, None,
+                         lambda: _export_description(from_results, joint_key, out_path))
+        if wrote and not quiet:
+            click.echo(f"wrote {wrote}", err=True)
+        sys.exit(EXIT_OK)
+    if not description:
+        _exit(UsageError("give a joint DESCRIPTION (.toml or .json), or --from RESULTS --joint ID"))
+    for out in (html_out, json_out):
+        if out and Path(out).resolve() == Path(description).resolve():
+            _exit(UsageError(f"{out} is the description itself; write the output elsewhere"))
+    when = timestamp.replace(tzinfo=dt.UTC) if timestamp else None
+    jc = _guarded("calculating", debug, None, lambda: run_calc(description, created=when))
+    _guarded("writing the outputs", debug, None,
+             lambda: write_calc_outputs(jc.results, {"json": json_out, "html": html_out},
+                                        done=_wrote(quiet)))
+    if not quiet:
+        joint = jc.results["joints"][0]
+        click.echo(render_sheet_text(joint, jc.results, jc.settings.code), nl=False)
+    status = jc.status
+    failed = (fail_on != "never" and status == Status.FAIL) or (
+        fail_on in ("unchecked", "problems") and status in UNCHECKED)
+    sys.exit(EXIT_GATE if failed else EXIT_OK)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -82,3 +82,15 @@ class ResultsFileError(IfcjointError):
     """A results JSON given to re-render cannot be used."""
 
     exit_code = EXIT_INPUT
+
+
+class JointFileError(IfcjointError):
+    """A joint description (``ifcjoint calc``) cannot be used: the file, the key, the problem."""
+
+    exit_code = EXIT_INPUT
+
+    def __init__(self, path: str, key: str, problem: str) -> None:
+        self.path = path
+        self.key = key
+        self.problem = problem
+        super().__init__(f"{path}: {key}: {problem}" if key else f"{path}: {problem}")

@@ -27,20 +27,28 @@ from pathlib import Path
 from ifcjoint import __version__
 from ifcjoint.anatomy import AnatomySettings, JointAnatomy, analyse
 from ifcjoint.archetypes import decide, joint_type, run_joint
+from ifcjoint.archetypes.description import (
+    DescriptionError,
+    archetype_of,
+    demands_from_description,
+    engine_for,
+    input_from_description,
+)
 from ifcjoint.engine.inputs import input_record
 from ifcjoint.engine.problems import Problem, joint_problems
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.engine.verify import JointVerdict, verify_joint
-from ifcjoint.errors import NoSteelError
+from ifcjoint.errors import JointFileError, NoSteelError
 from ifcjoint.find import FinderSettings, find_joints
 from ifcjoint.ifc.reader import read_model
 from ifcjoint.ifc.recognition import load_rules
-from ifcjoint.model.codes import UNCHECKED, MemberKind, Status, SteelState
+from ifcjoint.model.codes import UNCHECKED, Archetype, MemberKind, Status, SteelState
 from ifcjoint.model.demands import Demand
 from ifcjoint.model.elements import Progress
 from ifcjoint.model.joints import Joint, ScanResult
 from ifcjoint.tables.demands import DemandsTable, read_demands
+from ifcjoint.tables.joint_file import read_description
 
 
 def scan(
@@ -298,3 +306,91 @@ def check(
     )
     table = read_demands(demands, sc.joints) if isinstance(demands, (str, Path)) else demands
     return check_scan(sc, table, settings, created=created, progress=progress)
+
+
+@dataclass(frozen=True, kw_only=True)
+class JointCalc:
+    """One joint checked from a description, without a model (``ifcjoint calc``).
+
+    It answers the same questions as a ``JointCheck`` (status, engine result, verdict,
+    demands), so the report's one-joint renderers take either.
+    """
+
+    path: str
+    label: str
+    archetype: Archetype
+    capacity: CheckResult
+    verdict: JointVerdict
+    demands: tuple[Demand, ...]
+    fingerprint: str
+    settings: CheckSettings
+    created: _dt.datetime
+    double_sided: bool = False
+    problems: tuple[Problem, ...] = ()
+    tool_version: str = __version__
+
+    @property
+    def status(self) -> Status:
+        """The status: pass, fail, no_demands or unsupported (with the reason)."""
+        return self.verdict.status
+
+    @property
+    def result(self) -> CheckResult:
+        """The engine result of the governing combination, else the check without demands."""
+        gc = self.verdict.governing_combination
+        return gc.result if gc is not None else self.capacity
+
+    @cached_property
+    def results(self) -> dict:
+        """The one-joint results dictionary (docs/joint-file.md, "Output")."""
+        from ifcjoint.report.calc import build_calc_results
+
+        return build_calc_results(self)
+
+
+def calc(
+    source: str | Path | dict,
+    *,
+    settings: CheckSettings | None = None,
+    created: _dt.datetime | None = None,
+) -> JointCalc:
+    """Check one joint from a description (a TOML/JSON file, or the dict itself).
+
+    Raises:
+        ifcjoint.errors.JointFileError: the file or a value in it cannot be used (the key is
+            named).
+    """
+    st = settings or CheckSettings()
+    path = "<description>" if isinstance(source, dict) else str(source)
+    data = source if isinstance(source, dict) else read_description(source)
+    try:
+        inp = input_from_description(data, st)
+        demands = tuple(demands_from_description(data, Path(path).name))
+    except DescriptionError as exc:
+        raise JointFileError(path, exc.key, exc.problem) from None
+    double_sided = data.get("double_sided", False)
+    if not isinstance(double_sided, bool):
+        raise JointFileError(path, "double_sided", f"{double_sided!r} is not true/false")
+    archetype = archetype_of(inp)
+    engine = engine_for(inp)
+    cap = engine(inp)
+    if cap.checked:
+        verdict = verify_joint(inp, list(demands), engine=engine, double_sided=double_sided,
+                               braced_default=inp.braced, seed=cap)
+    else:
+        verdict = JointVerdict(status=cap.not_checked.status, reason=cap.not_checked)
+    blob = json.dumps({"input": input_record(inp), "demands": [repr(d) for d in demands],
+                       "double_sided": double_sided, "version": __version__},
+                      sort_keys=True, default=str)
+    return JointCalc(
+        path=path,
+        label=str(data.get("label") or Path(path).stem),
+        archetype=archetype,
+        capacity=cap,
+        verdict=verdict,
+        demands=demands,
+        fingerprint=hashlib.sha256(blob.encode()).hexdigest()[:16],
+        settings=replace(st, braced=inp.braced),
+        created=created or _dt.datetime.now(_dt.UTC).replace(microsecond=0),
+        double_sided=double_sided,
+    )

@@ -7,7 +7,12 @@ taken from a documented default that is reported as assumed. No IFC here.
 from __future__ import annotations
 
 from ifcjoint.anatomy import JointAnatomy
-from ifcjoint.catalogue.materials import BOLT_CLASSES, parse_steel_grade, steel_strength
+from ifcjoint.catalogue.materials import (
+    BOLT_CLASSES,
+    Strength,
+    parse_steel_grade,
+    steel_strength,
+)
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA, bolt_elongation_length
 from ifcjoint.ec3.components import BETA_W
@@ -43,22 +48,35 @@ def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> fl
     return float(-(-a // 1))  # up to the whole mm
 
 
-def _assumed_welds(beam: MemberInput, st: CheckSettings) -> WeldsInput:
+def assumed_welds(beam: MemberInput, st: CheckSettings) -> WeldsInput:
     """Beam-to-plate (or -column) welds when the model has none: both flanges and the web."""
     a_f = _throat(beam.tf, beam.grade, beam.fy, beam.fu, st)
     a_w = _throat(beam.tw, beam.grade, beam.fy, beam.fu, st)
     return WeldsInput(top_flange_throat=a_f, bottom_flange_throat=a_f, web_throat=a_w, assumed=True)
 
 
-def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
-    # A rolled section's strength is read at its thickest element (the flange), as product
-    # certificates and the published worked examples do; common practice, no source.
+def grade_strength(grade: str, t: float, basis: str) -> tuple[str, Strength]:
+    """The base grade (``S355``) of a grade as written (``S355J2+N``) and its strengths at t.
+
+    Raises:
+        ValueError: a grade or thickness the strength tables do not hold.
+    """
     g = parse_steel_grade(grade)
     base, quality = (g.grade, g.quality) if g is not None else (grade, "")
-    s = steel_strength(base, max(sec.tf, sec.tw), basis=basis, quality=quality)
-    fy, fu = s.fy, s.fu
+    return base, steel_strength(base, t, basis=basis, quality=quality)
+
+
+def section_member(
+    name: str, sec: ISection, grade: str, basis: str, span: float | None
+) -> MemberInput:
+    """A section and grade as an engine member, strengths at the section's thickest element.
+
+    A rolled section's strength is read at its thickest element (the flange), as product
+    certificates and the published worked examples do; common practice, no source.
+    """
+    base, s = grade_strength(grade, max(sec.tf, sec.tw), basis)
     return MemberInput(
-        name=sec.name or m.name,
+        name=sec.name or name,
         grade=base,
         strength_source=s.source,
         h=sec.h,
@@ -66,13 +84,17 @@ def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> 
         tw=sec.tw,
         tf=sec.tf,
         r=sec.r,
-        fy=fy,
-        fu=fu,
+        fy=s.fy,
+        fu=s.fu,
         welded=sec.r == 0,
-        span=m.length if span else None,
+        span=span,
         Iy=sec.Iy,
         Wpl_y=sec.Wpl_y,
     )
+
+
+def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
+    return section_member(m.name, sec, grade, basis, m.length if span else None)
 
 
 def beam_and_column(
@@ -159,7 +181,7 @@ def _shared_fields(
     """Fields both joint inputs take the same way: welds, factors, beta, column plates."""
     stiffeners, webs = column_plate_inputs(a, col, st)
     return {
-        "welds": _assumed_welds(beam, st),
+        "welds": assumed_welds(beam, st),
         "params": st.params,
         "beta": 1.0,
         "braced": st.braced,
@@ -184,11 +206,8 @@ def end_plate_input(
         return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
     if any(len(r.bolts) != 2 for r in b.rows):
         return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
-    plate_grade = p.grade or a.beam_grade
-    g = parse_steel_grade(plate_grade)
-    base, quality = (g.grade, g.quality) if g is not None else (plate_grade, "")
     try:
-        s = steel_strength(base, p.tp, basis=st.strength_basis, quality=quality)
+        base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
     except ValueError as exc:
         return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
     fy_p, fu_p = s.fy, s.fu

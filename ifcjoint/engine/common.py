@@ -261,7 +261,8 @@ def stiffened_compression(
     f = min(crush, buckle)
     inputs = {"A_s_net": a_net, "crushing": crush, "A_cruciform": area, "I_s": inertia,
               "lambda_bar": lam, "buckling": buckle, "L": hw, "snipe": s.snipe}
-    note = Note(NoteCode.COMPRESSION_STIFFENER, {"F": f, "crushing": crush, "buckling": buckle})
+    note = Note(NoteCode.COMPRESSION_STIFFENER,
+                {"F": f, "crushing": crush, "buckling": buckle, "level": s.level})
     return f, inputs, note
 
 

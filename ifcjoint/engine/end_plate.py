@@ -91,9 +91,9 @@ def check_end_plate_joint(inp: EndPlateJointInput):
         return not_checked(why, inp)
     web = column_web(inp)
     notes = [*weld_notes(inp.welds), *_alpha_note(inp), *web.notes]
-    hog = _SideCheck(inp, "hogging", web)
-    sag = _SideCheck(inp, "sagging", web)
-    sides = (hog.result(), sag.result())
+    hog, hog_result = _best_side(inp, "hogging", web)
+    sag, sag_result = _best_side(inp, "sagging", web)
+    sides = (hog_result, sag_result)
     notes += [Note(NoteCode.PRYING_ASSUMED, {"L_b": hog.lb}), *hog.notes, *sag.notes]
     if inp.stiffeners or inp.web_plates:
         notes.append(Note(NoteCode.STIFFNESS_UNREINFORCED))
@@ -103,6 +103,28 @@ def check_end_plate_joint(inp: EndPlateJointInput):
         notes=list(unique_notes(notes)), joint_kind="bolted_end_plate",
     )
     return resistances_valid(r)
+
+
+def _best_side(inp: EndPlateJointInput, sign: str, web: ColumnWeb):
+    """One moment sign, with its tension stiffeners or, when it gives more, without them.
+
+    Table 6.5 gives a row next to a stiffener l_eff,nc = alpha m, which for a wide column
+    flange (e much larger than m) is below the unstiffened inner row's 4 m + 1.25 e of
+    Table 6.4. A stiffener only adds material, and leaving it out of the calculation is on
+    the safe side, so the larger of the two resistances is kept, said in a note (common
+    practice, no source).
+    """
+    side = _SideCheck(inp, sign, web)
+    result = side.result()
+    if not side.stiffeners:
+        return side, result
+    plain = _SideCheck(inp, sign, web, tension_stiffeners=False)
+    plain_result = plain.result()
+    if plain_result.M_j_Rd > result.M_j_Rd:
+        plain.notes.append(Note(NoteCode.TENSION_STIFFENER_IGNORED, {
+            "sign": sign, "with": result.M_j_Rd, "without": plain_result.M_j_Rd}))
+        return plain, plain_result
+    return side, result
 
 
 def _alpha_note(inp: EndPlateJointInput) -> list[Note]:
@@ -174,6 +196,7 @@ class _SideCheck:
     inp: EndPlateJointInput
     sign: str
     web: ColumnWeb
+    tension_stiffeners: bool = True
     comps: list[ComponentResult] = field(default_factory=list)
     kinds: list[str] = field(default_factory=list)  # extension | first | other, per row
     leff_col: list[float] = field(default_factory=list)  # smallest column l_eff per row
@@ -220,9 +243,12 @@ class _SideCheck:
         in_tension = [
             _Stiffener(z=s.level if hog else beam.h - s.level, s=s) for s in inp.stiffeners
         ]
-        self.stiffeners = [x for x in in_tension if self.cc - x.z > (beam.h - beam.tf) / 2]
+        self.stiffeners = [
+            x for x in in_tension
+            if self.tension_stiffeners and self.cc - x.z > (beam.h - beam.tf) / 2
+        ]
         if self.stiffeners:
-            self.notes.append(Note(NoteCode.TENSION_STIFFENER))
+            self.notes.append(Note(NoteCode.TENSION_STIFFENER, {"sign": self.sign}))
         flange_c = beam.h - beam.tf / 2 if hog else beam.tf / 2
         s_c = stiffener_at(inp.stiffeners, flange_c, beam.tf)
         ok = s_c is not None and sti.stiffener_outstand_ok(s_c.b, s_c.t, s_c.fy)

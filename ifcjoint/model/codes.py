@@ -256,6 +256,7 @@ class NoteCode(StrEnum):
     COMPRESSION_STIFFENER = "compression_stiffener"
     STIFFENER_SLENDER = "stiffener_slender"
     TENSION_STIFFENER = "tension_stiffener"
+    TENSION_STIFFENER_IGNORED = "tension_stiffener_ignored"  # Table 6.4 gives more
     TENSION_STIFFENER_WELDED = "tension_stiffener_welded"  # welded: stiffness only
     WEB_PLATES_USED = "web_plates_used"
     WEB_PLATES_IGNORED = "web_plates_ignored"

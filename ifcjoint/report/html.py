@@ -14,12 +14,13 @@ from collections import Counter
 from jinja2 import Environment, PackageLoader, select_autoescape
 from markupsafe import Markup
 
-from ifcjoint.ec3.code import EN_1993_1_8, Component, Zone
+from ifcjoint.ec3.code import EN_1993_1_8
 from ifcjoint.engine.settings import DESIGN_CODES, design_code
 from ifcjoint.fileio import atomic_write_text
 from ifcjoint.model.codes import UNCHECKED, Status
 from ifcjoint.report.drawing import plate_svg
 from ifcjoint.report.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
+from ifcjoint.report.sheet import component_rows, fmt
 from ifcjoint.report.words import STATUS_WORDS
 
 #: From this many joints on, calculation sheets are built in the page only when opened.
@@ -37,11 +38,7 @@ def _env() -> Environment:
 
 
 def _num(v, digits: int = 1) -> str:
-    if v is None:
-        return "-"
-    if isinstance(v, (int, float)):
-        return f"{v:,.{digits}f}"
-    return str(v)
+    return fmt(v, digits)
 
 
 def _m_phi_all(checks: list[dict], progress=None) -> list[str | None]:
@@ -75,34 +72,11 @@ def _code_of(results: dict):
 def _sheet(j: dict, svg_mphi: str | None, code) -> dict:
     """What one joint's section of the report shows (no numbers made here)."""
     c = j["check"]
-    comps = []
-    for x in c.get("components") or []:
-        info = code.components.get(Component(x["component"])) if x.get("component") else None
-        where = (
-            f"row {x['row']}"
-            if x.get("row")
-            else (f"rows {x['rows'][0]}-{x['rows'][-1]}" if x.get("rows") else "")
-        )
-        comps.append(
-            {
-                **x,
-                "where": where,
-                "zone": info.zone if info else Zone.TENSION,
-                "formula": info.formula if info else "",
-                "inputs_text": ", ".join(
-                    f"{k} = {_num(v, 2) if isinstance(v, float) else v}"
-                    for k, v in (x.get("inputs") or {}).items()
-                    if v is not None
-                ),
-            }
-        )
-    order = {Zone.TENSION: 0, Zone.COMPRESSION: 1, Zone.SHEAR: 2}
-    comps.sort(key=lambda x: order[x["zone"]])
     svg_plate = plate_svg(j)
     return {
         "joint": j,
         "check": c,
-        "components": comps,
+        "components": component_rows(c, code),
         "plate_svg": Markup(svg_plate) if svg_plate else None,  # built by us, text escaped
         "m_phi_svg": Markup(svg_mphi) if svg_mphi else None,
         "status_word": STATUS_WORDS[c["status"]],
@@ -144,5 +118,29 @@ def render_html(results: dict, progress=None) -> str:
 def write_html(results: dict, path, *, progress=None) -> dict[str, int]:
     """Write the HTML report atomically; returns its size in bytes."""
     html = render_html(results, progress)
+    atomic_write_text(path, html)
+    return {"bytes": len(html.encode("utf-8"))}
+
+
+def render_calc_html(results: dict) -> str:
+    """The one-joint page of ``ifcjoint calc --html`` (the sheet open, nothing fetched)."""
+    code = _code_of(results)
+    joints = results["joints"]
+    plots = [m_phi_svg(j["check"]) if j["check"].get("engine_status") == "checked" else None
+             for j in joints]
+    return _env().get_template("calc.html.j2").render(
+        r=results,
+        ck=results["check"],
+        design_code=code.name,
+        design_code_edition=f"{code.name}:{code.edition}",
+        sheets=[_sheet(j, svg, code) for j, svg in zip(joints, plots, strict=True)],
+        lazy=False,
+        open_sheets=True,
+    )
+
+
+def write_calc_html(results: dict, path) -> dict[str, int]:
+    """Write the one-joint page atomically; returns its size in bytes."""
+    html = render_calc_html(results)
     atomic_write_text(path, html)
     return {"bytes": len(html.encode("utf-8"))}

@@ -69,6 +69,18 @@ def _demand_dict(d) -> dict:
     }
 
 
+#: Component inputs that are forces (N) or moments (N mm): shown in kN and kNm, renamed.
+_INPUT_UNITS = {"crushing": ("crushing_kN", 1e3), "buckling": ("buckling_kN", 1e3),
+                "Mc_Rd": ("Mc_Rd_kNm", 1e6)}
+
+
+def _input_value(k: str, v) -> tuple[str, object]:
+    name, f = _INPUT_UNITS.get(k, (k, 1.0))
+    if isinstance(v, (int, float)) and not isinstance(v, bool):
+        return name, round(float(v) / f, 3)
+    return name, v
+
+
 def _component_dict(c: ComponentResult, code: Eurocode3) -> dict:
     return {
         "clause": code.ref(c.clause),
@@ -78,10 +90,7 @@ def _component_dict(c: ComponentResult, code: Eurocode3) -> dict:
         "rows": list(c.rows),
         "F_Rd_kN": round(float(c.F_Rd) / 1e3, 2),
         "mode": c.mode,
-        "inputs": {
-            k: (round(float(v), 3) if isinstance(v, (int, float)) else v)
-            for k, v in c.inputs.items()
-        },
+        "inputs": dict(_input_value(k, v) for k, v in c.inputs.items()),
     }
 
 
@@ -305,7 +314,7 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
     }
 
 
-def _finite(obj):
+def finite_json(obj):
     """Replace non-finite floats by None so the JSON stays strict.
 
     An infinite utilisation (a resistance of zero) becomes null; the status still says fail.
@@ -313,9 +322,9 @@ def _finite(obj):
     if isinstance(obj, float):
         return obj if math.isfinite(obj) else None
     if isinstance(obj, dict):
-        return {k: _finite(v) for k, v in obj.items()}
+        return {k: finite_json(v) for k, v in obj.items()}
     if isinstance(obj, (list, tuple)):
-        return [_finite(v) for v in obj]
+        return [finite_json(v) for v in obj]
     return obj
 
 
@@ -350,7 +359,7 @@ def build_results(mc) -> dict:
         "notes": list(mc.notes),
     }
     d["caution"] = CAUTION
-    return _finite(d)
+    return finite_json(d)
 
 
 def cite(results: dict, clause: str) -> str:

@@ -134,6 +134,11 @@ def _beta_from_moments(v: Mapping[str, Any]) -> str:
 
 
 #: How a result was obtained.
+def _at_level(v: dict) -> str:
+    """`` at 525 mm`` for a value dict with a stiffener level (older results have none)."""
+    return f" at {v['level']:.0f} mm" if v.get("level") is not None else ""
+
+
 NOTES: dict[NoteCode, Words] = {
     NoteCode.WELDS_ASSUMED: lambda v: (
         f"weld throats assumed (not modelled): flanges a = {v['a_top']:g} / "
@@ -144,7 +149,10 @@ NOTES: dict[NoteCode, Words] = {
         "Appendix G), for each row next to a flange or a stiffener; values per row in the "
         "components"
     ),
-    NoteCode.ALPHA_GIVEN: lambda v: f"alpha (EN 1993-1-8 Fig 6.11) given: {v['alpha']:g}",
+    NoteCode.ALPHA_GIVEN: lambda v: (
+        f"alpha (EN 1993-1-8 Fig 6.11) given: {v['alpha']:g} for the end plate's first row "
+        "below the flange; next to a column stiffener, from the chart's published closed form"
+    ),
     NoteCode.ALPHA_CONSERVATIVE: lambda v: (
         f"alpha (EN 1993-1-8 Fig 6.11) taken as {v['alpha']} everywhere (the chart's lowest "
         "value, conservative; --alpha chart reads the chart)"
@@ -155,7 +163,7 @@ NOTES: dict[NoteCode, Words] = {
         "nut) for k10"
     ),
     NoteCode.COMPRESSION_STIFFENER: lambda v: (
-        f"compression stiffeners: {v['F'] / 1e3:.0f} kN, the lesser of crushing "
+        f"compression stiffeners{_at_level(v)}: {v['F'] / 1e3:.0f} kN, the lesser of crushing "
         f"{v['crushing'] / 1e3:.0f} kN and buckling of the cruciform section "
         f"{v['buckling'] / 1e3:.0f} kN (EN 1993-1-5 9.4, curve c)"
     ),
@@ -164,8 +172,13 @@ NOTES: dict[NoteCode, Words] = {
         "(b / t > 14 epsilon): ignored, on the safe side"
     ),
     NoteCode.TENSION_STIFFENER: lambda v: (
-        "rows next to a tension stiffener take the stiffened column flange of Table 6.5; no "
-        "group of rows crosses a stiffener"
+        f"{v.get('sign', 'tension side')}: rows next to a stiffener at the tension flange take "
+        "the stiffened column flange of Table 6.5; no group of rows crosses a stiffener"
+    ),
+    NoteCode.TENSION_STIFFENER_IGNORED: lambda v: (
+        f"{v['sign']}: the column flange without its tension stiffener gives more "
+        f"({v['without'] / 1e6:.1f} against {v['with'] / 1e6:.1f} kNm with Table 6.5's "
+        "alpha m), so the stiffener is left out of the tension zone (on the safe side)"
     ),
     NoteCode.TENSION_STIFFENER_WELDED: lambda v: (
         "tension stiffener: k3 infinite (Table 6.11, stiffened welded connection); the "

@@ -11,8 +11,8 @@ beam 275 MPa); T-stub mode 1 by method 2 with ew = dw/4, dw = 39.55 mm; double-s
 with equal and opposite moments (beta = 0, omega = 1); k_wc = 1. The source rounds to three
 significant figures: tolerances 0.5 % unless noted.
 
-Only the components are reproduced here; the row-by-row distribution and Mj,Rd (sheet 22) wait
-for 6.2.7.2 to be implemented.
+The components are reproduced one by one, then the row distribution and Mj,Rd (sheet 22); the
+whole example also runs through ``ifcjoint calc`` (test_published_stiffened_examples.py).
 """
 
 from __future__ import annotations
