@@ -207,9 +207,14 @@ def check_one(
     members: dict,
     demands: tuple[Demand, ...],
     st: CheckSettings,
+    cache: dict | None = None,
 ) -> JointCheck:
-    """Check one joint by its archetype and verify it against its demands."""
-    engine_result, cap = run_joint(j, a, members, st)
+    """Check one joint by its archetype and verify it against its demands.
+
+    ``cache`` (one dict for a whole model) lets joints with equal engine inputs share one
+    engine run.
+    """
+    engine_result, cap = run_joint(j, a, members, st, cache=cache)
     if cap.checked:
         verdict = verify_joint(
             cap.input,
@@ -218,6 +223,7 @@ def check_one(
             double_sided=j.partner is not None,
             braced_default=st.braced,
             seed=engine_result,
+            cache=cache,
         )
     else:
         reason = cap.not_checked
@@ -247,9 +253,10 @@ def check_scan(
     members = {m.guid: m for m in scan.model.members}
     out = []
     n = len(scan.joints)
+    cache: dict = {}  # engine results by input: a model's repeated joints run once
     for k, j in enumerate(scan.joints, start=1):
         ds = tuple(demands.by_joint.get(j.id, ())) if demands is not None else ()
-        out.append(check_one(j, scan.anatomy.get(j.id), members, ds, st))
+        out.append(check_one(j, scan.anatomy.get(j.id), members, ds, st, cache))
         if progress is not None:
             progress("check", k, n)
     when = created or _dt.datetime.now(_dt.UTC).replace(microsecond=0)

@@ -19,6 +19,7 @@ from ifcjoint.archetypes.unsupported import Unrecognised, Unsupported
 from ifcjoint.archetypes.welded import Welded
 from ifcjoint.engine.results import CheckResult, not_checked
 from ifcjoint.engine.settings import CheckSettings
+from ifcjoint.engine.verify import run_engine
 from ifcjoint.model.codes import Archetype, NotChecked, NotCheckedCode, Reason, ReasonCode
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
@@ -76,11 +77,13 @@ def run_joint(
     members: dict[str, Member],
     settings: CheckSettings | None = None,
     registry: tuple[JointType, ...] | None = None,
+    cache: dict | None = None,
 ) -> tuple[CheckResult, CheckResult]:
     """Check one joint with its archetype's object.
 
     Returns the engine's own result and the same result with the archetype's notes for a
-    check without demands; both say why when the joint is not checked.
+    check without demands; both say why when the joint is not checked. ``cache`` shares
+    engine results between joints with equal inputs (``engine.verify.run_engine``).
     """
     if a is None:
         r = not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
@@ -91,7 +94,7 @@ def run_joint(
     if isinstance(inp, NotChecked):
         r = not_checked(inp)
         return r, r
-    r = jt.check(inp, joint)
+    r = jt.check(inp, joint) if cache is None else run_engine(jt.engine, inp, cache)
     if not r.checked:
         return r, r
     return r, replace(r, notes=(*r.notes, *jt.capacity_notes(joint)))

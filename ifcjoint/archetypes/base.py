@@ -41,8 +41,8 @@ class JointType:
         )
 
     def check(self, inp: Any, joint: Joint) -> CheckResult:
-        """The check of an engine input made by ``engine_input``."""
-        raise NotImplementedError(f"{self.archetype} joints are not checked")
+        """The check of an engine input made by ``engine_input`` (the engine, by default)."""
+        return self.engine(inp)
 
     def capacity_notes(self, joint: Joint) -> tuple[Note, ...]:
         """What to say beside the result checked without demands (e.g. the beta it took)."""

@@ -32,9 +32,6 @@ class _CheckedEndPlate(JointType):
         """``check.end_plate.check_end_plate_joint``."""
         return check_end_plate_joint(inp)
 
-    def check(self, inp: EndPlateJointInput, joint: Joint) -> CheckResult:
-        """The end-plate engine."""
-        return check_end_plate_joint(inp)
 
     def capacity_notes(self, joint: Joint) -> tuple[Note, ...]:
         """Beta = 1 until the demands give both sides' moments."""

@@ -35,6 +35,3 @@ class Welded(JointType):
         """``check.welded.check_welded_joint``."""
         return check_welded_joint(inp)
 
-    def check(self, inp: WeldedJointInput, joint: Joint) -> CheckResult:
-        """The welded engine."""
-        return check_welded_joint(inp)

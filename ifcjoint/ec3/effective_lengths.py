@@ -7,6 +7,7 @@ Each function returns ``(l_eff_cp, l_eff_nc)``.
 
 from __future__ import annotations
 
+import functools
 import math
 
 PI = math.pi
@@ -155,33 +156,59 @@ def alpha_curve_lambda1(alpha: float, lambda_2: float) -> float:
     return l1_lim + (1 - l1_lim) * x ** (0.185 * alpha**1.785)
 
 
+@functools.lru_cache(maxsize=8192)
 def alpha_fig_6_11(lambda_1: float, lambda_2: float, tol: float = 1e-4) -> float:
     """Alpha of Figure 6.11 for a bolt row next to a stiffener or a beam flange.
 
     EN 1993-1-8:2005, 6.2.6.4.2 and 6.2.6.5, Figure 6.11, with lambda_1 = m1 / (m1 + e) and
     lambda_2 = m2 / (m1 + e): the curve through (lambda_1, lambda_2) of the family
-    ``alpha_curve_lambda1`` (SCI P398 Appendix G), found by bisection and bounded to the
-    chart's range 4.45 ... 8. On the vertical branch alpha m1 equals 4 m1 + 1.25 e, the
-    unstiffened row's non-circular length (Table 6.4), as the chart requires.
+    ``alpha_curve_lambda1`` (SCI P398 Appendix G), found by a bracketed root search and
+    bounded to the chart's range 4.45 ... 8. On the vertical branch alpha m1 equals
+    4 m1 + 1.25 e, the unstiffened row's non-circular length (Table 6.4), as the chart
+    requires.
 
     Args:
         lambda_1: m1 / (m1 + e), dimensionless.
         lambda_2: m2 / (m1 + e), dimensionless.
-        tol: how close (in alpha) the bisection stops.
+        tol: how close (in alpha) the search stops.
+
+    Pure and called with the same geometry again and again in a model: results are cached.
 
     Example:
         >>> round(alpha_fig_6_11(0.3, 2.0), 3)  # vertical branch: 2.75 + 1.25 / 0.3
         6.917
     """
-    if alpha_curve_lambda1(ALPHA_MAX, lambda_2) >= lambda_1:
+    # On the vertical branch the curve through lambda_1 is alpha = 2.75 + 1.25 / lambda_1.
+    vertical = 2.75 + 1.25 / lambda_1
+    if ALPHA_MIN <= vertical <= ALPHA_MAX and lambda_2 >= vertical * lambda_1 / 2:
+        return vertical
+    f_hi = alpha_curve_lambda1(ALPHA_MAX, lambda_2) - lambda_1
+    if f_hi >= 0:
         return ALPHA_MAX
-    if alpha_curve_lambda1(ALPHA_MIN, lambda_2) <= lambda_1:
+    f_lo = alpha_curve_lambda1(ALPHA_MIN, lambda_2) - lambda_1
+    if f_lo <= 0:
         return ALPHA_MIN
-    lo, hi = ALPHA_MIN, ALPHA_MAX  # the curve's lambda_1 falls as alpha rises
-    while hi - lo > tol:
-        mid = 0.5 * (lo + hi)
-        if alpha_curve_lambda1(mid, lambda_2) > lambda_1:
-            lo = mid
+    # The curve's lambda_1 falls as alpha rises: a bracketed root, by false position with
+    # the Illinois step (a few evaluations), halving when a step would leave the bracket.
+    lo, hi = ALPHA_MIN, ALPHA_MAX
+    side = 0
+    for _ in range(60):
+        if hi - lo <= tol:
+            break
+        mid = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
+        if not lo < mid < hi:
+            mid = 0.5 * (lo + hi)
+        f_mid = alpha_curve_lambda1(mid, lambda_2) - lambda_1
+        if abs(f_mid) < 1e-12:
+            return mid
+        if f_mid > 0:
+            lo, f_lo = mid, f_mid
+            if side == 1:
+                f_hi /= 2
+            side = 1
         else:
-            hi = mid
-    return 0.5 * (lo + hi)
+            hi, f_hi = mid, f_mid
+            if side == -1:
+                f_lo /= 2
+            side = -1
+    return 0.5 * (lo + hi) if hi - lo <= tol else mid

@@ -10,6 +10,8 @@ from __future__ import annotations
 from collections.abc import Hashable
 from dataclasses import dataclass
 from enum import StrEnum
+from operator import itemgetter
+from typing import NamedTuple
 
 
 class LimitScope(StrEnum):
@@ -22,9 +24,10 @@ class LimitScope(StrEnum):
     COMPONENT = "component"  # a single component (a joint with one tension zone, e.g. welded)
 
 
-@dataclass(frozen=True, slots=True)
-class Limit:
+class Limit(NamedTuple):
     """What limited (or might have limited) a row: a component in a scope, with its rows.
+
+    A named tuple: made for every candidate of every row, so it is kept cheap.
 
     Attributes:
         component: the caller's key of the component (None for the triangular limit).
@@ -39,7 +42,7 @@ class Limit:
     last: int = 0
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(slots=True, kw_only=True)
 class RowResult:
     """Effective design tension resistance of one bolt row.
 
@@ -49,6 +52,9 @@ class RowResult:
         F_tr_Rd: effective tension resistance, N.
         limited_by: the limit that set it (None when not explained).
         candidates: every limit considered with its value (N), in the order tried.
+
+    Not frozen (made by the thousand, and a frozen dataclass is twice as slow to make):
+    treat as read-only.
     """
 
     row: int
@@ -66,6 +72,7 @@ def distribute_tension(
     compression: dict[Hashable, float],
     F_t_Rd: float,
     explain: bool = True,
+    candidates: bool = True,
 ) -> list[RowResult]:
     """Effective tension resistance of each bolt row, row by row from the top.
 
@@ -84,56 +91,69 @@ def distribute_tension(
         F_t_Rd: tension resistance of one bolt, N (for the 1.9 Ft,Rd rule).
         explain: False skips recording the limits (``limited_by`` None, no candidates): the
             same numbers, faster, for resistances nobody reads row by row.
+        candidates: False keeps the governing limit of each row but not the list of every
+            limit tried.
     """
     if not explain:
         return _distribute_numbers(h, alone, groups, compression, F_t_Rd)
+    by_last = _groups_by_last_row(groups)
     out: list[RowResult] = []
-    taken: list[float] = []
+    prefix = [0.0]  # prefix[k]: what rows 1..k take
+    strong = 1.9 * F_t_Rd
     for r in range(1, len(h) + 1):
         cands: list[tuple[Limit, float]] = [
             (Limit(key, LimitScope.ALONE, r, r), f) for key, f in alone[r - 1].items()
         ]
-        for (i, j), comps in groups.items():
-            if j != r or i >= r:
-                continue
-            above = sum(taken[i - 1 : r - 1])
+        for i, comps in by_last.get(r, ()):
+            above = prefix[r - 1] - prefix[i - 1]
             cands += [(Limit(key, LimitScope.GROUP, i, r), f - above) for key, f in comps.items()]
-        done = sum(taken)
+        done = prefix[r - 1]
         cands += [
             (Limit(key, LimitScope.COMPRESSION, r, r), f - done) for key, f in compression.items()
         ]
         for x, prev in enumerate(out, start=1):
-            if prev.F_tr_Rd > 1.9 * F_t_Rd:
+            if prev.F_tr_Rd > strong:
                 cands.append(
                     (Limit(None, LimitScope.TRIANGULAR, x, r), prev.F_tr_Rd * h[r - 1] / h[x - 1])
                 )
-        limit, f = min(cands, key=lambda kv: kv[1])
+        limit, f = min(cands, key=_value)
         f = max(f, 0.0)
-        taken.append(f)
-        out.append(
-            RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=limit, candidates=tuple(cands))
-        )
+        prefix.append(done + f)
+        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=limit,
+                             candidates=tuple(cands) if candidates else ()))
     return out
+
+
+_value = itemgetter(1)
+
+
+def _groups_by_last_row(groups) -> dict[int, list[tuple[int, dict]]]:
+    """Groups of two rows or more keyed by their last row: last -> [(first, components)]."""
+    by_last: dict[int, list[tuple[int, dict]]] = {}
+    for (i, j), comps in groups.items():
+        if i < j:
+            by_last.setdefault(j, []).append((i, comps))
+    return by_last
 
 
 def _distribute_numbers(h, alone, groups, compression, F_t_Rd) -> list[RowResult]:
     """``distribute_tension`` without the limits (same rules, same order)."""
+    by_last = _groups_by_last_row(groups)
     out: list[RowResult] = []
-    taken: list[float] = []
-    comp = list(compression.values())
+    prefix = [0.0]
+    comp = min(compression.values()) if compression else None
+    strong = 1.9 * F_t_Rd
     for r in range(1, len(h) + 1):
         best = min(alone[r - 1].values())
-        for (i, j), comps in groups.items():
-            if j == r and i < r:
-                above = sum(taken[i - 1 : r - 1])
-                best = min(best, min(comps.values()) - above)
-        if comp:
-            best = min(best, min(comp) - sum(taken))
+        for i, comps in by_last.get(r, ()):
+            best = min(best, min(comps.values()) - (prefix[r - 1] - prefix[i - 1]))
+        if comp is not None:
+            best = min(best, comp - prefix[r - 1])
         for x, prev in enumerate(out):
-            if prev.F_tr_Rd > 1.9 * F_t_Rd:
+            if prev.F_tr_Rd > strong:
                 best = min(best, prev.F_tr_Rd * h[r - 1] / h[x])
         f = max(best, 0.0)
-        taken.append(f)
+        prefix.append(prefix[r - 1] + f)
         out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f))
     return out
 

@@ -5,6 +5,7 @@ Stiffness coefficients k_i are in mm (they multiply E).
 
 from __future__ import annotations
 
+import math
 from collections.abc import Sequence
 
 from ifcjoint.ec3.params import RECOMMENDED, Parameters
@@ -66,7 +67,7 @@ def k_eff_row(ks: Sequence[float]) -> float:
 
     EN 1993-1-8:2005, 6.3.3.1(2), Eq. (6.30).
     """
-    return 1.0 / sum(1.0 / k for k in ks if k != float("inf"))
+    return 1.0 / sum(1.0 / k for k in ks if k != math.inf)
 
 
 def equivalent_lever_arm(k_eff: Sequence[float], h: Sequence[float]) -> tuple[float, float]:
@@ -86,7 +87,7 @@ def S_j_ini(z: float, ks: Sequence[float], params: Parameters = RECOMMENDED) -> 
 
     EN 1993-1-8:2005, 6.3.1(4), Eq. (6.27) with mu = 1.
     """
-    flex = sum(1.0 / k for k in ks if k != float("inf"))
+    flex = sum(1.0 / k for k in ks if k != math.inf)
     return params.E * z * z / flex if flex > 0 else float("inf")
 
 

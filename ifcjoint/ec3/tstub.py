@@ -145,3 +145,31 @@ def t_stub(
     return TStubResult(
         F_T_1_Rd=f1, F_T_2_Rd=f2, F_T_3_Rd=f3, F_T_Rd=best, mode=mode, prying=True, inputs=inputs
     )
+
+
+def t_stub_resistance(
+    l_eff_1: float,
+    l_eff_2: float,
+    tf: float,
+    fy: float,
+    m: float,
+    e_min: float,
+    sum_F_t_Rd: float,
+    e_w: float,
+    gamma_M0: float,
+) -> tuple[float, str]:
+    """F_T,Rd (N) and the governing mode of a T-stub with prying forces, mode 1 by method 2.
+
+    EN 1993-1-8:2005, 6.2.4.1, Table 6.2: the numbers of ``t_stub`` with ``e_w`` given and no
+    bolt length (prying assumed), without building the record of inputs; for the engine's
+    inner loops. ``t_stub`` gives the same values with every intermediate for a report.
+    """
+    n = min(e_min, 1.25 * m)
+    k = 0.25 * tf * tf * fy / gamma_M0
+    f1 = (8 * n - 2 * e_w) * k * l_eff_1 / (2 * m * n - e_w * (m + n))
+    f2 = (2 * k * l_eff_2 + n * sum_F_t_Rd) / (m + n)
+    if f1 <= f2 and f1 <= sum_F_t_Rd:
+        return f1, "1"
+    if f2 <= sum_F_t_Rd:
+        return f2, "2"
+    return sum_F_t_Rd, "3"

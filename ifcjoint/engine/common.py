@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import functools
 import math
 from dataclasses import dataclass, field
 
@@ -37,11 +38,13 @@ def stiffener_at(
     return min(near, key=lambda s: abs(s.level - flange_depth)) if near else None
 
 
+@functools.lru_cache(maxsize=1024)
 def beam_M_c_Rd(beam: MemberInput, params) -> tuple[float | None, int]:
     """M_c,Rd of the beam by its class in bending, and the class.
 
     EN 1993-1-1:2005, 5.5.2, Table 5.2 and 6.2.5(2): W_pl for class 1 and 2, W_el for class 3,
-    None for class 4 (the check of 6.2.6.7 then cannot be made).
+    None for class 4 (the check of 6.2.6.7 then cannot be made). Kept per beam and factors
+    (a model repeats its beams).
     """
     c = sec.class_in_bending(h=beam.h, b=beam.b, tw=beam.tw, tf=beam.tf, r=beam.r, fy=beam.fy)
     iy = beam.Iy or ISection(h=beam.h, b=beam.b, tw=beam.tw, tf=beam.tf, r=beam.r).Iy
@@ -183,6 +186,15 @@ def resistances_valid(result: CheckResult) -> CheckResult:
     Raises:
         ArithmeticError: a resistance is negative, infinite or not a number.
     """
+    numbers = [result.V_wp_Rd]
+    for side in (result.hogging, result.sagging):
+        if side is not None:
+            numbers += [side.M_j_Rd, *(c.F_Rd for c in side.components),
+                        *(r.F_tr_Rd for r in side.rows)]
+            if side.V_j_Rd is not None:
+                numbers.append(side.V_j_Rd)
+    if all(v is not None and 0 <= v < math.inf for v in numbers):
+        return result  # the usual case; below, the name of the bad value
     values = [("V_wp_Rd", result.V_wp_Rd)]
     for side in (result.hogging, result.sagging):
         if side is None:
@@ -277,7 +289,11 @@ def unique_notes(notes: list[Note]) -> tuple[Note, ...]:
     """The notes in order, each once."""
     seen, out = set(), []
     for n in notes:
-        key = (n.code, repr(sorted(n.values.items())))
+        try:
+            key = (n.code, tuple(sorted(n.values.items())))
+            hash(key)
+        except TypeError:  # a value that is a list or a dict
+            key = (n.code, repr(sorted(n.values.items())))
         if key not in seen:
             seen.add(key)
             out.append(n)

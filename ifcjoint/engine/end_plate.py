@@ -37,10 +37,10 @@ from ifcjoint.ec3.bolts import (
     k1_bearing,
 )
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
-from ifcjoint.ec3.code import Component
+from ifcjoint.ec3.code import Clause, Component
 from ifcjoint.ec3.detailing import e_min, p1_min, p2_min
 from ifcjoint.ec3.moment_resistance import M_j_Rd, distribute_tension
-from ifcjoint.ec3.tstub import TStubResult, t_stub
+from ifcjoint.ec3.tstub import t_stub_resistance
 from ifcjoint.engine.common import (
     ColumnWeb,
     beam_M_c_Rd,
@@ -79,6 +79,17 @@ _EPB = Component.END_PLATE_BENDING
 _BWT = Component.BEAM_WEB_TENSION
 
 
+_CLAUSES: dict[str, Clause] = {}
+
+
+def _clause(ref: str) -> Clause:
+    """A clause of EN 1993-1-8 as data (made once per reference)."""
+    found = _CLAUSES.get(ref)
+    if found is None:
+        found = _CLAUSES[ref] = EC3.clause(ref)
+    return found
+
+
 def check_end_plate_joint(inp: EndPlateJointInput):
     """Resistance, stiffness and classification of a bolted end-plate joint.
 
@@ -90,14 +101,15 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     if why is not None:
         return not_checked(why, inp)
     web = column_web(inp)
+    shared = _Shared.of(inp)
     notes = [*weld_notes(inp.welds), *_alpha_note(inp), *web.notes]
-    hog, hog_result = _best_side(inp, "hogging", web)
-    sag, sag_result = _best_side(inp, "sagging", web)
+    hog, hog_result = _best_side(inp, "hogging", web, shared)
+    sag, sag_result = _best_side(inp, "sagging", web, shared)
     sides = (hog_result, sag_result)
-    notes += [Note(NoteCode.PRYING_ASSUMED, {"L_b": hog.lb}), *hog.notes, *sag.notes]
+    notes += [Note(NoteCode.PRYING_ASSUMED, {"L_b": shared.lb}), *hog.notes, *sag.notes]
     if inp.stiffeners or inp.web_plates:
         notes.append(Note(NoteCode.STIFFNESS_UNREINFORCED))
-    notes.append(Note(NoteCode.SHEAR_FROM_BOLTS, _shear_summary(inp, sides[0])))
+    notes.append(Note(NoteCode.SHEAR_FROM_BOLTS, _shear_summary(shared, sides[0])))
     r = checked(
         inp, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=web.v_wp_Rd,
         notes=list(unique_notes(notes)), joint_kind="bolted_end_plate",
@@ -105,7 +117,7 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     return resistances_valid(r)
 
 
-def _best_side(inp: EndPlateJointInput, sign: str, web: ColumnWeb):
+def _best_side(inp: EndPlateJointInput, sign: str, web: ColumnWeb, shared: _Shared):
     """One moment sign, with its tension stiffeners or, when it gives more, without them.
 
     Table 6.5 gives a row next to a stiffener l_eff,nc = alpha m, which for a wide column
@@ -114,11 +126,11 @@ def _best_side(inp: EndPlateJointInput, sign: str, web: ColumnWeb):
     the safe side, so the larger of the two resistances is kept, said in a note (common
     practice, no source).
     """
-    side = _SideCheck(inp, sign, web)
+    side = _SideCheck(inp, sign, web, shared)
     result = side.result()
-    if not side.stiffeners:
+    if not side.stiffeners or side.stiffened_flange_never_weaker():
         return side, result
-    plain = _SideCheck(inp, sign, web, tension_stiffeners=False)
+    plain = _SideCheck(inp, sign, web, shared, tension_stiffeners=False)
     plain_result = plain.result()
     if plain_result.M_j_Rd > result.M_j_Rd:
         plain.notes.append(Note(NoteCode.TENSION_STIFFENER_IGNORED, {
@@ -179,6 +191,69 @@ def _pitch_share(rows: list[float], i: int, j: int, k: int) -> float:
 
 
 @dataclass
+class _Shared:
+    """What both moment signs of one joint share: bolt and T-stub geometry, bearing, shear.
+
+    Computed once per joint; the bolt group's shear and the column components of a row are
+    kept by their inputs, so a row or sign with the same geometry reuses them.
+    """
+
+    inp: EndPlateJointInput
+    ft: float  # Ft,Rd of one bolt (Table 3.4)
+    ft_row: float  # two bolts, each min(Ft,Rd, Bp,Rd) (Table 6.2 sum of Ft,Rd)
+    ew: float  # d_w / 4 for the mode-1 alternative method
+    m_c: float
+    e_c: float
+    m_p: float
+    e_p: float
+    e_min: float  # n = e_min for both T-stubs (Table 6.2, Figure 6.8)
+    lb: float  # bolt elongation length L_b (Table 6.2)
+    fv: float  # Fv,Rd of one bolt (Table 3.4)
+    bearing: tuple[float, float, NotChecked | None]  # on plate, on column flange, or why not
+    shears: dict = field(default_factory=dict)
+    column_rows: dict = field(default_factory=dict)  # (cp, nc, alpha) -> column components
+    plate_rows: dict = field(default_factory=dict)  # (cp, nc, alpha) -> plate, beam web
+
+    @classmethod
+    def of(cls, inp: EndPlateJointInput) -> _Shared:
+        """The shared values of one joint."""
+        beam, col, pl, b, w, p = inp.beam, inp.column, inp.plate, inp.bolts, inp.welds, inp.params
+        ft = F_t_Rd(b.fub, b.As, p)
+        dm = _dm(inp)
+        leg_w = w.web_throat * math.sqrt(2)
+        e_c = (col.b - b.gauge) / 2
+        e_p = (pl.bp - b.gauge) / 2
+        return cls(
+            inp=inp,
+            ft=ft,
+            ft_row=2 * min(ft, B_p_Rd(dm, col.tf, col.fu, p), B_p_Rd(dm, pl.tp, pl.fu, p)),
+            ew=_dw(inp) / 4,
+            m_c=b.gauge / 2 - col.tw / 2 - 0.8 * col.r,
+            e_c=e_c,
+            m_p=b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w,
+            e_p=e_p,
+            e_min=min(e_c, e_p),
+            lb=b.L_b or bolt_elongation_length(pl.tp + col.tf, b.d),
+            fv=F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0,
+            bearing=_bearing(inp),
+        )
+
+    def t_stub(self, cp, nc, t, fy, m, n_edge, n_rows) -> tuple[float, str]:
+        """F_T,Rd and mode of the Table 6.2 T-stub of n_rows rows (``t_stub_resistance``)."""
+        return t_stub_resistance(
+            min(cp, nc), nc, t, fy, m, n_edge, self.ft_row * n_rows, self.ew,
+            self.inp.params.gamma_M0,
+        )
+
+    def shear(self, n_tension: int) -> tuple[float | None, NotChecked | None]:
+        """Vj,Rd with n_tension rows in tension (kept by n_tension)."""
+        found = self.shears.get(n_tension)
+        if found is None:
+            found = self.shears[n_tension] = _shear(self, n_tension)
+        return found
+
+
+@dataclass
 class _Stiffener:
     """A transverse column stiffener seen from one moment sign's tension face."""
 
@@ -196,6 +271,7 @@ class _SideCheck:
     inp: EndPlateJointInput
     sign: str
     web: ColumnWeb
+    shared: _Shared
     tension_stiffeners: bool = True
     comps: list[ComponentResult] = field(default_factory=list)
     kinds: list[str] = field(default_factory=list)  # extension | first | other, per row
@@ -207,7 +283,7 @@ class _SideCheck:
 
     def __post_init__(self) -> None:
         inp = self.inp
-        beam, col, pl, b, w = inp.beam, inp.column, inp.plate, inp.bolts, inp.welds
+        beam, pl, b, w = inp.beam, inp.plate, inp.bolts, inp.welds
         hog = self.sign == "hogging"
         if hog:
             rows = list(b.rows_from_beam_top)
@@ -222,22 +298,14 @@ class _SideCheck:
         # no source: rows near the compression flange are taken as shear rows).
         self.tension = [z for z in rows if self.cc - z > (beam.h - beam.tf) / 2]
         self.h_r = [self.cc - z for z in self.tension]
-        p = inp.params
-        self.ft = F_t_Rd(b.fub, b.As, p)
-        bp_col = B_p_Rd(_dm(inp), col.tf, col.fu, p)
-        bp_pl = B_p_Rd(_dm(inp), pl.tp, pl.fu, p)
-        self.ft_row = 2 * min(self.ft, bp_col, bp_pl)
-        self.ew = _dw(inp) / 4
+        sh = self.shared
+        self.ft, self.ew = sh.ft, sh.ew
         self.leg_f = self.a_t * math.sqrt(2)
-        leg_w = w.web_throat * math.sqrt(2)
-        self.m_c = b.gauge / 2 - col.tw / 2 - 0.8 * col.r
-        self.e_c = (col.b - b.gauge) / 2
-        self.m_p = b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w
-        self.e_p = (pl.bp - b.gauge) / 2
+        self.m_c, self.e_c, self.m_p, self.e_p = sh.m_c, sh.e_c, sh.m_p, sh.e_p
         # n = e_min for both T-stubs: the smaller edge distance of column flange and plate
         # (EN 1993-1-8 Table 6.2, Figure 6.8, 6.2.6.4.1(4), 6.2.6.5(3)).
-        self.e_min = min(self.e_c, self.e_p)
-        self.lb = b.L_b or bolt_elongation_length(pl.tp + col.tf, b.d)
+        self.e_min = sh.e_min
+        self.lb = sh.lb
         # Stiffeners of the tension zone (Table 6.5); those of the compression zone are the
         # compression stiffeners of 6.2.6.2.
         in_tension = [
@@ -256,25 +324,17 @@ class _SideCheck:
         self.slender = s_c if s_c is not None and not ok else None
 
     # --- T-stubs (6.2.6.4, 6.2.6.5, Table 6.2) ---------------------------------------
-    def _tstub(self, cp, nc, t, fy, m, n_edge, n_rows) -> TStubResult:
-        return t_stub(
-            l_eff_1=min(cp, nc),
-            l_eff_2=nc,
-            tf=t,
-            fy=fy,
-            m=m,
-            e_min=n_edge,
-            sum_F_t_Rd=self.ft_row * n_rows,
-            e_w=self.ew,
-            params=self.inp.params,
-        )
+    def _tstub(self, cp, nc, t, fy, m, n_edge, n_rows) -> tuple[float, str]:
+        return self.shared.t_stub(cp, nc, t, fy, m, n_edge, n_rows)
 
-    def col_tstub(self, cp: float, nc: float, n_rows: int) -> TStubResult:
+    def col_tstub(self, cp: float, nc: float, n_rows: int) -> tuple[float, str]:
         """Column flange T-stub of n_rows rows (6.2.6.4, Table 6.2), n from e_min."""
         col = self.inp.column
         return self._tstub(cp, nc, col.tf, col.fy, self.m_c, self.e_min, n_rows)
 
-    def plate_tstub(self, cp: float, nc: float, m: float, n_edge: float, n_rows: int):
+    def plate_tstub(
+        self, cp: float, nc: float, m: float, n_edge: float, n_rows: int
+    ) -> tuple[float, str]:
         """End plate T-stub of n_rows rows (6.2.6.5, Table 6.2)."""
         pl = self.inp.plate
         return self._tstub(cp, nc, pl.tp, pl.fy, m, n_edge, n_rows)
@@ -288,10 +348,13 @@ class _SideCheck:
             return ALPHA_DEFAULT
         return el.alpha_fig_6_11(m1 / (m1 + e), max(m2, 0.0) / (m1 + e))
 
-    def add(self, clause: str, component: Component, f: float, **kw) -> float:
+    def add(
+        self, clause: str, component: Component, f: float, mode: str = "",
+        row: int | None = None, rows: tuple[int, ...] = (), inputs: dict | None = None,
+    ) -> float:
         """Record a component's resistance; returns it."""
-        c = ComponentResult(clause=EC3.clause(clause), component=component, F_Rd=f, **kw)
-        self.comps.append(c)
+        self.comps.append(ComponentResult(
+            _clause(clause), component, f, mode, row, rows, {} if inputs is None else inputs))
         return f
 
     # --- the column flange, stiffened or not (Tables 6.4, 6.5) ------------------------
@@ -307,6 +370,22 @@ class _SideCheck:
             if best is None or m2 < best[1]:
                 best = (st, m2)
         return best
+
+    def stiffened_flange_never_weaker(self) -> bool:
+        """Whether Table 6.5 gives every row next to a stiffener at least Table 6.4's length.
+
+        alpha m >= 4 m + 1.25 e for each such row: its non-circular length alone and in a group
+        is then no shorter than unstiffened (the circular ones are equal), and a group that
+        may not cross the stiffener only drops a limit; the stiffened side is never weaker.
+        """
+        for i in range(1, len(self.tension) + 1):
+            nxt = self._stiffener_next(i)
+            if nxt is None:
+                continue
+            a = self.alpha(self.m_c, self.e_c, nxt[1])
+            if a * self.m_c < 4 * self.m_c + 1.25 * self.e_c:
+                return False
+        return True
 
     def _crosses_stiffener(self, i: int, j: int) -> bool:
         """Whether a stiffener lies between rows i and j (no group crosses one, Table 6.5)."""
@@ -340,15 +419,20 @@ class _SideCheck:
         for i, z in enumerate(self.tension, start=1):
             d: dict[Component, float] = {}
             cp, nc, a_col = self.col_flange_alone(i)
-            ts = self.col_tstub(cp, nc, 1)
-            col_in = {"l_eff_cp": cp, "l_eff_nc": nc, "m": self.m_c, "e": self.e_c,
-                      "n": min(self.e_min, 1.25 * self.m_c), "alpha": a_col}
-            d[_CFB] = self.add("6.2.6.4", _CFB, ts.F_T_Rd, mode=ts.mode, row=i, inputs=col_in)
-            om = cmp.omega(inp.beta, min(cp, nc), col.tw, self.web.a_vc)
-            fwc = cmp.F_t_wc_Rd(
-                b_eff=min(cp, nc), t_wc=self.web.t_tension, fy_wc=col.fy, omega_=om, params=p
-            )
-            web_in = {"b_eff": min(cp, nc), "omega": om, "t_wc": self.web.t_tension}
+            found = self.shared.column_rows.get((cp, nc, a_col))
+            if found is None:  # rows of the same geometry share their column components
+                ts = self.col_tstub(cp, nc, 1)
+                col_in = {"l_eff_cp": cp, "l_eff_nc": nc, "m": self.m_c, "e": self.e_c,
+                          "n": min(self.e_min, 1.25 * self.m_c), "alpha": a_col}
+                om = cmp.omega(inp.beta, min(cp, nc), col.tw, self.web.a_vc)
+                fwc = cmp.F_t_wc_Rd(
+                    b_eff=min(cp, nc), t_wc=self.web.t_tension, fy_wc=col.fy, omega_=om,
+                    params=p,
+                )
+                web_in = {"b_eff": min(cp, nc), "omega": om, "t_wc": self.web.t_tension}
+                found = self.shared.column_rows[(cp, nc, a_col)] = (ts, col_in, fwc, web_in)
+            ts, col_in, fwc, web_in = found
+            d[_CFB] = self.add("6.2.6.4", _CFB, ts[0], mode=ts[1], row=i, inputs=col_in)
             d[_CWT] = self.add("6.2.6.3", _CWT, fwc, row=i, inputs=web_in)
             self.leff_col.append(min(cp, nc))
             if z < 0:  # extension row (outside the tension flange)
@@ -370,31 +454,37 @@ class _SideCheck:
         self.m_plate.append(mx)
         inputs = {"l_eff_cp": cpp, "l_eff_nc": ncp, "mx": mx, "ex": ex,
                   "n": min(ex, 1.25 * mx)}
-        d[_EPB] = self.add("6.2.6.5", _EPB, tsp.F_T_Rd, mode=tsp.mode, row=i, inputs=inputs)
+        d[_EPB] = self.add("6.2.6.5", _EPB, tsp[0], mode=tsp[1], row=i, inputs=inputs)
 
     def _row_below_flange(self, i: int, z: float, d: dict, beam, p) -> None:
         first = not self.kinds or self.kinds[-1] == "extension"
         self.kinds.append("first" if first else "other")
+        alpha = None
         if first:
             m2 = z - beam.tf - 0.8 * self.leg_f
-            self.alpha_plate = self.alpha(self.m_p, self.e_p, m2, given=self.inp.alpha)
-            cpp, ncp = el.end_plate_first_row_below_flange(self.m_p, self.e_p, self.alpha_plate)
+            alpha = self.alpha_plate = self.alpha(self.m_p, self.e_p, m2, given=self.inp.alpha)
+            cpp, ncp = el.end_plate_first_row_below_flange(self.m_p, self.e_p, alpha)
         else:
             cpp, ncp = el.end_plate_other_row(self.m_p, self.e_p)
-        tsp = self.plate_tstub(cpp, ncp, self.m_p, self.e_min, 1)
         self.leff_plate.append(min(cpp, ncp))
         self.m_plate.append(self.m_p)
-        inputs = {
-            "l_eff_cp": cpp,
-            "l_eff_nc": ncp,
-            "m": self.m_p,
-            "e": self.e_p,
-            "n": min(self.e_min, 1.25 * self.m_p),
-            "alpha": self.alpha_plate if first else None,
-        }
-        d[_EPB] = self.add("6.2.6.5", _EPB, tsp.F_T_Rd, mode=tsp.mode, row=i, inputs=inputs)
-        fwb = cmp.F_t_wb_Rd(b_eff=min(cpp, ncp), t_wb=beam.tw, fy_wb=beam.fy, params=p)
-        d[_BWT] = self.add("6.2.6.8", _BWT, fwb, row=i, inputs={"b_eff": min(cpp, ncp)})
+        found = self.shared.plate_rows.get((cpp, ncp, alpha))
+        if found is None:  # inner rows share their plate and beam web components
+            tsp = self.plate_tstub(cpp, ncp, self.m_p, self.e_min, 1)
+            inputs = {
+                "l_eff_cp": cpp,
+                "l_eff_nc": ncp,
+                "m": self.m_p,
+                "e": self.e_p,
+                "n": min(self.e_min, 1.25 * self.m_p),
+                "alpha": alpha,
+            }
+            fwb = cmp.F_t_wb_Rd(b_eff=min(cpp, ncp), t_wb=beam.tw, fy_wb=beam.fy, params=p)
+            found = self.shared.plate_rows[(cpp, ncp, alpha)] = (
+                tsp, inputs, fwb, {"b_eff": min(cpp, ncp)})
+        tsp, inputs, fwb, web_in = found
+        d[_EPB] = self.add("6.2.6.5", _EPB, tsp[0], mode=tsp[1], row=i, inputs=inputs)
+        d[_BWT] = self.add("6.2.6.8", _BWT, fwb, row=i, inputs=web_in)
 
     # --- groups of rows ------------------------------------------------------------------
     def groups(self) -> dict[tuple[int, int], dict[Component, float]]:
@@ -419,15 +509,15 @@ class _SideCheck:
             for k, (a_, b_) in zip(rows, shares, strict=True):
                 self.leff_col[k - 1] = min(self.leff_col[k - 1], a_, b_)
             ts = self.col_tstub(cp_s, nc_s, len(rows))
-            g[_CFB] = ts.F_T_Rd
+            g[_CFB] = ts[0]
             om = cmp.omega(inp.beta, min(cp_s, nc_s), col.tw, self.web.a_vc)
             g[_CWT] = cmp.F_t_wc_Rd(
                 b_eff=min(cp_s, nc_s), t_wc=self.web.t_tension, fy_wc=col.fy, omega_=om,
                 params=p,
             )
             col_in = {"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s}
-            self.add("6.2.6.4", _CFB, ts.F_T_Rd, mode=ts.mode, rows=rows, inputs=col_in)
-        if any(self.kinds[k - 1] == "extension" for k in rows):
+            self.add("6.2.6.4", _CFB, ts[0], mode=ts[1], rows=rows, inputs=col_in)
+        if self.kinds[i - 1] == "extension":  # only the first row can be (Table 6.6)
             return g
         shares = []
         for k in rows:
@@ -442,10 +532,10 @@ class _SideCheck:
         for k, (a_, b_) in zip(rows, shares, strict=True):
             self.leff_plate[k - 1] = min(self.leff_plate[k - 1], a_, b_)
         tsp = self.plate_tstub(cp_s, nc_s, self.m_p, self.e_min, len(rows))
-        g[_EPB] = tsp.F_T_Rd
+        g[_EPB] = tsp[0]
         g[_BWT] = cmp.F_t_wb_Rd(b_eff=min(cp_s, nc_s), t_wb=beam.tw, fy_wb=beam.fy, params=p)
         plate_in = {"sum_l_eff_cp": cp_s, "sum_l_eff_nc": nc_s}
-        self.add("6.2.6.5", _EPB, tsp.F_T_Rd, mode=tsp.mode, rows=rows, inputs=plate_in)
+        self.add("6.2.6.5", _EPB, tsp[0], mode=tsp[1], rows=rows, inputs=plate_in)
         return g
 
     # --- compression side ----------------------------------------------------------------
@@ -535,7 +625,7 @@ class _SideCheck:
         alone = self.rows_alone()
         groups = self.groups()
         compression, column_side, fcfb, beff = self.compression()
-        v, gap = _shear(self.inp, len(self.tension))
+        v, gap = self.shared.shear(len(self.tension))
         if not self.tension:
             return SideResult(
                 sign=self.sign, M_j_Rd=0.0, z=0.0, rows=(), components=tuple(self.comps),
@@ -543,8 +633,11 @@ class _SideCheck:
                 V_j_Rd=v, shear_gap=gap,
                 no_tension=NotChecked(NotCheckedCode.NO_TENSION_ROWS, {"sign": self.sign}),
             )
+        # every limit tried is kept for hogging (the sheet lists them); sagging keeps the
+        # governing one of each row
         rr = distribute_tension(
-            h=self.h_r, alone=alone, groups=groups, compression=compression, F_t_Rd=self.ft
+            h=self.h_r, alone=alone, groups=groups, compression=compression, F_t_Rd=self.ft,
+            candidates=self.sign == "hogging",
         )
         # For the axial resistance (6.2.7.1(3)): the same rows with no compression-side limit
         # and no triangular limit (6.2.7.2(9) concerns the bending distribution only).
@@ -617,16 +710,15 @@ def _bearing(inp: EndPlateJointInput) -> tuple[float, float, NotChecked | None]:
     return fb_plate, fb_col, None
 
 
-def _shear(inp: EndPlateJointInput, n_tension: int) -> tuple[float | None, NotChecked | None]:
+def _shear(sh: _Shared, n_tension: int) -> tuple[float | None, NotChecked | None]:
     """Vj,Rd of the bolt group with n_tension rows in tension (N), or why not.
 
     EN 1993-1-8:2005, Table 3.4 and 6.2.2(2) note; common practice: a bolt in a tension row
     takes min((1 - 1/1.4) Fv,Rd, Fb,Rd) (the interaction of Table 3.4 with Ft,Ed = Ft,Rd),
     the other bolts min(Fv,Rd, Fb,Rd); two bolts per row.
     """
-    b, p = inp.bolts, inp.params
-    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
-    fb_plate, fb_col, gap = _bearing(inp)
+    b, fv = sh.inp.bolts, sh.fv
+    fb_plate, fb_col, gap = sh.bearing
     if gap is not None:
         return None, gap
     fb = min(fb_plate, fb_col)
@@ -635,11 +727,10 @@ def _shear(inp: EndPlateJointInput, n_tension: int) -> tuple[float | None, NotCh
     return 2 * n_tension * tension_bolt + 2 * (n_rows - n_tension) * min(fv, fb), None
 
 
-def _shear_summary(inp: EndPlateJointInput, hog: SideResult) -> dict:
+def _shear_summary(sh: _Shared, hog: SideResult) -> dict:
     """What the Vj,Rd note says: bolts in each kind of row and their resistances (N)."""
-    b, p = inp.bolts, inp.params
-    fv = F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0
-    fb_plate, fb_col, gap = _bearing(inp)
+    b, fv = sh.inp.bolts, sh.fv
+    fb_plate, fb_col, gap = sh.bearing
     n_tension = len(hog.rows)
     n_rows = len(b.rows_from_beam_top)
     return {

@@ -17,7 +17,7 @@ from ifcjoint.engine.inputs import JointInput
 from ifcjoint.model.codes import NotChecked, Note, StiffnessClass, StrengthClass
 
 
-@dataclass(frozen=True, slots=True, kw_only=True)
+@dataclass(slots=True)
 class ComponentResult:
     """One component's resistance (N), its clause and how it was found.
 
@@ -29,6 +29,9 @@ class ComponentResult:
         row: the bolt row, for a row alone.
         rows: the rows of a group.
         inputs: the values it was computed with (mm, MPa, N), by their symbols.
+
+    Not frozen (made by the thousand, and a frozen dataclass is twice as slow to make):
+    treat as read-only.
     """
 
     clause: Clause

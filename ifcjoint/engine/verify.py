@@ -166,6 +166,21 @@ def _i_area(h: float, b: float, tw: float, tf: float, r: float) -> float:
     return 2 * b * tf + (h - 2 * tf) * tw + (4 - 3.141592653589793) * r * r
 
 
+def run_engine(engine: Engine, inp: JointInput, cache: dict | None) -> CheckResult:
+    """The engine's result for an input, run once per distinct input when given a cache.
+
+    Inputs are frozen dataclasses: equal inputs (every field, GlobalIds of stiffeners
+    included) give the same result, so a model's repeated joints are computed once.
+    """
+    if cache is None:
+        return engine(inp)
+    key = (engine, inp)
+    found = cache.get(key)
+    if found is None:
+        found = cache[key] = engine(inp)
+    return found
+
+
 def verify_combination(
     inp: JointInput,
     demand: Demand,
@@ -183,13 +198,9 @@ def verify_combination(
     """
     beta, beta_note = transformation_beta(demand, double_sided)
     braced = braced_default if demand.braced is None else demand.braced
-    key = (beta, braced)
-    if _cache is not None and key in _cache:
-        r = _cache[key]
-    else:
-        r = engine(replace(inp, beta=beta, braced=braced))
-        if _cache is not None:
-            _cache[key] = r
+    this = inp if (inp.beta, inp.braced) == (beta, braced) else replace(
+        inp, beta=beta, braced=braced)
+    r = run_engine(engine, this, _cache)
     if not r.checked:
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
     notes = [beta_note]
@@ -300,18 +311,23 @@ def verify_joint(
     double_sided: bool,
     braced_default: bool = True,
     seed: CheckResult | None = None,
+    cache: dict | None = None,
 ) -> JointVerdict:
     """Verify a checkable joint against every load combination; governing over all.
 
     EN 1993-1-8:2005, 6.2.7, 6.2.6.1, Table 3.4, 6.2.7.1(3) per combination (see
     ``verify_combination``) and 5.2.2 for the assumption check. No demands: not checked.
     A combination that could not be fully verified keeps the joint from passing. ``seed`` is
-    the engine's result for ``inp`` itself, so the engine does not run again for it.
+    the engine's result for ``inp`` itself, so the engine does not run again for it; ``cache``
+    (see ``run_engine``) shares engine results between joints.
     """
     if not demands:
         return JointVerdict(status=Status.NO_DEMANDS, reason=NotChecked(NotCheckedCode.NO_DEMANDS))
-    # combinations with the same beta and bracing share one engine run
-    cache: dict = {} if seed is None else {(inp.beta, inp.braced): seed}
+    # combinations with the same beta and bracing share one engine run (and joints with the
+    # same input, when the caller passes one cache for all its joints)
+    cache: dict = {} if cache is None else cache
+    if seed is not None:
+        cache[(engine, inp)] = seed
     combos = tuple(
         verify_combination(
             inp,
