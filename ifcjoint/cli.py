@@ -3,11 +3,12 @@
 Exit codes (also in the README and ``ifcjoint --help``) come from the exceptions
 (``ifcjoint.errors``):
     0  done; for ``check``: the gate passed (see --fail-on)
-    1  ``check`` only: the gate failed (failing joints, or unchecked ones, per --fail-on)
+    1  ``check`` (and ``calc`` with --fail-on): the gate failed (failing joints, or unchecked
+       ones, per --fail-on)
     2  usage error (bad option or value, an output that cannot be written, or one that would
        replace the input)
     3  model unusable: missing, not IFC, truncated, unsupported schema, no length unit;
-       or a rules, parameters, demands or results file that cannot be used at all
+       or a rules, parameters, demands, results or joint description file that cannot be used
     4  model read, but it holds no steel beams or columns to scan (outputs still written)
     5  internal error (a bug: please report it with the model if you can)
 """

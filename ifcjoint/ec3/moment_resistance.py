@@ -51,7 +51,8 @@ class RowResult:
         h_r: distance from the row to the centre of compression, mm.
         F_tr_Rd: effective tension resistance, N.
         limited_by: the limit that set it (None when not explained).
-        candidates: every limit considered with its value (N), in the order tried.
+        raw_candidates: every limit considered, as (component, scope, first, last, value N)
+            in the order tried (``candidates`` gives them as ``(Limit, value)``).
 
     Not frozen (made by the thousand, and a frozen dataclass is twice as slow to make):
     treat as read-only.
@@ -61,7 +62,12 @@ class RowResult:
     h_r: float
     F_tr_Rd: float
     limited_by: Limit | None = None
-    candidates: tuple[tuple[Limit, float], ...] = ()
+    raw_candidates: tuple[tuple, ...] = ()
+
+    @property
+    def candidates(self) -> tuple[tuple[Limit, float], ...]:
+        """Every limit considered with its value (N), in the order tried."""
+        return tuple((Limit(c[0], c[1], c[2], c[3]), c[4]) for c in self.raw_candidates)
 
 
 def distribute_tension(
@@ -100,31 +106,29 @@ def distribute_tension(
     out: list[RowResult] = []
     prefix = [0.0]  # prefix[k]: what rows 1..k take
     strong = 1.9 * F_t_Rd
+    alone_s, group_s, comp_s = LimitScope.ALONE, LimitScope.GROUP, LimitScope.COMPRESSION
     for r in range(1, len(h) + 1):
-        cands: list[tuple[Limit, float]] = [
-            (Limit(key, LimitScope.ALONE, r, r), f) for key, f in alone[r - 1].items()
-        ]
+        # candidates as plain (component, scope, first, last, value) tuples: cheap to make,
+        # turned into Limits only when read (RowResult.candidates)
+        cands = [(key, alone_s, r, r, f) for key, f in alone[r - 1].items()]
         for i, comps in by_last.get(r, ()):
             above = prefix[r - 1] - prefix[i - 1]
-            cands += [(Limit(key, LimitScope.GROUP, i, r), f - above) for key, f in comps.items()]
+            cands += [(key, group_s, i, r, f - above) for key, f in comps.items()]
         done = prefix[r - 1]
-        cands += [
-            (Limit(key, LimitScope.COMPRESSION, r, r), f - done) for key, f in compression.items()
-        ]
+        cands += [(key, comp_s, r, r, f - done) for key, f in compression.items()]
         for x, prev in enumerate(out, start=1):
             if prev.F_tr_Rd > strong:
-                cands.append(
-                    (Limit(None, LimitScope.TRIANGULAR, x, r), prev.F_tr_Rd * h[r - 1] / h[x - 1])
-                )
-        limit, f = min(cands, key=_value)
-        f = max(f, 0.0)
+                cands.append((None, LimitScope.TRIANGULAR, x, r,
+                              prev.F_tr_Rd * h[r - 1] / h[x - 1]))
+        best = min(cands, key=_value)
+        f = max(best[4], 0.0)
         prefix.append(done + f)
-        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=limit,
-                             candidates=tuple(cands) if candidates else ()))
+        out.append(RowResult(row=r, h_r=h[r - 1], F_tr_Rd=f, limited_by=Limit(*best[:4]),
+                             raw_candidates=tuple(cands) if candidates else ()))
     return out
 
 
-_value = itemgetter(1)
+_value = itemgetter(4)
 
 
 def _groups_by_last_row(groups) -> dict[int, list[tuple[int, dict]]]:

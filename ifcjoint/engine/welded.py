@@ -115,8 +115,8 @@ def _side(
     ]
     gov = min(comps, key=lambda c: c.F_Rd)
     limit = Limit(gov.component, LimitScope.COMPONENT)
-    cands = tuple((Limit(c.component, LimitScope.COMPONENT), c.F_Rd) for c in comps)
-    row = RowResult(row=1, h_r=z, F_tr_Rd=gov.F_Rd, limited_by=limit, candidates=cands)
+    cands = tuple((c.component, LimitScope.COMPONENT, 0, 0, c.F_Rd) for c in comps)
+    row = RowResult(row=1, h_r=z, F_tr_Rd=gov.F_Rd, limited_by=limit, raw_candidates=cands)
     k1 = stf.k1_web_panel(web.a_vc_plain, inp.beta, z)
     k2 = math.inf if stiffened is not None else stf.k2_web_compression(beff_c, col.tw, dc)
     s_t = stiffener_at(inp.stiffeners, d_t, beam.tf)
