@@ -43,7 +43,15 @@ from ifcjoint.errors import JointFileError, NoSteelError
 from ifcjoint.find import FinderSettings, find_joints
 from ifcjoint.ifc.reader import read_model
 from ifcjoint.ifc.recognition import load_rules
-from ifcjoint.model.codes import UNCHECKED, Archetype, MemberKind, Status, SteelState
+from ifcjoint.model.codes import (
+    UNCHECKED,
+    Archetype,
+    MemberKind,
+    NotChecked,
+    NotCheckedCode,
+    Status,
+    SteelState,
+)
 from ifcjoint.model.demands import Demand
 from ifcjoint.model.elements import Progress
 from ifcjoint.model.joints import Joint, ScanResult
@@ -381,7 +389,10 @@ def calc(
     archetype = archetype_of(inp)
     engine = engine_for(inp)
     cap = engine(inp)
-    if cap.checked:
+    if cap.checked and not demands:
+        verdict = JointVerdict(status=Status.NO_DEMANDS, reason=NotChecked(
+            NotCheckedCode.NO_DEMANDS, {"source": "description"}))
+    elif cap.checked:
         verdict = verify_joint(inp, list(demands), engine=engine, double_sided=double_sided,
                                braced_default=inp.braced, seed=cap)
     else:

@@ -44,7 +44,7 @@ def build_calc_results(jc) -> dict:
         "id": f"calc-{jc.fingerprint[:8]}",
         "label": jc.label,
         "archetype": jc.archetype,
-        "archetype_reason": "from the joint description",
+        "archetype_reason": "Described in a joint file, not read from a model",
         "beam": "",
         "beam_end": "",
         "column": "",

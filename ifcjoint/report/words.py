@@ -110,7 +110,10 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.BOLTS_IN_ROOT_RADIUS: lambda v: (
         "bolts inside the column's root radius: T-stub geometry undefined"
     ),
-    NotCheckedCode.NO_DEMANDS: lambda v: "no demand row for this joint",
+    NotCheckedCode.NO_DEMANDS: lambda v: (
+        "the joint description gives no demands" if v.get("source") == "description"
+        else "no demand row for this joint"
+    ),
     NotCheckedCode.NO_SPAN_OR_IY: lambda v: "not classified: beam span or Iy unknown",
     NotCheckedCode.NO_PLASTIC_MODULI: lambda v: "not classified: plastic moduli unknown",
     NotCheckedCode.NO_TENSION_ROWS: lambda v: (
