@@ -31,6 +31,7 @@ from ifcjoint.archetypes.description import (
     DescriptionError,
     archetype_of,
     demands_from_description,
+    description_findings,
     engine_for,
     input_from_description,
 )
@@ -38,7 +39,7 @@ from ifcjoint.engine.inputs import input_record
 from ifcjoint.engine.problems import Problem, joint_problems
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
-from ifcjoint.engine.verify import JointVerdict, verify_joint
+from ifcjoint.engine.verify import JointVerdict, detailing_utilisations, verify_joint
 from ifcjoint.errors import JointFileError, NoSteelError
 from ifcjoint.find import FinderSettings, find_joints
 from ifcjoint.ifc.reader import read_model
@@ -54,7 +55,7 @@ from ifcjoint.model.codes import (
 )
 from ifcjoint.model.demands import Demand
 from ifcjoint.model.elements import Progress
-from ifcjoint.model.joints import Joint, ScanResult
+from ifcjoint.model.joints import Finding, Joint, ScanResult
 from ifcjoint.tables.demands import DemandsTable, read_demands
 from ifcjoint.tables.joint_file import read_description
 
@@ -237,6 +238,7 @@ def check_one(
         reason = cap.not_checked
         status = Status.INCOMPLETE if j.archetype.incomplete else reason.status
         verdict = JointVerdict(status=status, reason=reason)
+    verdict = with_detailing(verdict, j.findings)
     return JointCheck(
         joint=j,
         anatomy=a,
@@ -246,6 +248,20 @@ def check_one(
         fingerprint=fingerprint(j, cap, demands),
         problems=joint_problems(j, verdict, cap.not_checked),
     )
+
+
+def with_detailing(verdict: JointVerdict, findings) -> JointVerdict:
+    """The verdict with the broken rules the resistance depends on: any makes the joint fail.
+
+    An incomplete joint stays incomplete (its parts are missing: there is nothing to fail);
+    any other status, checked or not, becomes ``fail`` with the worst broken rule governing
+    when its utilisation exceeds every load combination's. The reason a joint was not
+    checked is kept beside it.
+    """
+    broken = detailing_utilisations(findings)
+    if not broken or verdict.status == Status.INCOMPLETE:
+        return verdict
+    return replace(verdict, status=Status.FAIL, detailing=broken)
 
 
 def check_scan(
@@ -341,6 +357,7 @@ class JointCalc:
     settings: CheckSettings
     created: _dt.datetime
     double_sided: bool = False
+    findings: tuple[Finding, ...] = ()
     problems: tuple[Problem, ...] = ()
     tool_version: str = __version__
 
@@ -397,6 +414,8 @@ def calc(
                                braced_default=inp.braced, seed=cap)
     else:
         verdict = JointVerdict(status=cap.not_checked.status, reason=cap.not_checked)
+    findings = tuple(description_findings(inp))
+    verdict = with_detailing(verdict, findings)
     blob = json.dumps({"input": input_record(inp), "demands": [repr(d) for d in demands],
                        "double_sided": double_sided, "version": __version__},
                       sort_keys=True, default=str)
@@ -411,4 +430,5 @@ def calc(
         settings=replace(st, braced=inp.braced),
         created=created or _dt.datetime.now(_dt.UTC).replace(microsecond=0),
         double_sided=double_sided,
+        findings=findings,
     )

@@ -745,7 +745,7 @@ class Frame:
         if spec.haunch:
             return "unsupported"
         if spec.kind in ("extended_end_plate", "flush_end_plate"):
-            if not spec.with_plate or not spec.with_bolts or spec.plate_gap > 10.0:
+            if not spec.with_plate or not spec.with_bolts:  # a gap keeps the kind
                 return "incomplete"
             rows_out = any(r < 0 for r in spec.rows)
             return "extended_end_plate" if rows_out else "flush_end_plate"

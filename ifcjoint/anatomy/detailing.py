@@ -173,11 +173,28 @@ def completeness(
     if role is None and b is not None:
         elements = tuple(x.guid for x in j.fasteners)
         out.append(RULES["bolts_without_plate"].finding(elements=elements))
-    if p is None or role != PartRole.END_PLATE:
+    gap_to_column(j, p, role, b, out)
+
+
+def gap_to_column(
+    j: Joint, p: PlateReading | None, role: PartRole | None, b: BoltReading | None,
+    out: list[Finding],
+) -> None:
+    """The plate (end or fin plate) or the bare beam end standing off the column face.
+
+    Common practice, no source: a part bears on (or is welded to) the face within
+    ``TOUCH_TOLERANCE`` (5 mm, modelling round-off); beyond it, the gap is an error that fails
+    the joint, and the joint keeps the kind it was designed as. A plate running into the
+    column beyond the tolerance clashes with it.
+    """
+    if p is not None and role in (PartRole.END_PLATE, PartRole.FIN_PLATE):
+        part = "end plate" if role == PartRole.END_PLATE else "fin plate"
+        gap, els = p.gap_to_column, (p.guid, j.column)
+    elif role is None and b is None and j.gap > TOUCH_TOLERANCE:
+        part, gap, els = "beam end", j.gap, (j.beam, j.column)
+    else:
         return
-    els = (p.guid, j.column)
-    gap = p.gap_to_column
     if RULES["gap_to_column"].broken(gap, TOUCH_TOLERANCE):
-        out.append(RULES["gap_to_column"].finding(gap, TOUCH_TOLERANCE, els))
+        out.append(RULES["gap_to_column"].finding(gap, TOUCH_TOLERANCE, els, part=part))
     if RULES["overlap_with_column"].broken(-gap, TOUCH_TOLERANCE):
-        out.append(RULES["overlap_with_column"].finding(-gap, TOUCH_TOLERANCE, els))
+        out.append(RULES["overlap_with_column"].finding(-gap, TOUCH_TOLERANCE, els, part=part))

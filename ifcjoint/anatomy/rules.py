@@ -30,6 +30,10 @@ class Rule:
         bound: ``min`` (measured must reach the limit), ``max`` (must not exceed it),
             ``range`` (must lie within [lo, hi]) or ``present`` (a part that must exist).
         tolerance: modelling round-off allowed beyond the limit, mm.
+        fails_joint: breaking it makes the joint fail (the resistance model depends on it, or
+            the part cannot be made as modelled); warnings never do.
+        source: (code, clause) the rule follows, for the governing check; empty for common
+            practice.
     """
 
     code: FindingCode
@@ -37,6 +41,8 @@ class Rule:
     basis: str
     bound: Literal["min", "max", "range", "present"] = "present"
     tolerance: float = 0.0
+    fails_joint: bool = False
+    source: tuple[str, str] | tuple[()] = ()
 
     def broken(self, measured: float, limit: float) -> bool:
         """Whether a measured value breaks a minimum or maximum rule."""
@@ -66,7 +72,23 @@ class Rule:
             limit=limit,
             elements=elements,
             detail=detail,
+            fails_joint=self.fails_joint,
+            source=self.source,
+            ratio=self.ratio(measured, limit),
         )
+
+    def ratio(self, measured: float | None, limit: float | None) -> float | None:
+        """How far a value is beyond its limit, as a utilisation (None for other rules).
+
+        A minimum: limit / measured; a maximum: measured / limit; infinite when the divisor is
+        not positive (a bolt outside the plate, a zero edge distance).
+        """
+        if measured is None or limit is None or self.bound not in ("min", "max", "range"):
+            return None
+        num, den = (limit, measured) if self.bound == "min" else (measured, limit)
+        if self.bound == "range" and measured < limit:
+            num, den = limit, measured
+        return num / den if den > 0 else float("inf")
 
 
 _E = Severity.ERROR
@@ -95,6 +117,8 @@ RULES: dict[str, Rule] = {
         basis=_TABLE_3_3_E,
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=('EN 1993-1-8', 'Table 3.3'),
     ),
     "edge_distance": Rule(
         code=FindingCode.EDGE_DISTANCE_MIN,
@@ -102,12 +126,16 @@ RULES: dict[str, Rule] = {
         basis=_TABLE_3_3_E,
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=('EN 1993-1-8', 'Table 3.3'),
     ),
     "bolt_outside_plate": Rule(
         code=FindingCode.BOLT_OUTSIDE_OUTLINE,
         severity=_E,
         basis="the hole must lie within the plate (3D position of the bolt axis)",
         bound="min",
+        fails_joint=True,
+        source=(),
     ),
     "pitch_min": Rule(
         code=FindingCode.PITCH_MIN,
@@ -115,6 +143,8 @@ RULES: dict[str, Rule] = {
         basis="EN 1993-1-8 Table 3.3: p1 >= 2.2 d0",
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=('EN 1993-1-8', 'Table 3.3'),
     ),
     "pitch_max": Rule(
         code=FindingCode.PITCH_MAX,
@@ -129,12 +159,16 @@ RULES: dict[str, Rule] = {
         basis="EN 1993-1-8 Table 3.3: p2 >= 2.4 d0",
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=('EN 1993-1-8', 'Table 3.3'),
     ),
     "hole_clearance": Rule(
         code=FindingCode.HOLE_CLEARANCE,
-        severity=_W,
+        severity=_E,
         basis="EN 1090-2 Table 11 normal round holes",
         bound="range",
+        fails_joint=True,
+        source=('EN 1090-2', 'Table 11'),
     ),
     "bolt_pattern_asymmetric": Rule(
         code=FindingCode.BOLT_PATTERN_ASYMMETRIC,
@@ -160,6 +194,8 @@ RULES: dict[str, Rule] = {
         severity=_E,
         basis="the hole must lie within the column flange (3D position of the bolt axis)",
         bound="min",
+        fails_joint=True,
+        source=(),
     ),
     "column_edge_distance": Rule(
         code=FindingCode.COLUMN_EDGE_DISTANCE_MIN,
@@ -167,6 +203,8 @@ RULES: dict[str, Rule] = {
         basis="EN 1993-1-8 Table 3.3 on the column flange: e >= 1.2 d0",
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=('EN 1993-1-8', 'Table 3.3'),
     ),
     "hole_on_root_radius": Rule(
         code=FindingCode.HOLE_ON_ROOT_RADIUS,
@@ -174,6 +212,8 @@ RULES: dict[str, Rule] = {
         basis="common practice: holes clear the column's root radius",
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=(),
     ),
     "no_spanner_room": Rule(
         code=FindingCode.NO_SPANNER_ROOM,
@@ -188,6 +228,8 @@ RULES: dict[str, Rule] = {
         basis="common practice: grip + 2 washers (4 mm) + nut 0.9 d + 0.15 d protrusion",
         bound="min",
         tolerance=0.5,
+        fails_joint=True,
+        source=(),
     ),
     "plate_without_bolts": Rule(
         code=FindingCode.PLATE_WITHOUT_BOLTS, severity=_E, basis="joint incomplete"
@@ -200,11 +242,15 @@ RULES: dict[str, Rule] = {
         severity=_E,
         basis=f"common practice: plate bears on the column (tolerance {TOUCH_TOLERANCE} mm)",
         bound="max",
+        fails_joint=True,
+        source=(),
     ),
     "overlap_with_column": Rule(
         code=FindingCode.OVERLAP_WITH_COLUMN,
         severity=_E,
         basis=f"common practice: parts must not clash (tolerance {TOUCH_TOLERANCE} mm)",
         bound="max",
+        fails_joint=True,
+        source=(),
     ),
 }

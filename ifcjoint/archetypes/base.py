@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from typing import Any, ClassVar
 
-from ifcjoint.anatomy import TOUCH_TOLERANCE, JointAnatomy
+from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.builders import require_major_axis
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
@@ -59,12 +59,8 @@ def bolt_count(a: JointAnatomy) -> int:
 
 
 def end_plate_ready(a: JointAnatomy) -> bool:
-    """An end plate with bolts that bears on the column face."""
-    return (
-        a.main_role == PartRole.END_PLATE
-        and a.bolts is not None
-        and not (a.plate is not None and a.plate.gap_to_column > TOUCH_TOLERANCE)
-    )
+    """An end plate with bolts (one standing off the face keeps its kind: a gap finding)."""
+    return a.main_role == PartRole.END_PLATE and a.bolts is not None
 
 
 def bare_beam_end(a: JointAnatomy) -> bool:

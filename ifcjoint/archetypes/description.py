@@ -16,9 +16,11 @@ from collections.abc import Callable
 from dataclasses import fields
 from typing import Any
 
+from ifcjoint.anatomy.rules import RULES
 from ifcjoint.archetypes.builders import assumed_welds, grade_strength
 from ifcjoint.catalogue.materials import BOLT_CLASSES
 from ifcjoint.catalogue.sections import ISection, section_from_designation
+from ifcjoint.ec3 import detailing as dt
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA
 from ifcjoint.ec3.params import Parameters
 from ifcjoint.engine.inputs import (
@@ -36,6 +38,7 @@ from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.model.codes import Archetype, JointModel
 from ifcjoint.model.demands import Demand
+from ifcjoint.model.joints import Finding
 
 #: Keys that describe the joint but do not enter the check.
 INFORMATIONAL = frozenset({"label", "source", "description"})
@@ -349,6 +352,59 @@ def input_from_description(d: Any, settings: CheckSettings | None = None) -> Joi
         washer_dia=_num(d, "washer_dia", "", None),
         **shared,
     )
+
+
+def description_findings(inp: JointInput) -> list[Finding]:
+    """The detailing rules a described end-plate joint can be checked against (mm).
+
+    The same rules as a scanned joint's (``ifcjoint.anatomy.rules``), on the geometry the
+    description gives: end distances to the plate's top and bottom edges and side edge
+    distances on the plate and the column flange (EN 1993-1-8 Table 3.3, e >= 1.2 d0),
+    pitches (p1 >= 2.2 d0, p <= min(14 t, 200)), the gauge (p2 >= 2.4 d0), the hole clearance
+    (EN 1090-2), the holes clear of the column's root radius and room for the washer. What a
+    description does not hold (bolt lengths, the plate's position against the face, bolts off
+    their holes) is not checked here.
+    """
+    if not isinstance(inp, EndPlateJointInput):
+        return []
+    b, pl, col, beam = inp.bolts, inp.plate, inp.column, inp.beam
+    out: list[Finding] = []
+
+    def check(rule: str, measured: float, limit: float, **detail) -> None:
+        r = RULES[rule]
+        if r.broken(measured, limit):
+            out.append(r.finding(measured, limit, (), **detail))
+
+    d0, rows = b.d0, b.rows_from_beam_top
+    emin = dt.e_min(d0)
+    top_edge = -pl.projection_top
+    bottom_edge = beam.h + pl.projection_bottom
+    check("end_distance", rows[0] - top_edge, emin, edge="top", row=1)
+    check("end_distance", bottom_edge - rows[-1], emin, edge="bottom", row=len(rows))
+    e_plate = (pl.bp - b.gauge) / 2
+    if RULES["bolt_outside_plate"].broken(e_plate, d0 / 2):
+        check("bolt_outside_plate", e_plate, d0 / 2, part="plate")
+    else:
+        check("edge_distance", e_plate, emin, edge="side")
+    e_col = (col.b - b.gauge) / 2
+    if RULES["bolt_outside_column_flange"].broken(e_col, d0 / 2):
+        check("bolt_outside_column_flange", e_col, d0 / 2, part="column_flange")
+    else:
+        check("column_edge_distance", e_col, emin)
+    for i, (z1, z2) in enumerate(zip(rows, rows[1:], strict=False), start=1):
+        check("pitch_min", z2 - z1, dt.p1_min(d0), rows=(i, i + 1))
+        check("pitch_max", z2 - z1, dt.p_max(pl.tp), rows=(i, i + 1))
+    check("spacing_min", b.gauge, dt.p2_min(d0))
+    clearance, want = d0 - b.d, dt.normal_hole_clearance(b.d)
+    rule = RULES["hole_clearance"]
+    if rule.outside(clearance, 0.5, want + 0.5):
+        out.append(rule.finding(clearance, want, (), hole=d0, d=b.d))
+    clear = b.gauge / 2 - col.tw / 2 - col.r
+    if not RULES["hole_on_root_radius"].broken(clear, d0 / 2):
+        check("no_spanner_room", clear, dt.washer_half_width(b.d))
+    else:
+        check("hole_on_root_radius", clear, d0 / 2)
+    return out
 
 
 def archetype_of(inp: JointInput) -> Archetype:

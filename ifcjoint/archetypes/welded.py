@@ -15,15 +15,17 @@ from ifcjoint.model.joints import Joint
 
 
 class Welded(JointType):
-    """The beam end on the column face within the touch tolerance, nothing between."""
+    """A bare beam end at the column face, nothing between (standing off it: a gap finding)."""
 
     archetype = Archetype.WELDED
 
     def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
-        """A bare beam end on the face."""
-        if bare_beam_end(a) and abs(joint.gap) <= TOUCH_TOLERANCE:
+        """A bare beam end on the face, or short of it (not drawn into the column)."""
+        if not bare_beam_end(a) or joint.gap < -TOUCH_TOLERANCE:
+            return None
+        if joint.gap <= TOUCH_TOLERANCE:
             return Reason(ReasonCode.ON_FACE, {"gap": joint.gap})
-        return None
+        return Reason(ReasonCode.SHORT_OF_FACE, {"gap": joint.gap})
 
     def engine_input(
         self, joint: Joint, a: JointAnatomy, members: dict[str, Member], st: CheckSettings

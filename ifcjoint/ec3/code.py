@@ -145,14 +145,16 @@ class Eurocode3:
         return Clause(self.name, ref)
 
     def cite(self, ref: str | Clause) -> str:
-        """A clause as people cite it: ``EN 1993-1-8 6.2.7.2``."""
+        """A clause as people cite it: ``EN 1993-1-8 6.2.7.2`` (``common practice`` alone)."""
         if isinstance(ref, Clause):
-            return f"{ref.code} {ref.ref}"
+            return f"{ref.code} {ref.ref}" if ref.ref else ref.code
         return f"{self.name} {ref}"
 
     def ref(self, clause: Clause) -> str:
         """A clause as the outputs write it: bare for this code's own, cited for another's."""
-        return clause.ref if clause.code == self.name else f"{clause.code} {clause.ref}"
+        if clause.code == self.name:
+            return clause.ref
+        return f"{clause.code} {clause.ref}" if clause.ref else clause.code
 
     def component_name(self, component: Component | str) -> str:
         """What the code calls a component (``column flange in bending``)."""

@@ -77,12 +77,12 @@ def joint_problems(
         out.append(Problem(kind=kind, priority=priority, elements=els, key=key, **facts))
 
     st = verdict.status
-    if st == Status.FAIL:
-        exceeded = tuple(
-            u for c in verdict.combinations for u in c.utilisations if u.utilisation > 1.0
-        )
-        add(ProblemKind.RESISTANCE, Priority.CRITICAL, exceeded=exceeded,
-            governing=verdict.governing)
+    exceeded = tuple(
+        u for c in verdict.combinations for u in c.utilisations if u.utilisation > 1.0
+    )
+    if st == Status.FAIL and exceeded:
+        governing = max(exceeded, key=lambda u: u.utilisation)
+        add(ProblemKind.RESISTANCE, Priority.CRITICAL, exceeded=exceeded, governing=governing)
     elif st == Status.INCOMPLETE:
         add(ProblemKind.INCOMPLETE, Priority.MAJOR, reason=verdict.reason or reason)
     elif st in _UNCHECKED_PRIORITY:
@@ -91,8 +91,11 @@ def joint_problems(
     findings = tuple(f for f in j.findings if f.severity in (Severity.ERROR, Severity.WARNING))
     if findings:
         errors = any(f.severity == Severity.ERROR for f in findings)
-        add(ProblemKind.DETAILING, Priority.MAJOR if errors else Priority.MINOR,
-            findings=findings)
+        # a broken rule the resistance depends on fails the joint: as urgent as a failing check
+        priority = (Priority.CRITICAL if verdict.detailing
+                    else Priority.MAJOR if errors else Priority.MINOR)
+        add(ProblemKind.DETAILING, priority, findings=findings,
+            governing=verdict.detailing[0] if verdict.detailing else None)
     a = verdict.assumption
     if a is not None and a.match is False:
         add(ProblemKind.ASSUMPTION, Priority.MAJOR, assumption=a)

@@ -8,6 +8,7 @@ No IFC, no files, no words. Sign conventions are those of :mod:`ifcjoint.model.d
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable
 from dataclasses import dataclass, field, replace
 from typing import Any
@@ -99,26 +100,62 @@ class Assumption:
 
 @dataclass(frozen=True, slots=True, kw_only=True)
 class JointVerdict:
-    """A joint's status over all its combinations, and the assumption check."""
+    """A joint's status over all its combinations, the assumption check, broken rules.
+
+    ``detailing`` holds the rules the resistance model depends on that the joint breaks, as
+    utilisations (``detailing_utilisations``): any of them makes the joint fail.
+    """
 
     status: Status
     reason: NotChecked | None = None
     combinations: tuple[CombinationResult, ...] = ()
     assumption: Assumption | None = None
+    detailing: tuple[Utilisation, ...] = ()
 
     @property
     def governing(self) -> Utilisation | None:
-        """The highest utilisation over every combination."""
+        """The highest utilisation over every combination and every broken rule."""
         best = [c.governing for c in self.combinations if c.governing is not None]
+        best += self.detailing
         return max(best, key=lambda u: u.utilisation, default=None)
 
     @property
     def governing_combination(self) -> CombinationResult | None:
-        """The combination holding the governing utilisation."""
+        """The combination holding the governing utilisation (else the highest one)."""
         g = self.governing
         if g is None:
             return None
-        return next(c for c in self.combinations if c.demand.combination == g.combination)
+        found = next((c for c in self.combinations if c.governing is g), None)
+        if found is not None:
+            return found
+        return max((c for c in self.combinations if c.governing is not None),
+                   key=lambda c: c.governing.utilisation, default=None)
+
+
+def detailing_utilisations(findings) -> tuple[Utilisation, ...]:
+    """The broken rules a joint's resistance depends on, as utilisations (worst first).
+
+    Each finding whose rule fails a joint (``Finding.fails_joint``: EN 1993-1-8 Table 3.3
+    distances and spacings, EN 1090-2 hole clearances, a bolt outside its plate or shorter
+    than its grip, a plate that does not bear on the column ...) becomes a utilisation of
+    its rule: limit over measured for a minimum, measured over limit for a maximum, so the
+    worst broken rule governs. Warnings never fail a joint.
+    """
+    out = []
+    for f in findings:
+        if not f.fails_joint:
+            continue
+        ratio = f.ratio if f.ratio is not None else math.inf
+        out.append(Utilisation(
+            verification=Verification.DETAILING,
+            clause=Clause(*f.source) if f.source else Clause("common practice", ""),
+            demand=f.limit if f.limit is not None else 0.0,
+            resistance=f.measured if f.measured is not None else 0.0,
+            utilisation=max(ratio, 1.0 + 1e-9),
+            combination="",
+            detail={"finding": f},
+        ))
+    return tuple(sorted(out, key=lambda u: -u.utilisation))
 
 
 def transformation_beta(demand: Demand, double_sided: bool) -> tuple[float, Note]:

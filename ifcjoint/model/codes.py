@@ -223,10 +223,9 @@ class ReasonCode(StrEnum):
     """Why a joint was given its archetype."""
 
     END_PLATE_NO_BOLTS = "end_plate_no_bolts"
-    PLATE_OFF_FACE = "plate_off_face"
     FIN_PLATE_NO_BOLTS = "fin_plate_no_bolts"
     BOLTS_NO_PLATE = "bolts_no_plate"
-    STOPS_SHORT = "stops_short"
+    SHORT_OF_FACE = "short_of_face"  # a bare beam end stopping short: welded, with a gap
     DEPTH_UNKNOWN = "depth_unknown"
     ROWS_OUTSIDE = "rows_outside"
     ROWS_WITHIN = "rows_within"
@@ -281,6 +280,7 @@ class Verification(StrEnum):
     SHEAR = "shear"
     WEB_PANEL_SHEAR = "web_panel_shear"
     BENDING_AND_AXIAL = "bending_and_axial"
+    DETAILING = "detailing"  # a rule the resistance depends on, broken (limit over measured)
 
 
 class StiffnessClass(StrEnum):

@@ -46,6 +46,12 @@ class Finding:
         elements: GlobalIds involved.
         detail: the values a renderer needs to put the finding into words (which edge, which
             rows, the bolt size ...).
+        fails_joint: the rule is one the resistance model depends on, or the part cannot be
+            made as modelled: the joint cannot pass while it is broken.
+        source: (code, clause) the rule follows, e.g. ``("EN 1993-1-8", "Table 3.3")``; empty
+            for common practice.
+        ratio: how far the value is beyond its limit, as a utilisation (limit / measured for a
+            minimum, measured / limit for a maximum; above 1 when broken), or None.
     """
 
     code: FindingCode
@@ -55,6 +61,9 @@ class Finding:
     limit: float | None = None
     elements: tuple[str, ...] = ()
     detail: dict[str, Any] = field(default_factory=dict)
+    fails_joint: bool = False
+    source: tuple[str, str] | tuple[()] = ()
+    ratio: float | None = None
 
 
 NOT_DECIDED = Reason(ReasonCode.NOT_DECIDED)

@@ -15,7 +15,7 @@ from ifcjoint import TOOL_NAME, __version__
 from ifcjoint.errors import OutputError
 from ifcjoint.fileio import atomic_write_text
 from ifcjoint.report.results import finite_json, joint_check_dict
-from ifcjoint.report.scan import CAUTION
+from ifcjoint.report.scan import CAUTION, finding_dict
 
 CALC_SCHEMA_VERSION = "1.0"
 
@@ -50,7 +50,7 @@ def build_calc_results(jc) -> dict:
         "column": "",
         "axis": "major",
         "partner": "(described as double-sided)" if jc.double_sided else None,
-        "findings": [],
+        "findings": [finding_dict(f) for f in jc.findings],
         "parts": [],
         "anatomy": _anatomy_for_drawing(check.get("inputs")),
         "check": check,

@@ -40,7 +40,7 @@ def render_markdown(results: dict, top: int = 10) -> str:
             lines.append(
                 f"| {md(j['label'])} (`{j['id']}`) | {j['check']['status']} | "
                 f"{g['utilisation']:.2f} | {md(g['name'])} | {md(cite(results, g['clause']))} | "
-                f"{md(g['combination'])} |"
+                f"{md(g['combination'] or '(any: detailing)')} |"
             )
     reasons = Counter(
         (j["check"]["status"], j["check"]["status_reason"])

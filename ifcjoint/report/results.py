@@ -179,11 +179,11 @@ def result_dict(r: CheckResult, code: Eurocode3) -> dict:
 
 
 def utilisation_dict(u: Utilisation, code: Eurocode3) -> dict:
-    """One utilisation in the output's units (kN, kNm; ``-`` for an interaction)."""
+    """One utilisation in the output's units (kN, kNm, mm; ``-`` for an interaction)."""
     unit, f = UNITS[u.verification]
     return {
         "clause": code.ref(u.clause),
-        "name": verification_name(u.verification, u.sense, code),
+        "name": verification_name(u.verification, u.sense, code, u.detail),
         "combination": u.combination,
         "demand": round(u.demand / f, 2),
         "resistance": round(u.resistance / f, 2),
@@ -222,14 +222,14 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
                 f"utilisation {u.utilisation:.2f}" + (f"; {d['detail']}" if d["detail"] else "")
             )
         share = f"{p.governing.utilisation:.0%}"
-        title = f"{j.label}: {g['name']} exceeded, {share} ({g['combination']})"
+        title = f"{name}: {g['name']} exceeded, {share} ({g['combination']})"
         return title, "\n".join(lines)
     if p.kind == ProblemKind.INCOMPLETE:
-        return f"{j.label}: joint incomplete ({j.archetype})", "\n".join(
+        return f"{name}: joint incomplete ({j.archetype})", "\n".join(
             [f"Joint {name}: {coded(j.archetype_reason)}.", f"Not checked: {coded(p.reason)}."]
         )
     if p.kind == ProblemKind.UNCHECKED:
-        return f"{j.label}: not checked, {UNCHECKED_WHAT[p.status]}", "\n".join(
+        return f"{name}: not checked, {UNCHECKED_WHAT[p.status]}", "\n".join(
             [
                 f"Joint {name}, archetype {j.archetype}: not checked ({p.status}).",
                 f"Reason: {coded(p.reason)}.",
@@ -238,14 +238,19 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
     if p.kind == ProblemKind.DETAILING:
         fs = p.findings
         lines = [f"Joint {name}: {len(fs)} detailing finding(s)."]
+        if p.governing is not None:
+            lines[0] += " The joint fails: a rule its resistance depends on is broken."
         for f in fs:
             lim = ""
             if f.measured is not None and f.limit is not None:
                 lim = f" (measured {round(f.measured, 2):g}, limit {round(f.limit, 2):g})"
-            lines.append(f"[{f.severity}] {finding_message(f)}{lim}; basis: {f.basis}")
-        return f"{j.label}: {len(fs)} detailing finding(s), first: {fs[0].code}", "\n".join(lines)
+            fails = ", fails the joint" if f.fails_joint else ""
+            lines.append(f"[{f.severity}{fails}] {finding_message(f)}{lim}; basis: {f.basis}")
+        first = p.governing.detail["finding"] if p.governing is not None else fs[0]
+        head = "fails detailing" if p.governing is not None else f"{len(fs)} detailing finding(s)"
+        return f"{name}: {head}: {finding_message(first)}", "\n".join(lines)
     a = assumption_dict(p.assumption)
-    return f"{j.label}: analysed as {a['assumed']}, the joint is {a['computed']}", (
+    return f"{name}: analysed as {a['assumed']}, the joint is {a['computed']}", (
         f"Joint {name}: the analysis model assumed a {a['assumed']} joint; by its "
         f"initial stiffness Sj,ini the joint is {a['computed']} ({code.cite('5.2.2.5')}). "
         "The frame analysis may need the joint's stiffness (5.1.1, 5.2.2.1)."
@@ -299,6 +304,7 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
         "sagging": r.get("sagging"),
         "inputs": r.get("inputs") or None,
         "demands": [_demand_dict(d) for d in jc.demands],
+        "detailing_failures": [utilisation_dict(u, code) for u in jc.verdict.detailing],
         "combinations": [
             {
                 "combination": c.demand.combination,
@@ -369,7 +375,9 @@ def cite(results: dict, clause: str) -> str:
     (``Eurocode3.ref``); a bare one gets the run's design code.
     """
     name = results.get("check", {}).get("design_code") or "EN 1993-1-8"
-    return clause if clause.startswith("EN ") else f"{name} {clause}"
+    if clause.startswith(("EN ", "common practice")):
+        return clause
+    return f"{name} {clause}"
 
 
 def write_results_json(results: dict, path: str | Path) -> dict[str, int]:
@@ -496,9 +504,10 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
         for j in best:
             ch = j["check"]
             g = ch["governing"]
+            where = "; ".join(x for x in (cite(results, g["clause"]), g["combination"]) if x)
             out.write(
-                f"    {g['utilisation']:6.2f}  {ch['status']:4}  {j['label']:<24} {g['name']} "
-                f"({cite(results, g['clause'])}; {g['combination']})\n"
+                f"    {g['utilisation']:6.2f}  {ch['status']:4}  {j['label']} ({j['id']})  "
+                f"{g['name']} ({where})\n"
             )
     kinds = Counter(p["kind"] for j in results["joints"] for p in j["check"]["problems"])
     if kinds:

@@ -47,6 +47,7 @@ def finding_dict(f: Finding) -> dict:
         "limit": _r(f.limit),
         "message": finding_message(f),
         "elements": list(f.elements),
+        "fails_joint": f.fails_joint,
     }
 
 
@@ -306,13 +307,15 @@ def _summary_lists(scan: dict, w) -> None:
     js, others = scan["joints"], scan["other_beam_ends"]
     if js:
         w("\nJoints\n")
+        width = max(28, *(len(j["label"]) for j in js))  # labels are never cut
         w(
-            f"  {'label':<28} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<18} "
+            f"  {'label':<{width}} {'id':<15} {'beam end':<30} {'axis':<6} {'archetype':<18} "
             f"{'plates':>6} {'bolts':>5}  partner\n"
         )
         for j in js:
             w(
-                f"  {j['label'][:28]:<28} {j['id']:<15} {(j['beam'] + ':' + j['beam_end']):<30} "
+                f"  {j['label']:<{width}} {j['id']:<15} "
+                f"{(j['beam'] + ':' + j['beam_end']):<30} "
                 f"{j['axis']:<6} {j['archetype']:<18} {len(j['plates']):>6} "
                 f"{len(j['bolts']):>5}  {j['partner'] or '-'}\n"
             )
@@ -322,17 +325,18 @@ def _summary_lists(scan: dict, w) -> None:
 
     if any(j["findings"] or extra(j, "unread") or extra(j, "assumed") for j in js):
         w("\nFindings, unread and assumed data\n")
+        width = max(44, *(len(j["label"]) + len(j["id"]) + 3 for j in js))
         for j in js:
-            lab = j["label"][:28]
+            lab = f"{j['label']} ({j['id']})"  # label and id: two joints may share a label
             for f in j["findings"]:
                 w(
-                    f"  {lab:<28} {f['severity']:<8} {f['code']:<30} {f['message']}"
+                    f"  {lab:<{width}} {f['severity']:<8} {f['code']:<30} {f['message']}"
                     f" [{f['basis']}]\n"
                 )
             for u in extra(j, "unread"):
-                w(f"  {lab:<28} {'unread':<8} {'-':<30} {u}\n")
+                w(f"  {lab:<{width}} {'unread':<8} {'-':<30} {u}\n")
             for u in extra(j, "assumed"):
-                w(f"  {lab:<28} {'assumed':<8} {'-':<30} {u}\n")
+                w(f"  {lab:<{width}} {'assumed':<8} {'-':<30} {u}\n")
     if others:
         w("\nOther beam ends\n")
         for o in others:

@@ -125,8 +125,8 @@ def render_sheet_text(joint: dict, results: dict, code) -> str:
     head = f"{joint['label']} ({joint['archetype']}): {status}"
     if c.get("utilisation") is not None:
         g = c["governing"]
-        head += (f", utilisation {c['utilisation']:.3f}: {g['name']} ({code.name} "
-                 f"{g['clause']}; {g['combination']})")
+        where = "; ".join(x for x in (g["clause"], g["combination"]) if x)
+        head += f", utilisation {c['utilisation']:.3f}: {g['name']} ({where})"
     lines = [head]
     if c.get("status_reason"):
         lines.append(f"  why: {c['status_reason']}")
@@ -175,6 +175,11 @@ def render_sheet_text(joint: dict, results: dict, code) -> str:
         ]
         lines += [f"  not available ({g['sign']}): {g['reason']}" for g in c.get("gaps") or []]
         lines.append("")
+    if c.get("detailing_failures"):
+        lines += ["Broken rules the resistance depends on (the joint fails)"]
+        lines += [f"  {u['utilisation']:.3f}  {u['name']} ({u['clause']}); {u['detail']}"
+                  for u in c["detailing_failures"]]
+        lines.append("")
     if c.get("combinations"):
         rows = [[cb["combination"], fmt(cb["beta"], 2), u["name"], u["clause"],
                  fmt(u["demand"], 1), fmt(u["resistance"], 1), u["unit"],
@@ -186,6 +191,11 @@ def render_sheet_text(joint: dict, results: dict, code) -> str:
                        "utilisation"], rows, {1, 4, 5, 7}))]
         lines += [f"  {cb['combination']}: {n}" for cb in c["combinations"] for n in cb["notes"]]
         lines.append("")
+    findings = joint.get("findings") or []
+    lines += ["7. Detailing findings"]
+    lines += [f"  [{f['severity']}{', fails the joint' if f.get('fails_joint') else ''}] "
+              f"{f['message']} ({f['basis']})" for f in findings] or ["  none"]
+    lines.append("")
     if c.get("engine_notes"):
         lines += ["Notes", *(f"  - {n}" for n in c["engine_notes"]), ""]
     if c.get("engine_reason"):

@@ -52,11 +52,11 @@ def _unsupported(v: Mapping[str, Any]) -> str:
 #: Why a joint has its archetype.
 REASONS: dict[ReasonCode, Words] = {
     ReasonCode.END_PLATE_NO_BOLTS: lambda v: "end plate at the beam end but no bolts",
-    ReasonCode.PLATE_OFF_FACE: lambda v: f"end plate stands {v['gap']:.0f} mm off the column face",
     ReasonCode.FIN_PLATE_NO_BOLTS: lambda v: "fin plate but no bolts",
     ReasonCode.BOLTS_NO_PLATE: lambda v: f"{v['n']} bolt(s) but no plate",
-    ReasonCode.STOPS_SHORT: lambda v: (
-        f"beam stops {v['gap']:.0f} mm short of the column and nothing bridges"
+    ReasonCode.SHORT_OF_FACE: lambda v: (
+        f"beam end with nothing between it and the column face, {v['gap']:.0f} mm short of "
+        "it: read as a welded joint standing off the face (a gap finding says so)"
     ),
     ReasonCode.DEPTH_UNKNOWN: lambda v: (
         "end plate with bolts; beam depth unknown, extent not judged"
@@ -282,9 +282,12 @@ FINDINGS: dict[FindingCode, FindingWords] = {
     ),
     FindingCode.BOLTS_WITHOUT_PLATE: lambda v, m, lim: "bolts at the joint but no plate",
     FindingCode.GAP_TO_COLUMN: lambda v, m, lim: (
-        f"end plate stands {m:.0f} mm off the column face"
+        f"{v.get('part', 'end plate')} stands {m:.0f} mm off the column face "
+        f"(tolerance {lim:.0f} mm)"
     ),
-    FindingCode.OVERLAP_WITH_COLUMN: lambda v, m, lim: f"end plate runs {m:.0f} mm into the column",
+    FindingCode.OVERLAP_WITH_COLUMN: lambda v, m, lim: (
+        f"{v.get('part', 'end plate')} runs {m:.0f} mm into the column"
+    ),
     FindingCode.END_DISTANCE_MIN: _edge,
     FindingCode.EDGE_DISTANCE_MIN: _edge,
     FindingCode.BOLT_OUTSIDE_OUTLINE: _outside,
@@ -335,6 +338,7 @@ UNITS = {
     Verification.SHEAR: ("kN", 1e3),
     Verification.WEB_PANEL_SHEAR: ("kN", 1e3),
     Verification.BENDING_AND_AXIAL: ("-", 1e3),
+    Verification.DETAILING: ("mm", 1.0),
 }
 
 
@@ -382,9 +386,12 @@ def limit_words(limit: Limit | None, code: Eurocode3 = EN_1993_1_8) -> str:
 
 
 def verification_name(
-    kind: Verification, sense: str, code: Eurocode3 = EN_1993_1_8
+    kind: Verification, sense: str, code: Eurocode3 = EN_1993_1_8,
+    detail: Mapping[str, Any] | None = None,
 ) -> str:
     """What a utilisation compares, in words (``moment resistance Mj,Rd (hogging)``)."""
+    if kind == Verification.DETAILING:
+        return f"detailing: {finding_message((detail or {})['finding'])}"
     if kind == Verification.MOMENT:
         return f"moment resistance {code.symbol('M_j_Rd')} ({sense})"
     if kind == Verification.SHEAR:
@@ -395,7 +402,11 @@ def verification_name(
 
 
 def verification_detail(u, code: Eurocode3 = EN_1993_1_8) -> str:
-    """The line under a utilisation: what governed, the lever arm, Nj,Rd."""
+    """The line under a utilisation: what governed, the lever arm, Nj,Rd, the rule's basis."""
+    if u.verification == Verification.DETAILING:
+        f = u.detail["finding"]
+        return f"limit {f.limit:g}, measured {f.measured:g}; basis: {f.basis}" if (
+            f.limit is not None and f.measured is not None) else f"basis: {f.basis}"
     if u.verification == Verification.MOMENT:
         if u.detail.get("no_tension") is not None:
             return coded(u.detail["no_tension"])

@@ -17,7 +17,7 @@ import pytest
 from ifcjoint.anatomy import JointAnatomy, analyse
 from ifcjoint.archetypes import decide
 from ifcjoint.find import find_joints
-from ifcjoint.model.codes import Archetype, Reason, ReasonCode
+from ifcjoint.model.codes import Archetype, Reason
 from ifcjoint.model.elements import Fastener, Member, ModelContents, Plate
 
 
@@ -143,8 +143,13 @@ def test_incomplete_joints():
     assert a.archetype == "incomplete" and "plate_without_bolts" in codes(a)
     b = build(with_plate=False)
     assert b.archetype == "incomplete" and "bolts_without_plate" in codes(b)
+    # parts all there but off the face: the designed kind, with a gap that fails the joint
     c = build(gap=30.0)
-    assert c.archetype == "incomplete" and c.reason.code == ReasonCode.PLATE_OFF_FACE
+    assert c.archetype == "extended_end_plate"
+    (gap,) = [f for f in c.findings if f.code == "gap_to_column"]
+    assert gap.measured == pytest.approx(30.0) and gap.fails_joint
+    assert gap.detail["part"] == "end plate"
+    assert not [f for f in build(gap=4.0).findings if f.code == "gap_to_column"]  # tolerance
 
 
 def test_thicker_plate_and_longer_bolt_only_remove_findings():

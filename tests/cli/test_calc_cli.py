@@ -130,9 +130,14 @@ def test_scanned_joints_export_and_rerun_to_the_same_numbers(tmp_path, demo_chec
         r = run("calc", desc, "--json", out, "-q")
         assert r.exit_code == 0, r.output
         again = json.loads(out.read_text())["joints"][0]["check"]
-        assert again["status"] == c["status"], j["id"]
-        assert again["utilisation"] == c["utilisation"], j["id"]
         assert again["resistance"] == c["resistance"], j["id"]
+        if not c["detailing_failures"]:
+            # a joint failing detailing the description cannot show (bolt length, the plate
+            # off the face ...) is compared by its numbers only
+            assert again["status"] == c["status"], j["id"]
+            assert again["utilisation"] == c["utilisation"], j["id"]
+        if again["detailing_failures"]:  # what a description shows, the model showed too
+            assert c["status"] == "fail", j["id"]
         assert again["classification"] == c["classification"], j["id"]
         done += 1
     assert done >= 20

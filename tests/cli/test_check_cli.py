@@ -16,8 +16,10 @@ from tests.conftest import DEMO_CREATED, SAMPLES, load_truth
 
 DEMO = SAMPLES / "kestrel-workshop-ifc4-mm.ifc"
 DEMANDS = SAMPLES / "kestrel-workshop-demands.csv"
-INCOMPLETE_DEFECTS = {"plate_without_bolts", "bolts_without_plate", "gap_to_column"}
-OUT_OF_RANGE_DEFECTS = {"edge_distance", "pitch"}
+INCOMPLETE_DEFECTS = {"plate_without_bolts", "bolts_without_plate"}
+# broken rules the resistance depends on (EN 1993-1-8 Table 3.3, bolt length, bearing on
+# the column): the joint fails whatever its forces
+FAILING_DEFECTS = {"edge_distance", "pitch", "bolt_too_short", "gap_to_column"}
 
 
 def run(*args):
@@ -30,9 +32,8 @@ def designed_status(t: dict) -> str:
         return "unsupported"  # fin plates on the column web: not checked, said so
     if INCOMPLETE_DEFECTS & set(t["defects"]):
         return "incomplete"
-    if OUT_OF_RANGE_DEFECTS & set(t["defects"]):
-        # Table 3.4 holds only within Table 3.3's limits: no bearing resistance, never a pass
-        return "unsupported"
+    if FAILING_DEFECTS & set(t["defects"]):
+        return "fail"
     if not t["key"].startswith("X/"):
         return "no_demands"  # the cantilever: the scenario gives it no forces
     level, line = (int(x) for x in t["key"].split("/")[1:3])
@@ -62,7 +63,10 @@ def test_demo_statuses_are_the_designed_ones(tmp_path):
         c = j["check"]
         if c["status"] == "fail":
             assert c["governing"]["utilisation"] > 1 and c["governing"]["clause"]
-            assert c["governing"]["combination"] in ("ULS-1 gravity", "ULS-2 sway")
+            if c["detailing_failures"]:  # a broken rule governs: no load combination
+                assert c["governing"]["name"].startswith("detailing: ")
+            else:
+                assert c["governing"]["combination"] in ("ULS-1 gravity", "ULS-2 sway")
         if c["status"] in ("no_demands", "incomplete", "unsupported"):
             assert c["governing"] is None and c["utilisation"] is None
     assert data["check"]["created"].startswith("2026-12-01T09:00:00")
@@ -89,23 +93,30 @@ def test_gate_exit_codes(gate, code):
     assert r.exit_code == code, r.output
 
 
-def test_gate_passes_when_every_joint_passes(tmp_path, demo_check):
-    # Only demands far below the resistances, for the checkable joints: --fail-on fail passes;
-    # --fail-on unchecked still fails because fin plates and incomplete joints are unchecked.
+def test_gate_passes_when_every_joint_passes(tmp_path, build_variant):
+    # A uniform frame with no detailing defects (welded joints and fin plates), demands far
+    # below the resistances for the checkable joints: --fail-on fail passes; --fail-on
+    # unchecked still fails because the fin plates are unchecked.
+    import ifcjoint
+
+    model, _ = build_variant(demo_details=False, bays_x=2, bays_y=1)
+    mc = ifcjoint.check(model)
     p = tmp_path / "light.csv"
     rows = ["joint_id,combination,M_Ed_kNm,V_Ed_kN"]
-    rows += [f"{jc.joint.id},C1,-1,1" for jc in demo_check.joints
-             if jc.capacity.status == "checked"]
+    rows += [f"{jc.joint.id},C1,-1,1" for jc in mc.joints if jc.capacity.status == "checked"]
+    assert len(rows) > 1
     p.write_text("\n".join(rows) + "\n")
-    assert run("check", DEMO, "--demands", p, "--fail-on", "fail", "-q").exit_code == 0
-    r = run("check", DEMO, "--demands", p, "-q")
+    r = run("check", model, "--demands", p, "--fail-on", "fail", "-q")
+    assert r.exit_code == 0, r.output
+    r = run("check", model, "--demands", p, "-q")
     assert r.exit_code == 1 and "unchecked" in r.output
 
 
 def test_without_demands_nothing_passes():
+    # No demands: nothing passes; only joints that break a detailing rule fail (4 in the demo)
     r = run("check", DEMO, "--fail-on", "never")
     assert r.exit_code == 0
-    assert "pass 0, fail 0" in r.output and "demands: none given" in r.output
+    assert "pass 0, fail 4" in r.output and "demands: none given" in r.output
 
 
 def test_outputs_are_written_and_the_input_is_untouched(tmp_path):
@@ -236,3 +247,30 @@ def test_exit_codes_come_from_the_errors(tmp_path, monkeypatch):
     monkeypatch.setitem(outputs.RENDERERS, "csv", broken)
     r = run("check", DEMO, "--csv", tmp_path / "r.csv", "-q")
     assert r.exit_code == 5 and "internal error" in r.output and "renderer bug" in r.output
+
+
+def test_mis_detailed_joints_fail_and_the_fail_gate_says_so(tmp_path):
+    # A bolt 15 mm from the plate edge (min 1.2 d0 = 26.4 mm), rows 35 mm apart (min 2.2 d0),
+    # bolts shorter than their grip, a plate 30 mm off the face: each breaks a rule the
+    # resistance depends on (EN 1993-1-8 Table 3.3; common practice), so the joint fails and
+    # its broken rule governs; --fail-on fail exits 1.
+    js = tmp_path / "r.json"
+    r = run("check", DEMO, "--demands", DEMANDS, "--json", js, "--fail-on", "fail", "-q")
+    assert r.exit_code == 1 and "gate (fail) failed" in r.output
+    data = json.loads(js.read_text())
+    by_key = {(j["beam"], j["beam_end"]): j for j in data["joints"]}
+    truth = load_truth("kestrel-workshop-ifc4-mm")["joints"]
+    seen = set()
+    for t in truth:
+        broken = FAILING_DEFECTS & set(t["defects"])
+        if not broken:
+            continue
+        j = by_key[(t["beam"], t["beam_end"])]
+        c = j["check"]
+        assert c["status"] == "fail", t["key"]
+        assert c["detailing_failures"] and c["governing"]["utilisation"] > 1
+        assert j["archetype"] == t["archetype"]  # the designed kind, not "incomplete"
+        assert any(p["kind"] == "detailing" and p["severity"] == "critical"
+                   for p in c["problems"])
+        seen |= broken
+    assert seen == FAILING_DEFECTS
