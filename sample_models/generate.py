@@ -81,6 +81,7 @@ class Options:
     stiffeners: bool = False  # column web stiffeners at the level-1 beam flanges of line A
     haunch_member: bool = False  # with haunch: the haunch is a short IPE 200 beam, not plates
     detail_parts: bool = True  # model plates and bolts at all
+    hole_property: str = ""  # "" holes modelled | "instance" / "type": a HoleDiameter property
 
 
 def gid(name: str) -> str:
@@ -472,6 +473,8 @@ class Frame:
             self.assign_material(el, "S355J2")
             return el
         el = w.root("IfcPlate", name, f"plate/{key}")
+        if self.opt.hole_property:
+            holes = ()  # the hole diameter is a property of the bolts instead
         pts = [w.pt2(p) for p in ((-width / 2, -height / 2), (width / 2, -height / 2),
                                    (width / 2, height / 2), (-width / 2, height / 2))]
         outer = f.createIfcPolyline(pts + [pts[0]])
@@ -533,6 +536,8 @@ class Frame:
         items = [w.extrusion(shank, length, np.eye(4)), w.extrusion(head, 0.65 * d, hm)]
         el.Representation = w.shape(items, "SweptSolid")
         self.place_part(el, m_world, parent)
+        if self.opt.hole_property:
+            self.hole_property(el, d)
         if self.opt.bolt_data_in_pset:
             pset = ifcopenshell.api.pset.add_pset(w.f, product=el, name="KLW_BoltData")
             ifcopenshell.api.pset.edit_pset(w.f, pset=pset, properties={
@@ -542,6 +547,35 @@ class Frame:
                 if rel.is_a("IfcRelDefinesByProperties"):
                     rel.GlobalId = gid(f"rdp/{el.GlobalId}")
         return el
+
+    def hole_property(self, el, d: float) -> None:
+        """A normal hole (d + 2, EN 1090-2) as a HoleDiameter property of the bolt or its type."""
+        w, f = self.w, self.w.f
+        value = f.create_entity("IfcPositiveLengthMeasure", w.L(d + 2.0))
+
+        def pset(key: str):
+            prop = f.createIfcPropertySingleValue("HoleDiameter", None, value, None)
+            return f.create_entity("IfcPropertySet", GlobalId=gid(f"holepset/{key}"),
+                                   OwnerHistory=w.history, Name="KLW_Hole",
+                                   HasProperties=[prop])
+
+        if self.opt.hole_property == "instance":
+            f.create_entity("IfcRelDefinesByProperties", GlobalId=gid(f"holerel/{el.GlobalId}"),
+                            OwnerHistory=w.history, RelatedObjects=[el],
+                            RelatingPropertyDefinition=pset(el.GlobalId))
+            return
+        types = self.__dict__.setdefault("_fastener_types", {})
+        t = types.get(d)
+        if t is None:
+            cls = ("IfcMechanicalFastenerType" if self.opt.fastener_class == "IfcMechanicalFastener"
+                   else "IfcFastenerType")
+            if self.opt.schema == "IFC2X3":
+                cls = "IfcMechanicalFastenerType"
+            t = types[d] = f.create_entity(
+                cls, GlobalId=gid(f"ftype/{d:g}"), OwnerHistory=w.history, Name=f"M{d:g} bolt",
+                HasPropertySets=[pset(f"type/{d:g}")])
+        f.create_entity("IfcRelDefinesByType", GlobalId=gid(f"typerel/{el.GlobalId}"),
+                        OwnerHistory=w.history, RelatedObjects=[el], RelatingType=t)
 
     def bolts_at(self, mats, d: float, length: float, parent) -> list:
         """Bolts at the given head frames: one element each, or one group element."""

@@ -25,6 +25,7 @@ from ifcjoint.anatomy.read import (
     section_of,
     tstub_geometry,
     unsupported_parts,
+    unusable_values,
 )
 from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
 from ifcjoint.catalogue.sections import ISection
@@ -147,6 +148,7 @@ def analyse_joint(
     csec = section_of(col, findings, unread, "column")
     bgrade = _grade(beam, "beam", st, findings, assumed)
     cgrade = _grade(col, "column", st, findings, assumed)
+    unusable_values(j, plates, fasteners, findings)
     stiff, web_plates = column_plates(j, fr, plates, col)
     role = _main_role(j)
     main = None
@@ -158,7 +160,7 @@ def analyse_joint(
     bolt_r = None
     if bolt_list:
         bolt_r = read_bolts(
-            bolt_list, fr, main, findings, unread, st.assume_bolt_class, assumed
+            bolt_list, fr, main, findings, unread, st.assume_bolt_class, assumed, role
         )
     if bolt_r is not None and plate_r is not None and role == PartRole.END_PLATE:
         bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))

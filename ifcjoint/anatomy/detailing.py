@@ -58,35 +58,60 @@ def detailing(
     _plate_edges(c)
     _spacings(c)
     _hole_clearance(c)
-    _symmetry(c)
     if p.role != PartRole.END_PLATE:
         return
+    _symmetry(c)  # about the beam web: an end plate's rows
     _plate_thickness(c)
     if csec is None or j.axis != Axis.MAJOR:
         return
     _column_flange(c, csec)
 
 
-def _plate_edges(c: _Bolted) -> None:
-    """End and edge distances on the plate (EN 1993-1-8 Table 3.3), bolts inside the outline."""
-    p, b, d0 = c.p, c.b, c.b.d0
+def _edge_findings(
+    c: _Bolted, per_bolt: list[tuple[float, str]], part: str, near_rule: str, els_head: tuple,
+    **detail,
+) -> None:
+    """One edge, bolt by bolt: bolts whose hole is not inside the part, and bolts too close.
+
+    Each bolt is measured; the bolts outside the part give one finding and the bolts inside
+    but too close another, each with the worst value and every bolt concerned, so one defect
+    never hides another.
+    """
+    d0 = c.b.d0
     emin = dt.e_min(d0)
-    vertical_load = p.role == PartRole.FIN_PLATE  # shear goes down the plate
-    e_top = b.rows[0].from_beam_top - p.top_from_beam_top
-    e_bot = p.bottom_from_beam_top - b.rows[-1].from_beam_top
-    if p.role == PartRole.FIN_PLATE:
-        # edges across the load: the plate's ends along the beam
-        xs = [x for r in b.rows for x in r.along]
-        e_side = min(min(x - p.along_min, p.along_max - x) for x in xs)
+    outside = [(e, g) for e, g in per_bolt if RULES["bolt_outside_" + part].broken(e, d0 / 2)]
+    close = [(e, g) for e, g in per_bolt
+             if (e, g) not in outside and RULES[near_rule].broken(e, emin)]
+    for group, rule, limit in ((outside, "bolt_outside_" + part, d0 / 2),
+                               (close, near_rule, emin)):
+        if group:
+            worst = min(e for e, _ in group)
+            bolts = tuple(dict.fromkeys(g for _, g in group))
+            c.out.append(RULES[rule].finding(worst, limit, (*els_head, *bolts),
+                                             count=len(bolts), part=part, **detail))
+
+
+def _plate_edges(c: _Bolted) -> None:
+    """End and edge distances on the plate (EN 1993-1-8 Table 3.3), bolts inside the outline.
+
+    Every bolt is measured against every edge it lies near: the top and bottom edges for the
+    first and last rows, the side edges (the ends along the beam for a fin plate) for all.
+    """
+    p, b = c.p, c.b
+    fin = p.role == PartRole.FIN_PLATE  # shear goes down the plate: e1 is vertical
+    top, bottom = b.rows[0], b.rows[-1]
+    vertical_rule = "end_distance" if fin else "edge_distance"
+    _edge_findings(c, [(top.from_beam_top - p.top_from_beam_top, g) for g in top.bolts],
+                   "plate", vertical_rule, (p.guid,), edge="top", row=1)
+    _edge_findings(c, [(p.bottom_from_beam_top - bottom.from_beam_top, g) for g in bottom.bolts],
+                   "plate", vertical_rule, (p.guid,), edge="bottom", row=len(b.rows))
+    if fin:  # edges across the load: the plate's ends along the beam
+        side = [(min(x - p.along_min, p.along_max - x), g)
+                for r in b.rows for x, g in zip(r.along, r.bolts, strict=True)]
     else:
-        lats = [y - p.lateral_centre for r in b.rows for y in r.lateral]
-        e_side = min(p.bp / 2 - abs(y) for y in lats)
-    rule = "end_distance" if vertical_load else "edge_distance"
-    els = (p.guid, *c.ids)
-    c.check(rule, e_top, emin, els, edge="top", row=1)
-    c.check(rule, e_bot, emin, els, edge="bottom", row=len(b.rows))
-    if not c.check("bolt_outside_plate", e_side, d0 / 2, els, part="plate"):
-        c.check("edge_distance", e_side, emin, els, edge="side")
+        side = [(p.bp / 2 - abs(y - p.lateral_centre), g)
+                for r in b.rows for y, g in zip(r.lateral, r.bolts, strict=True)]
+    _edge_findings(c, side, "plate", "edge_distance", (p.guid,), edge="side")
 
 
 def _spacings(c: _Bolted) -> None:
@@ -100,8 +125,15 @@ def _spacings(c: _Bolted) -> None:
 
 
 def _hole_clearance(c: _Bolted) -> None:
-    """Hole diameter against the bolt's (EN 1090-2 normal round holes)."""
-    d, hole = c.b.d, c.p.hole_d
+    """Hole diameter against the bolt's (EN 1090-2 normal round holes).
+
+    The plate's modelled holes, else a hole-diameter property of the bolts; an assumed hole
+    is not checked.
+    """
+    d = c.b.d
+    hole = c.p.hole_d
+    if hole is None and c.b.d0_source == "model (hole diameter property)":
+        hole = c.b.d0
     if d is None or hole is None:
         return
     clearance = hole - d
@@ -136,14 +168,13 @@ def _column_flange(c: _Bolted, csec: ISection) -> None:
     """The end plate on the column flange: width, bolts inside it, root radius, grip."""
     p, b, j = c.p, c.b, c.j
     d0, d = b.d0, b.d
-    emin = dt.e_min(d0)
     c.check("plate_wider_than_column_flange", p.bp, csec.b, (p.guid, j.column))
     col_lat = c.fr.column_lateral_offset()
     ys_col = [y + col_lat for r in b.rows for y in r.lateral]
-    e_col = min(csec.b / 2 - abs(y) for y in ys_col)
+    per_bolt = [(csec.b / 2 - abs(y + col_lat), g)
+                for r in b.rows for y, g in zip(r.lateral, r.bolts, strict=True)]
+    _edge_findings(c, per_bolt, "column_flange", "column_edge_distance", (j.column,))
     els = (j.column, *c.ids)
-    if not c.check("bolt_outside_column_flange", e_col, d0 / 2, els, part="column_flange"):
-        c.check("column_edge_distance", e_col, emin, els)
     if d is None:
         return
     clear = min(abs(y) for y in ys_col) - csec.tw / 2 - csec.r

@@ -188,13 +188,16 @@ def read_plate(p: Plate, role: PartRole, fr: JointFrame) -> PlateReading:
     ht = _plate_extent(p, fr.t)
     zc = float((fr.beam_top - c).dot(fr.n))  # plate centre below beam top
     gap = float((fr.face - c).dot(fr.t)) - ht  # column face minus plate's column-side face
-    holes = [h[1] for h in p.holes]
+    holes = [h[1] for h in p.holes if h[1] > 0]
     grade = grade_of(p.material, p.texts)
+    # a fin plate lies in the beam's vertical plane: its "width" is its length along the beam
+    # (its extent across is its thickness)
+    width = 2 * ht if role == PartRole.FIN_PLATE else 2 * hl
     return PlateReading(
         guid=p.guid,
         role=role,
         tp=p.thickness,
-        bp=2 * hl,
+        bp=width,
         hp=2 * hz,
         top_from_beam_top=zc - hz,
         bottom_from_beam_top=zc + hz,
@@ -207,22 +210,65 @@ def read_plate(p: Plate, role: PartRole, fr: JointFrame) -> PlateReading:
     )
 
 
+def _positive(x: float | None) -> float | None:
+    """A dimension if it is one (positive), else None (reported by ``unusable_values``)."""
+    return x if x is not None and x > 0 else None
+
+
+def unusable_values(
+    j: Joint, plates: dict[str, Plate], fasteners: dict[str, Fastener], out: list[Finding]
+) -> None:
+    """Dimensions read that cannot be right, each a finding naming its entity (never used).
+
+    Zero or negative bolt diameters and lengths, plate thicknesses and hole diameters.
+    """
+    rule = RULES["value_not_usable"]
+
+    def bad(what: str, value: float | None, guid: str) -> None:
+        if value is not None and value <= 0:
+            out.append(rule.finding(value, 0.0, (guid,), what=what, entity=guid))
+
+    for link in j.fasteners:
+        f = fasteners.get(link.guid)
+        if f is None or f.kind != "bolt":
+            continue
+        bad("bolt diameter", f.nominal_diameter, f.guid)
+        bad("bolt length", f.nominal_length, f.guid)
+        bad("hole diameter (property)", f.hole_diameter, f.guid)
+        if f.nominal_length is None:
+            bad("bolt length (body)", f.length, f.guid)
+    for link in j.plates:
+        p = plates.get(link.guid)
+        if p is None:
+            continue
+        bad("plate thickness", p.thickness, p.guid)
+        for _, d in p.holes:
+            if d <= 0:
+                bad("hole diameter (modelled)", d, p.guid)
+                break
+
+
 def bolt_size(fs: list[Fastener]) -> tuple[float | None, str, str | None, float | None]:
-    """Diameter (and where it came from), class and length of a group of bolts."""
+    """Diameter (and where it came from), class and length of a group of bolts.
+
+    Zero or negative values are not used (``unusable_values`` reports them).
+    """
     ds, cls, lens, src = [], None, [], ""
     for f in fs:
         spec = parse_bolt(*f.texts)
-        if f.nominal_diameter:
+        if _positive(f.nominal_diameter):
             ds.append(f.nominal_diameter)
             src = src or "model attribute or property"
         elif spec.d:
             ds.append(spec.d)
             src = src or "name"
-        elif f.diameter:
+        elif _positive(f.diameter):
             ds.append(round(f.diameter))
             src = src or "body radius"
         cls = cls or spec.bolt_class
-        lens.append(f.nominal_length or spec.length or f.length)
+        length = _positive(f.nominal_length) or spec.length or _positive(f.length)
+        if length is not None:
+            lens.append(length)
     d = float(np.median(ds)) if ds else None
     length = float(np.median(lens)) if lens else None
     return d, src or "not found", cls, length
@@ -285,8 +331,13 @@ def read_bolts(
     unread: list[str],
     assume_bolt_class: str | None = None,
     assumed: list[str] | None = None,
+    role: PartRole | None = None,
 ) -> BoltReading:
-    """Size, class, rows, gauge and pitches of the joint's bolts, where they cross the plate."""
+    """Size, class, rows, gauge and pitches of the joint's bolts, where they cross the plate.
+
+    The gauge is the spacing across the row: between the bolts either side of the web on an
+    end plate, between the bolt lines along the beam on a fin plate (``role``).
+    """
     d, d_src, cls, length = bolt_size(fs)
     if cls is None and assume_bolt_class:
         cls = assume_bolt_class
@@ -295,13 +346,20 @@ def read_bolts(
     elif cls is None:
         findings.append(RULES["bolt_class_missing"].finding(elements=tuple(f.guid for f in fs)))
     brows = bolt_rows(bolt_points(fs, fr, plate))
-    gauges = [r.lateral[-1] - r.lateral[0] for r in brows if len(r.lateral) == 2]
+    if role == PartRole.FIN_PLATE:  # bolt lines side by side along the beam
+        gauges = [max(r.along) - min(r.along) for r in brows if len(r.along) == 2]
+    else:
+        gauges = [r.lateral[-1] - r.lateral[0] for r in brows if len(r.lateral) == 2]
     gauge = float(np.median(gauges)) if gauges else None
     pitches = tuple(
         b.from_beam_top - a.from_beam_top for a, b in zip(brows, brows[1:], strict=False)
     )
-    if plate is not None and plate.holes:
-        d0, d0_src = float(np.median([h[1] for h in plate.holes])), "model (plate holes)"
+    modelled = [h[1] for h in plate.holes if h[1] > 0] if plate is not None else []
+    hole_props = [f.hole_diameter for f in fs if _positive(f.hole_diameter)]
+    if modelled:
+        d0, d0_src = float(np.median(modelled)), "model (plate holes)"
+    elif hole_props:
+        d0, d0_src = float(np.median(hole_props)), "model (hole diameter property)"
     elif d is not None:
         d0, d0_src = d + dt.normal_hole_clearance(d), "EN 1090-2 normal clearance (assumed)"
     else:

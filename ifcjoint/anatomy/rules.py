@@ -231,6 +231,12 @@ RULES: dict[str, Rule] = {
         fails_joint=True,
         source=(),
     ),
+    "value_not_usable": Rule(
+        code=FindingCode.VALUE_NOT_USABLE,
+        severity=_E,
+        basis="a length, diameter or thickness must be positive: the value read cannot be right",
+        bound="min",
+    ),
     "plate_without_bolts": Rule(
         code=FindingCode.PLATE_WITHOUT_BOLTS, severity=_E, basis="joint incomplete"
     ),

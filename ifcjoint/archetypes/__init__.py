@@ -20,7 +20,14 @@ from ifcjoint.archetypes.welded import Welded
 from ifcjoint.engine.results import CheckResult, not_checked
 from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.engine.verify import run_engine
-from ifcjoint.model.codes import Archetype, NotChecked, NotCheckedCode, Reason, ReasonCode
+from ifcjoint.model.codes import (
+    Archetype,
+    FindingCode,
+    NotChecked,
+    NotCheckedCode,
+    Reason,
+    ReasonCode,
+)
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
 
@@ -90,6 +97,12 @@ def run_joint(
         return r, r
     st = settings or CheckSettings()
     jt = joint_type(joint.archetype, registry)
+    unusable = next((f for f in a.findings if f.code == FindingCode.VALUE_NOT_USABLE), None)
+    if unusable is not None:  # a dimension that cannot be right: nothing is computed with it
+        r = not_checked(NotChecked(NotCheckedCode.VALUE_NOT_USABLE, {
+            "what": unusable.detail["what"], "entity": unusable.detail["entity"],
+            "value": unusable.measured}))
+        return r, r
     inp = jt.engine_input(joint, a, members, st)
     if isinstance(inp, NotChecked):
         r = not_checked(inp)

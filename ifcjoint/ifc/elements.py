@@ -25,6 +25,8 @@ from ifcjoint.model.elements import Fastener, Member, Plate, Progress, Unreadabl
 #: Property names (lower case, no spaces) read for bolt sizes.
 _SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
 _LENGTH_KEYS = ("nominallength", "boltlength", "length")
+_HOLE_KEYS = ("holediameter", "boltholediameter", "clearanceholediameter", "diameterofhole",
+              "clearancehole", "holesize")
 
 
 def _unit(v) -> np.ndarray:
@@ -460,8 +462,9 @@ class ElementReader:
         if el.is_a("IfcMechanicalFastener"):
             nd = self.ctx.att(el, "NominalDiameter")
             nl = self.ctx.att(el, "NominalLength")
-        nd = nd or self.lookups.number(el, _SIZE_KEYS)
-        nl = nl or self.lookups.number(el, _LENGTH_KEYS)
+        nd = nd if nd is not None else self.lookups.number(el, _SIZE_KEYS)
+        nl = nl if nl is not None else self.lookups.number(el, _LENGTH_KEYS)
+        hole = self.lookups.number(el, _HOLE_KEYS)
         mat, _ = self.lookups.material(el)
         self.fasteners.append(
             Fastener(
@@ -474,8 +477,9 @@ class ElementReader:
                 length=float(length),
                 diameter=float(dia),
                 geometry_source=source,
-                nominal_diameter=float(nd) * self.s if nd else None,
-                nominal_length=float(nl) * self.s if nl else None,
+                nominal_diameter=float(nd) * self.s if nd is not None else None,
+                nominal_length=float(nl) * self.s if nl is not None else None,
+                hole_diameter=float(hole) * self.s if hole is not None else None,
                 texts=self.lookups.all_texts(el, mat),
                 shanks=shanks,
             )

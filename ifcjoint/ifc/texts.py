@@ -38,6 +38,13 @@ INTERESTING_PROPERTIES = frozenset(
         "standard",
         "boltstandard",
         "description",
+        # hole diameters when holes are not modelled
+        "holediameter",
+        "boltholediameter",
+        "holesize",
+        "diameterofhole",
+        "clearancehole",
+        "clearanceholediameter",
     }
 )
 
@@ -71,19 +78,19 @@ class ElementTexts:
                         self.material_of.setdefault(el.id(), m)
         self._text_cache: dict[int, tuple[str, str]] = {}
         self._texts_cache: dict[int, dict[str, str]] = {}
-        # Designation-like single-value properties, read once for every element.
+        # Designation-like single-value properties, read once for every element: its type's
+        # property sets first, then its own (which win).
         self.props: dict[int, dict[str, object]] = {}
-        for rel in f.by_type("IfcRelDefinesByProperties"):
-            pset = rel.RelatingPropertyDefinition
-            if pset is None or not pset.is_a("IfcPropertySet"):
-                continue
+        for rel in f.by_type("IfcRelDefinesByType"):
+            t = rel.RelatingType
             found = {}
-            for p in pset.HasProperties or ():
-                if not p.is_a("IfcPropertySingleValue") or p.NominalValue is None:
-                    continue
-                key = p.Name.replace(" ", "").lower()
-                if key in INTERESTING_PROPERTIES:
-                    found[key] = p.NominalValue.wrappedValue
+            for pset in (getattr(t, "HasPropertySets", None) or ()) if t is not None else ():
+                found.update(_interesting(pset))
+            if found:
+                for el in rel.RelatedObjects:
+                    self.props.setdefault(el.id(), {}).update(found)
+        for rel in f.by_type("IfcRelDefinesByProperties"):
+            found = _interesting(rel.RelatingPropertyDefinition)
             if found:
                 for el in rel.RelatedObjects:
                     self.props.setdefault(el.id(), {}).update(found)
@@ -126,11 +133,15 @@ class ElementTexts:
         return tuple(dict.fromkeys(x for x in out if x))
 
     def number(self, el, keys: tuple[str, ...]) -> float | None:
-        """First numeric property among ``keys`` (model length units), or None."""
+        """First numeric property among ``keys`` (model length units), or None.
+
+        A zero or negative value is returned as it is: the caller reports it as a value that
+        cannot be used (never dropped silently).
+        """
         props = self.props.get(el.id(), {})
         for k in keys:
             v = props.get(k)
-            if isinstance(v, (int, float)) and v > 0:
+            if isinstance(v, (int, float)) and not isinstance(v, bool):
                 return float(v)
         return None
 
@@ -143,6 +154,20 @@ class ElementTexts:
         if hit is None:
             hit = self._text_cache[mat.id()] = _material_text(mat)
         return hit
+
+
+def _interesting(pset) -> dict[str, object]:
+    """The single values of a property set whose names ifcjoint reads (lower case, no spaces)."""
+    if pset is None or not pset.is_a("IfcPropertySet"):
+        return {}
+    found = {}
+    for p in pset.HasProperties or ():
+        if not p.is_a("IfcPropertySingleValue") or p.NominalValue is None:
+            continue
+        key = p.Name.replace(" ", "").replace("_", "").lower()
+        if key in INTERESTING_PROPERTIES:
+            found[key] = p.NominalValue.wrappedValue
+    return found
 
 
 def _material_text(mat) -> tuple[str, str]:

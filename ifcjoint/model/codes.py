@@ -159,6 +159,7 @@ class FindingCode(StrEnum):
     HOLE_ON_ROOT_RADIUS = "hole_on_root_radius"
     NO_SPANNER_ROOM = "no_spanner_room"
     BOLT_TOO_SHORT = "bolt_too_short"
+    VALUE_NOT_USABLE = "value_not_usable"  # a dimension that cannot be right (zero, negative)
 
 
 class ProblemKind(StrEnum):
@@ -201,6 +202,7 @@ class NotCheckedCode(StrEnum):
     NO_TENSION_ROWS = "no_tension_rows"  # a moment sign with no bolt row in its tension zone
     BEARING_OUT_OF_RANGE = "bearing_out_of_range"  # Table 3.4 used outside Table 3.3's limits
     CLASS_4_BEAM = "class_4_beam"  # M_c,Rd needs the effective section (EN 1993-1-5)
+    VALUE_NOT_USABLE = "unusable_value"  # a dimension read that cannot be right
 
     @property
     def status(self) -> Status:
@@ -216,6 +218,7 @@ _NOT_CHECKED_STATUS = {
     NotCheckedCode.NO_TENSILE_AREA: Status.UNREADABLE,
     NotCheckedCode.SECTION_DIMENSIONS_MISSING: Status.UNREADABLE,
     NotCheckedCode.NO_DEMANDS: Status.NO_DEMANDS,
+    NotCheckedCode.VALUE_NOT_USABLE: Status.UNREADABLE,
 }
 
 

@@ -65,14 +65,37 @@ def _dim(x1, y1, x2, y2, label, colour, size, vertical) -> list[str]:
     return out
 
 
+def _fin_plate_as_seen(pl: dict, bo: dict | None) -> tuple[dict, dict | None]:
+    """A fin plate seen from the side of the beam, centred on the plate.
+
+    Its length along the beam runs across the page; the bolts sit at their positions along it.
+    """
+    lo, hi = pl.get("along_min"), pl.get("along_max")
+    if lo is None or hi is None:
+        return pl, bo
+    mid = (lo + hi) / 2
+    rows = [{**r, "lateral": [x - mid for x in r.get("along") or []]}
+            for r in (bo or {}).get("rows") or []]
+    return {**pl, "bp": hi - lo}, ({**bo, "rows": rows} if bo else None)
+
+
 def plate_svg(joint: dict) -> str | None:
-    """The end plate of one joint (scan JSON joint with its ``anatomy``), or None if no plate."""
+    """The main plate of one joint (scan JSON joint with its ``anatomy``), or None if none.
+
+    An end plate is seen from the column (the beam's section dashed behind it); a fin plate
+    from the side of the beam (its length along the beam across, the beam's flanges dashed).
+    """
     a = joint.get("anatomy") or {}
     pl, bo, sec = a.get("plate"), a.get("bolts"), a.get("beam_section")
     if not pl or not sec or not pl.get("bp") or not pl.get("hp"):
         return None
+    fin = pl.get("role") == "fin_plate"
+    if fin:
+        pl, bo = _fin_plate_as_seen(pl, bo)
     bp, hp, top = pl["bp"], pl["hp"], pl.get("projection_top") or 0.0
     h, b, tw, tf = sec["h"], sec["b"], sec["tw"], sec["tf"]
+    if fin:  # seen from the side the beam is as wide as the page shows, its web hidden
+        b, tw = bp * 1.6, 0.0
     flagged: dict[str, list[str]] = {}
     for f in joint.get("findings") or []:
         for key in FINDING_DIMENSIONS.get(f.get("code"), ()):
@@ -93,7 +116,8 @@ def plate_svg(joint: dict) -> str | None:
         f'<svg xmlns="http://www.w3.org/2000/svg" class="plate" role="img" '
         f'viewBox="{x0:.1f} {y0:.1f} {width:.1f} {height:.1f}" width="360" '
         f'height="{360 * height / width:.0f}">',
-        f"<title>End plate {escape(str(pl.get('guid', '')))}: {bp:.0f} x {hp:.0f} x "
+        f"<title>{'Fin' if fin else 'End'} plate {escape(str(pl.get('guid', '')))}: "
+        f"{bp:.0f} x {hp:.0f} x "
         f"{pl.get('tp', 0):.0f} mm</title>",
         f'<rect x="{-bp / 2:.1f}" y="{-top:.1f}" width="{bp:.1f}" height="{hp:.1f}" '
         f'fill="{PLATE}" stroke="{EDGE}" stroke-width="1.6" vector-effect="non-scaling-stroke"/>',
@@ -104,10 +128,12 @@ def plate_svg(joint: dict) -> str | None:
             f'<rect x="{-b / 2:.1f}" y="{yy:.1f}" width="{b:.1f}" height="{tf:.1f}" fill="none" '
             f'stroke="{BEAM}" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>'
         )
-    parts.append(
-        f'<rect x="{-tw / 2:.1f}" y="{tf:.1f}" width="{tw:.1f}" height="{h - 2 * tf:.1f}" '
-        f'fill="none" stroke="{BEAM}" stroke-dasharray="4 3" vector-effect="non-scaling-stroke"/>'
-    )
+    if tw > 0:
+        parts.append(
+            f'<rect x="{-tw / 2:.1f}" y="{tf:.1f}" width="{tw:.1f}" '
+            f'height="{h - 2 * tf:.1f}" fill="none" stroke="{BEAM}" stroke-dasharray="4 3" '
+            'vector-effect="non-scaling-stroke"/>'
+        )
     rows = (bo or {}).get("rows") or []
     d0 = (bo or {}).get("d0") or pl.get("hole_d") or 0.0
     for r in rows:

@@ -81,6 +81,8 @@ def anatomy_dict(j: Joint, a: JointAnatomy) -> dict:
                 _r(p.projection_bottom(a.beam_section.h)) if a.beam_section else None
             ),
             "gap_to_column": _r(p.gap_to_column),
+            "along_min": _r(p.along_min),
+            "along_max": _r(p.along_max),
             "hole_d": p.hole_d,
             "grade": p.grade,
         },
@@ -102,6 +104,7 @@ def anatomy_dict(j: Joint, a: JointAnatomy) -> dict:
                     "index": r.index,
                     "from_beam_top": _r(r.from_beam_top),
                     "lateral": [_r(x) for x in r.lateral],
+                    "along": [_r(x) for x in r.along],
                     "bolts": list(r.bolts),
                 }
                 for r in b.rows

@@ -82,6 +82,10 @@ REASONS: dict[ReasonCode, Words] = {
 #: Why something was not checked (or classified).
 NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.NO_ANATOMY: lambda v: "no anatomy for this joint",
+    NotCheckedCode.VALUE_NOT_USABLE: lambda v: (
+        f"{v['what']} of {v['entity']} is {v['value']:g} mm, which cannot be right "
+        "(a dimension must be positive)"
+    ),
     NotCheckedCode.DATA_NOT_READ: lambda v: (
         "not read from the model: " + ", ".join(v["missing"])
     ),
@@ -242,19 +246,26 @@ NOTES: dict[NoteCode, Words] = {
 }
 
 
+def _bolts(v: Mapping[str, Any]) -> str:
+    n = v.get("count")
+    return "" if n is None else (f" ({n} bolt)" if n == 1 else f" ({n} bolts)")
+
+
 def _edge(v: Mapping[str, Any], m: float, lim: float) -> str:
     if v["edge"] == "side":
-        return f"bolts are {m:.0f} mm from the plate's side edge (min {lim:.1f})"
-    return f"bolt row {v['row']} is {m:.0f} mm from the plate's {v['edge']} edge (min {lim:.1f})"
+        return f"bolts are {m:.0f} mm from the plate's side edge (min {lim:.1f}){_bolts(v)}"
+    return (f"bolt row {v['row']} is {m:.0f} mm from the plate's {v['edge']} edge "
+            f"(min {lim:.1f}){_bolts(v)}")
 
 
 def _outside(v: Mapping[str, Any], m: float, lim: float) -> str:
     if v["part"] == "column_flange":
         return (
             f"a bolt axis lies {m:.0f} mm from the column flange tip: the hole is not inside "
-            "the flange"
+            f"the flange{_bolts(v)}"
         )
-    return f"a bolt axis lies {m:.0f} mm from the plate's edge: the hole is not inside the plate"
+    return (f"a bolt axis lies {m:.0f} mm from the plate's edge: the hole is not inside the "
+            f"plate{_bolts(v)}")
 
 
 def _rows(v: Mapping[str, Any]) -> str:
@@ -312,13 +323,17 @@ FINDINGS: dict[FindingCode, FindingWords] = {
         f"end plate {m:.0f} mm wide on a {lim:.0f} mm column flange"
     ),
     FindingCode.COLUMN_EDGE_DISTANCE_MIN: lambda v, m, lim: (
-        f"bolts are {m:.0f} mm from the column flange tip (min {lim:.1f})"
+        f"bolts are {m:.0f} mm from the column flange tip (min {lim:.1f}){_bolts(v)}"
     ),
     FindingCode.HOLE_ON_ROOT_RADIUS: lambda v, m, lim: (
         f"hole edge reaches the column root radius (bolt centre {m:.0f} mm from it)"
     ),
     FindingCode.NO_SPANNER_ROOM: lambda v, m, lim: (
         f"bolt centre {m:.0f} mm from the root radius: no room for the nut and washer"
+    ),
+    FindingCode.VALUE_NOT_USABLE: lambda v, m, lim: (
+        f"{v['what']} of {v['entity']} is {m:g} mm: a dimension must be positive, the value "
+        "is not used and the joint is not checked"
     ),
     FindingCode.BOLT_TOO_SHORT: lambda v, m, lim: (
         f"{v['count']} bolt(s) {m:.0f} mm long for a {v['grip']:.0f} mm grip (need {lim:.0f})"

@@ -10,7 +10,7 @@ common-practice rules stated in ifcjoint/ec3/detailing.py.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import pytest
 
@@ -38,7 +38,7 @@ TOP = 4000.0
 def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160.0, 340.0),
           offsets=(-50.0, 50.0), d=20.0, length=70.0, bolt_text="BOLT M20x70 8.8",
           hole=22.0, gap=0.0, beam_y=0.0, beam_tf=13.5, beam_material="S355J2",
-          with_bolts=True, with_plate=True, modelled_holes=True):
+          with_bolts=True, with_plate=True, modelled_holes=True, bolt_kw=None):
     col = Member(guid="COL", ifc_class="IfcColumn", name="C", kind="column",
                  start=(0.0, 0.0, 0.0), end=(0.0, 0.0, 8000.0), depth_dir=(1.0, 0, 0),
                  width_dir=(0, -1.0, 0), depth=260, width=260, web_thickness=10,
@@ -62,7 +62,8 @@ def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160
                     holes=holes)] if with_plate else []
     bolts = [Fastener(guid=f"BT{i}{k}", ifc_class="IfcMechanicalFastener", name=bolt_text,
                       kind="bolt", center=(xp, beam_y + o, TOP - r), axis=(1.0, 0, 0),
-                      length=length, diameter=d, nominal_diameter=None, nominal_length=None,
+                      length=length, diameter=d, **{"nominal_diameter": None,
+                                                    "nominal_length": None, **(bolt_kw or {})},
                       texts=(bolt_text,))
              for i, r in enumerate(rows) for k, o in enumerate(offsets)] if with_bolts else []
     m = ModelContents(path="mem", schema="TEST", length_unit_to_mm=1.0, members=(col, beam),
@@ -189,3 +190,49 @@ def test_tstub_geometry_of_the_clean_joint():
 def test_hole_outside_the_plate_is_its_own_finding():
     a = build(offsets=(-95.0, 95.0))  # 5 mm from a 200 mm plate's edge, d0/2 = 11
     assert "bolt_outside_outline" in codes(a) and "edge_distance_min" not in codes(a)
+
+
+def test_every_bolt_is_measured_so_one_defect_never_hides_another():
+    # Left bolts 120 mm off the plate's centre (outside a 200 mm plate), right bolts 85 mm
+    # (15 mm from the edge, below e2 >= 1.2 d0 = 26.4 mm, EN 1993-1-8 Table 3.3): both found,
+    # each naming its own bolts.
+    a = build(offsets=(-120.0, 85.0))
+    (out,) = [f for f in a.findings if f.code == "bolt_outside_outline"
+              and f.detail["part"] == "plate"]
+    (close,) = [f for f in a.findings if f.code == "edge_distance_min"
+                and f.detail["edge"] == "side"]
+    assert out.measured == pytest.approx(-20) and out.detail["count"] == 4
+    assert close.measured == pytest.approx(15) and close.detail["count"] == 4
+    assert not set(out.elements[1:]) & set(close.elements[1:])  # different bolts
+    assert out.fails_joint and close.fails_joint
+
+
+def test_values_that_cannot_be_right_are_named_and_the_joint_is_unreadable():
+    # A bolt diameter of -20 mm or a plate 0 mm thick is not a dimension: a finding names the
+    # entity, the value is never used (no "M-20" anywhere), the joint is not checked.
+    from ifcjoint.archetypes import run_joint
+    from ifcjoint.model.codes import NotCheckedCode, Status
+
+    a = build(bolt_kw={"nominal_diameter": -20.0}, bolt_text="BOLT 8.8")
+    bad = [f for f in a.findings if f.code == "value_not_usable"]
+    assert bad and bad[0].detail["what"] == "bolt diameter"
+    assert bad[0].detail["entity"].startswith("BT") and bad[0].measured == -20.0
+    assert a.bolts.d != -20.0
+    j, m = _LAST
+    joint = replace(j[0], archetype=a.archetype, archetype_reason=a.reason)
+    _, r = run_joint(joint, a.a, {x.guid: x for x in m.members})
+    assert r.not_checked.code == NotCheckedCode.VALUE_NOT_USABLE
+    assert r.not_checked.status == Status.UNREADABLE
+    from ifcjoint.report.words import coded, finding_message
+    assert "M-20" not in finding_message(bad[0]) and "-20" in coded(r.not_checked)
+
+
+def test_hole_diameter_from_a_property_when_holes_are_not_modelled():
+    # 26 mm holes for M20 bolts: clearance 6 mm against the normal 2 mm of EN 1090-2 Table 11
+    # (from memory): an error that fails the joint.
+    a = build(modelled_holes=False, bolt_kw={"hole_diameter": 26.0})
+    assert a.bolts.d0 == 26.0 and "property" in a.bolts.d0_source
+    (f,) = [f for f in a.findings if f.code == "hole_clearance"]
+    assert f.measured == pytest.approx(6.0) and f.fails_joint
+    ok = build(modelled_holes=False, bolt_kw={"hole_diameter": 22.0})
+    assert "hole_clearance" not in codes(ok) and ok.bolts.d0 == 22.0
