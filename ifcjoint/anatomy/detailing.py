@@ -10,6 +10,7 @@ from dataclasses import dataclass
 from ifcjoint.anatomy.frame import JointFrame
 from ifcjoint.anatomy.read import BoltReading, PlateReading
 from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
+from ifcjoint.catalogue.plates import nearest_stock_thickness
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import detailing as dt
 from ifcjoint.model.codes import Axis, PartRole
@@ -58,6 +59,7 @@ def detailing(
     _plate_edges(c)
     _spacings(c)
     _hole_clearance(c)
+    _stock_thickness(c)
     if p.role != PartRole.END_PLATE:
         return
     _symmetry(c)  # about the beam web: an end plate's rows
@@ -141,6 +143,15 @@ def _hole_clearance(c: _Bolted) -> None:
     rule = RULES["hole_clearance"]
     if rule.outside(clearance, 0.5, want + 0.5):
         c.out.append(rule.finding(clearance, want, (c.p.guid,), hole=hole, d=d))
+
+
+def _stock_thickness(c: _Bolted) -> None:
+    """A connection plate of a thickness plate is not stocked in (``catalogue.plates``)."""
+    tp = c.p.tp
+    if tp <= 0:
+        return  # not a dimension: reported as a value that cannot be used
+    near = nearest_stock_thickness(tp)
+    c.check("plate_thickness_stock", abs(tp - near), 0.0, (c.p.guid,), tp=tp, nearest=near)
 
 
 def _symmetry(c: _Bolted) -> None:

@@ -182,6 +182,14 @@ RULES: dict[str, Rule] = {
         basis="common practice rule of thumb: 0.5 d <= tp <= 1.5 d",
         bound="range",
     ),
+    "plate_thickness_stock": Rule(
+        code=FindingCode.PLATE_THICKNESS_NOT_STOCK,
+        severity=_W,
+        basis="common practice: thicknesses plate merchants stock (metric and inch; "
+        "ifcjoint/catalogue/plates.py, from memory), 0.2 mm round-off",
+        bound="max",
+        tolerance=0.2,
+    ),
     "plate_wider_than_column_flange": Rule(
         code=FindingCode.PLATE_WIDER_THAN_COLUMN_FLANGE,
         severity=_W,

@@ -23,11 +23,42 @@ def _header(raw: bytes) -> str:
     return raw[:8192].decode("latin-1", errors="replace")
 
 
-def open_model(path: str | Path) -> tuple[ifcopenshell.file, str]:
+_NON_ASCII = re.compile(r"[^\x00-\x7f]+")
+
+
+def _step_escape(run: str) -> str:
+    """Characters as ISO 10303-21 writes them: \\X2\\hhhh\\X0\\ (\\X4\\ beyond 16 bits)."""
+    if all(ord(c) <= 0xFFFF for c in run):
+        return "\\X2\\" + "".join(f"{ord(c):04X}" for c in run) + "\\X0\\"
+    return "\\X4\\" + "".join(f"{ord(c):08X}" for c in run) + "\\X0\\"
+
+
+def encode_raw_text(raw: bytes) -> tuple[str | None, str | None]:
+    """A file with raw non-ASCII bytes, re-encoded as ISO 10303-21 requires, and the note.
+
+    ISO 10303-21 allows only ASCII in a file; characters beyond it are written as \\X\\,
+    \\X2\\ or \\X4\\ escapes, which the parser decodes. Exporters that write raw bytes
+    instead (common) would lose those characters silently: the bytes are read as UTF-8 when
+    they are valid UTF-8, else as Latin-1, and escaped. Returns (None, None) for an ASCII file.
+    """
+    if raw.isascii():
+        return None, None
+    try:
+        text, enc = raw.decode("utf-8"), "UTF-8"
+    except UnicodeDecodeError:
+        text, enc = raw.decode("latin-1"), "Latin-1"
+    n = len(_NON_ASCII.findall(text))
+    note = (f"{n} run(s) of raw non-ASCII characters (not allowed by ISO 10303-21) read as "
+            f"{enc}; check names and grades that hold them")
+    return _NON_ASCII.sub(lambda m: _step_escape(m.group(0)), text), note
+
+
+def open_model(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...]]:
     """Open an IFC-SPF file or an ifczip, checking it is whole and of a supported schema.
 
     Returns:
-        The opened file and the SHA-256 of the bytes on disk.
+        The opened file, the SHA-256 of the bytes on disk, and notes on how it was read
+        (raw non-ASCII bytes decoded, see ``encode_raw_text``).
 
     Raises:
         ModelError: missing, unreadable, not IFC, truncated, or an unsupported schema.
@@ -80,8 +111,12 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str]:
                 "file is truncated (no END-ISO-10303-21; at its end)",
                 "a complete IFC file",
             )
+        text, note = encode_raw_text(raw)
         try:
-            f = ifcopenshell.open(str(spf), format=".ifc")
+            if text is None:
+                f = ifcopenshell.open(str(spf), format=".ifc")
+            else:
+                f = ifcopenshell.file.from_string(text)
         except Exception as exc:  # the parser raises several kinds
             raise ModelError(str(path), f"the IFC parser rejected the file: {exc}") from exc
-    return f, sha
+    return f, sha, (note,) if note else ()

@@ -56,7 +56,7 @@ def read_model(
         ModelError: the file cannot be used (see :func:`open_model`), or it has no length unit.
     """
     rules = rules or load_rules()
-    f, sha = open_model(path)
+    f, sha, open_notes = open_model(path)
     scale, unit_source = length_scale_to_mm(f, str(path), assume_length_unit)
     ctx = ReadContext(f)
     r = ElementReader(ctx, scale, rules)
@@ -66,6 +66,7 @@ def read_model(
     part_ids = {p.guid for p in r.plates} | {x.guid for x in r.fasteners}
     links = part_links(f, member_ids, part_ids)
     counts, notes = _counts_and_notes(r, found)
+    notes = [*open_notes, *notes]
     return ModelContents(
         path=str(path),
         schema=ctx.schema,

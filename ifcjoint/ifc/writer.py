@@ -148,7 +148,7 @@ def write_property_sets(
             f"{out}: this is the input model; give another --ifc-out path (or --in-place to "
             "overwrite it on purpose)"
         )
-    f, _ = open_model(src)
+    f, _, _ = open_model(src)
     units = _Units(f)
     counts = {"beams": 0, "assemblies": 0, "missing": 0}
     seen_assemblies: set[str] = set()

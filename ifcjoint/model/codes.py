@@ -154,6 +154,7 @@ class FindingCode(StrEnum):
     HOLE_CLEARANCE = "hole_clearance"
     BOLT_PATTERN_ASYMMETRIC = "bolt_pattern_asymmetric"
     PLATE_THICKNESS_IMPLAUSIBLE = "plate_thickness_implausible"
+    PLATE_THICKNESS_NOT_STOCK = "plate_thickness_not_stock"
     PLATE_WIDER_THAN_COLUMN_FLANGE = "plate_wider_than_column_flange"
     COLUMN_EDGE_DISTANCE_MIN = "column_edge_distance_min"
     HOLE_ON_ROOT_RADIUS = "hole_on_root_radius"

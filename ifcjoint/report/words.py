@@ -319,6 +319,9 @@ FINDINGS: dict[FindingCode, FindingWords] = {
     FindingCode.PLATE_THICKNESS_IMPLAUSIBLE: lambda v, m, lim: (
         f"{m:.0f} mm end plate with M{v['d']:.0f} bolts"
     ),
+    FindingCode.PLATE_THICKNESS_NOT_STOCK: lambda v, m, lim: (
+        f"plate {v['tp']:g} mm thick: not a stock thickness (nearest {v['nearest']:g} mm)"
+    ),
     FindingCode.PLATE_WIDER_THAN_COLUMN_FLANGE: lambda v, m, lim: (
         f"end plate {m:.0f} mm wide on a {lim:.0f} mm column flange"
     ),

@@ -236,3 +236,14 @@ def test_hole_diameter_from_a_property_when_holes_are_not_modelled():
     assert f.measured == pytest.approx(6.0) and f.fails_joint
     ok = build(modelled_holes=False, bolt_kw={"hole_diameter": 22.0})
     assert "hole_clearance" not in codes(ok) and ok.bolts.d0 == 22.0
+
+
+def test_plate_thickness_not_rolled_is_a_warning():
+    # 17 mm is neither a metric stock thickness nor an inch one; 20 mm, 25 mm and 3/4 in
+    # (19.05 mm) are (common practice stock lists, from memory: ifcjoint/catalogue/plates.py).
+    odd = build(tp=17.0)
+    (f,) = [f for f in odd.findings if f.code == "plate_thickness_not_stock"]
+    assert f.severity == "warning" and not f.fails_joint
+    assert f.detail["nearest"] in (15.0, 18.0)
+    for tp in (20.0, 19.05, 25.0):
+        assert "plate_thickness_not_stock" not in codes(build(tp=tp))
