@@ -56,6 +56,7 @@ def detailing(
     if b.d0 is None:
         return
     c = _Bolted(j=j, fr=fr, p=p, b=b, fs=fs, csec=csec, out=out)
+    _off_hole(c)
     _plate_edges(c)
     _spacings(c)
     _hole_clearance(c)
@@ -67,6 +68,16 @@ def detailing(
     if csec is None or j.axis != Axis.MAJOR:
         return
     _column_flange(c, csec)
+
+
+def _off_hole(c: _Bolted) -> None:
+    """Bolts that pass through plate material instead of a modelled hole (left out of rows)."""
+    if not c.b.off_hole:
+        return
+    worst = max(c.b.off_hole, key=lambda m: m[1])
+    bolts = tuple(m[0] for m in c.b.off_hole)
+    c.out.append(RULES["bolt_off_hole"].finding(
+        worst[1], worst[2] / 2, (c.p.guid, *bolts), count=len(bolts), hole=worst[2]))
 
 
 def _edge_findings(

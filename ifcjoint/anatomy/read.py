@@ -80,6 +80,7 @@ class BoltReading:
     gauge: float | None
     pitches: tuple[float, ...]
     tstub: dict | None = None  # T-stub geometry, see tstub_geometry()
+    off_hole: tuple[tuple[str, float, float], ...] = ()  # (bolt, distance, hole d) missing
 
 
 def section_of(m: Member, findings: list[Finding], unread: list[str], who: str) -> ISection | None:
@@ -279,9 +280,36 @@ def bolt_size(fs: list[Fastener]) -> tuple[float | None, str, str | None, float 
 BoltPoint = tuple[float, float, str, float]
 
 
-def bolt_points(fs: list[Fastener], fr: JointFrame, plate: Plate | None) -> list[BoltPoint]:
-    """Where each bolt's axis crosses the plate (its centre without a plate), per shank."""
-    pts = []
+def off_hole(c: np.ndarray, plate: Plate) -> tuple[float, float] | None:
+    """Whether a bolt axis crossing the plate at c misses every modelled hole.
+
+    Returns (distance to the nearest hole's centre, its diameter) when it passes through
+    plate material, else None. Common practice, no source: the axis must lie within the
+    hole's circle (a bolt in a clearance hole is off centre by at most the clearance).
+    """
+    if not plate.holes:
+        return None
+    nrm = np.array(plate.normal)
+    best = None
+    for centre, d in plate.holes:
+        v = np.array(centre) - c
+        dist = float(np.linalg.norm(v - nrm * v.dot(nrm)))
+        if best is None or dist < best[0]:
+            best = (dist, d)
+    return best if best[0] > best[1] / 2 else None
+
+
+def bolt_points(
+    fs: list[Fastener], fr: JointFrame, plate: Plate | None,
+    missed: list[tuple[str, float, float]] | None = None,
+) -> list[BoltPoint]:
+    """Where each bolt's axis crosses the plate (its centre without a plate), per shank.
+
+    A bolt that misses every modelled hole of the plate is left out of the points (it would
+    make a false row or pitch) and put in ``missed`` as (id, distance, hole diameter), unless
+    every bolt misses (then the holes are what is off, and all are kept and listed).
+    """
+    pts, misses = [], []
     for f in fs:
         # a bolt group exported as one element counts once per shank
         centres = f.shanks or (f.center,)
@@ -296,8 +324,14 @@ def bolt_points(fs: list[Fastener], fr: JointFrame, plate: Plate | None) -> list
             z = float((fr.beam_top - c).dot(fr.n))
             y = float((c - fr.face).dot(fr.lat))
             x = float((c - fr.face).dot(fr.t))
-            pts.append((z, y, f"{f.guid}[{k}]" if f.shanks else f.guid, x))
-    return pts
+            name = f"{f.guid}[{k}]" if f.shanks else f.guid
+            miss = off_hole(c, plate) if plate is not None else None
+            (misses if miss else pts).append(((z, y, name, x), miss))
+    if missed is not None:
+        missed.extend((q[2], m[0], m[1]) for q, m in misses)
+    if not pts:  # every bolt misses: keep them all (the holes, not the bolts, are off)
+        return [q for q, _ in misses]
+    return [q for q, _ in pts]
 
 
 def bolt_rows(pts: list[BoltPoint]) -> list[BoltRow]:
@@ -345,7 +379,8 @@ def read_bolts(
             assumed.append(f"bolt class {cls} (user setting; none in model)")
     elif cls is None:
         findings.append(RULES["bolt_class_missing"].finding(elements=tuple(f.guid for f in fs)))
-    brows = bolt_rows(bolt_points(fs, fr, plate))
+    missed: list[tuple[str, float, float]] = []
+    brows = bolt_rows(bolt_points(fs, fr, plate, missed))
     if role == PartRole.FIN_PLATE:  # bolt lines side by side along the beam
         gauges = [max(r.along) - min(r.along) for r in brows if len(r.along) == 2]
     else:
@@ -376,6 +411,7 @@ def read_bolts(
         rows=tuple(brows),
         gauge=gauge,
         pitches=pitches,
+        off_hole=tuple(missed),
     )
 
 

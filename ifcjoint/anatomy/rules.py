@@ -137,6 +137,13 @@ RULES: dict[str, Rule] = {
         fails_joint=True,
         source=(),
     ),
+    "bolt_off_hole": Rule(
+        code=FindingCode.BOLT_OFF_HOLE,
+        severity=_E,
+        basis="the bolt must pass through a hole: its axis within a modelled hole's circle",
+        bound="max",
+        fails_joint=True,
+    ),
     "pitch_min": Rule(
         code=FindingCode.PITCH_MIN,
         severity=_E,

@@ -27,17 +27,17 @@ _NON_ASCII = re.compile(r"[^\x00-\x7f]+")
 
 
 def _step_escape(run: str) -> str:
-    """Characters as ISO 10303-21 writes them: \\X2\\hhhh\\X0\\ (\\X4\\ beyond 16 bits)."""
+    r"""Characters as ISO 10303-21 writes them: \X2\hhhh\X0\ (\X4\ beyond 16 bits)."""
     if all(ord(c) <= 0xFFFF for c in run):
         return "\\X2\\" + "".join(f"{ord(c):04X}" for c in run) + "\\X0\\"
     return "\\X4\\" + "".join(f"{ord(c):08X}" for c in run) + "\\X0\\"
 
 
 def encode_raw_text(raw: bytes) -> tuple[str | None, str | None]:
-    """A file with raw non-ASCII bytes, re-encoded as ISO 10303-21 requires, and the note.
+    r"""A file with raw non-ASCII bytes, re-encoded as ISO 10303-21 requires, and the note.
 
-    ISO 10303-21 allows only ASCII in a file; characters beyond it are written as \\X\\,
-    \\X2\\ or \\X4\\ escapes, which the parser decodes. Exporters that write raw bytes
+    ISO 10303-21 allows only ASCII in a file; characters beyond it are written as \X\,
+    \X2\ or \X4\ escapes, which the parser decodes. Exporters that write raw bytes
     instead (common) would lose those characters silently: the bytes are read as UTF-8 when
     they are valid UTF-8, else as Latin-1, and escaped. Returns (None, None) for an ASCII file.
     """

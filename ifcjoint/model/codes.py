@@ -148,6 +148,7 @@ class FindingCode(StrEnum):
     END_DISTANCE_MIN = "end_distance_min"
     EDGE_DISTANCE_MIN = "edge_distance_min"
     BOLT_OUTSIDE_OUTLINE = "bolt_outside_outline"
+    BOLT_OFF_HOLE = "bolt_off_hole"
     PITCH_MIN = "pitch_min"
     PITCH_MAX = "pitch_max"
     SPACING_MIN = "spacing_min"

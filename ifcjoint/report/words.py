@@ -302,6 +302,10 @@ FINDINGS: dict[FindingCode, FindingWords] = {
     FindingCode.END_DISTANCE_MIN: _edge,
     FindingCode.EDGE_DISTANCE_MIN: _edge,
     FindingCode.BOLT_OUTSIDE_OUTLINE: _outside,
+    FindingCode.BOLT_OFF_HOLE: lambda v, m, lim: (
+        f"{v['count']} bolt(s) pass through the plate {m:.0f} mm from the nearest hole's "
+        f"centre (a {v['hole']:g} mm hole): not through a hole"
+    ),
     FindingCode.PITCH_MIN: lambda v, m, lim: (
         f"{_rows(v)} are {m:.0f} mm apart (min {lim:.1f})"
     ),

@@ -38,7 +38,8 @@ TOP = 4000.0
 def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160.0, 340.0),
           offsets=(-50.0, 50.0), d=20.0, length=70.0, bolt_text="BOLT M20x70 8.8",
           hole=22.0, gap=0.0, beam_y=0.0, beam_tf=13.5, beam_material="S355J2",
-          with_bolts=True, with_plate=True, modelled_holes=True, bolt_kw=None):
+          with_bolts=True, with_plate=True, modelled_holes=True, bolt_kw=None,
+          hole_rows=None):
     col = Member(guid="COL", ifc_class="IfcColumn", name="C", kind="column",
                  start=(0.0, 0.0, 0.0), end=(0.0, 0.0, 8000.0), depth_dir=(1.0, 0, 0),
                  width_dir=(0, -1.0, 0), depth=260, width=260, web_thickness=10,
@@ -54,8 +55,8 @@ def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160
                   material=beam_material, steel="steel", texts=("IPE 400",))
     xp = 130.0 + gap + tp / 2
     zc = TOP - (top + bottom) / 2
-    holes = tuple(((xp, beam_y + o, TOP - r), hole) for r in rows for o in offsets
-                  if modelled_holes)
+    holes = tuple(((xp, beam_y + o, TOP - r), hole) for r in (hole_rows or rows)
+                  for o in offsets if modelled_holes)
     plates = [Plate(guid="EP", ifc_class="IfcPlate", name="EP", center=(xp, beam_y, zc),
                     normal=(1.0, 0, 0), u_dir=(0, 1.0, 0), v_dir=(0, 0, 1.0), half_u=bp / 2,
                     half_v=(bottom - top) / 2, thickness=tp, material="S355J2",
@@ -247,3 +248,15 @@ def test_plate_thickness_not_rolled_is_a_warning():
     assert f.detail["nearest"] in (15.0, 18.0)
     for tp in (20.0, 19.05, 25.0):
         assert "plate_thickness_not_stock" not in codes(build(tp=tp))
+
+
+def test_a_bolt_through_plate_material_is_found_and_makes_no_false_row():
+    # Holes at rows -50, 60, 160, 340; an extra pair of bolts at 185 has no hole (it passes
+    # through plate material, inside the outline). It is reported and fails the joint, and it
+    # is left out of the rows: no row at 185, no 25 mm pitch.
+    a = build(rows=(-50.0, 60.0, 160.0, 185.0, 340.0), hole_rows=(-50.0, 60.0, 160.0, 340.0))
+    (f,) = [f for f in a.findings if f.code == "bolt_off_hole"]
+    assert f.detail["count"] == 2 and f.measured == pytest.approx(25.0) and f.fails_joint
+    assert [r.from_beam_top for r in a.bolts.rows] == [-50.0, 60.0, 160.0, 340.0]
+    assert not [x for x in a.findings if x.code in ("pitch_min", "pitch_max")]
+    assert "bolt_off_hole" not in codes(build())
