@@ -2,7 +2,7 @@
 
 Each joint has a zone around its beam end; a part is a candidate of the joints whose zone
 holds it (found with a shapely ``STRtree`` of the zones' plan boxes), and goes to the one its
-relationships name, else to the nearest.
+relationships name, else to the one on whose side of the column it lies, then the nearest.
 """
 
 from __future__ import annotations
@@ -38,6 +38,8 @@ class _Zone:
     beam_end: np.ndarray  # the beam's end point
     margin: float  # how far beyond the beam depth the zone reaches
     face_reach: float  # the distance segment stops this far past the column face
+    col_point: np.ndarray  # a point on the column's axis
+    col_half_web: float  # half the column web's thickness (the plane's neutral band)
 
 
 def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
@@ -74,9 +76,21 @@ def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
                 beam_end=beam_end[i],
                 margin=st.part_margin,
                 face_reach=st.tolerance,
+                col_point=np.array(col.start, dtype=float),
+                col_half_web=(col.web_thickness or 0.0) / 2,
             )
         )
     return zones
+
+
+def _other_side(z: _Zone, p: np.ndarray) -> bool:
+    """Whether a point lies beyond the column's mid-plane, on the side away from the beam.
+
+    Common practice, no source: a part belongs with the beam on its own side of the column
+    (of its web, for two beams on a web); a part within the web's thickness of the mid-plane
+    (a bolt through both plates and the web) is on neither side.
+    """
+    return float((p - z.col_point).dot(z.t)) > z.col_half_web + 1.0
 
 
 def _zone_boxes(zones: list[_Zone]) -> np.ndarray:
@@ -262,7 +276,9 @@ def _attach_plate(
     }
     # A plate inside the column section (stiffener, web plate) serves every joint there.
     shared = [k for k in ks if roles[k] == PartRole.COLUMN_PLATE]
-    chosen = shared if shared else [min(ks, key=lambda k: dist.get(k, 0.0))]
+    c = np.array(p.center)
+    chosen = shared if shared else [min(
+        ks, key=lambda k: (_other_side(mt.zone_by_k[k], c), dist.get(k, 0.0)))]
     return [(k, PartLink(guid=p.guid, source=source, role=roles[k])) for k in chosen]
 
 
@@ -286,6 +302,7 @@ def _attach_fastener(
     if not ks:
         return None
     dist = {k: d for k, _, d in cands}
-    k = min(ks, key=lambda kk: dist.get(kk, 0.0))
+    # the beam's own side of the column first (two beams on a web), then the nearest
+    k = min(ks, key=lambda kk: (_other_side(mt.zone_by_k[kk], c), dist.get(kk, 0.0)))
     role = _FASTENER_ROLES.get(f.kind, PartRole.OTHER_FASTENER)
     return k, PartLink(guid=f.guid, source=source, role=role)
