@@ -740,7 +740,7 @@ class Frame:
             for side, zz in (("top", top_z), ("bottom", top_z - h)):
                 p = end_pt + t * 0.0
                 mw = frame_matrix(np.array([p[0], p[1], zz]), t, lat)
-                wl = self.weld(f"{key}/{side}", b, 8.0, mw, (beam, bworld))
+                wl = self.weld(f"{key}/{side}", b, 10.0, mw, (beam, bworld))  # full strength
                 parts.append(wl)
                 welds.append(wl.GlobalId)
         style = self.style_for(len(self.truth.joints))

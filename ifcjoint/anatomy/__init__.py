@@ -10,7 +10,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
-from ifcjoint.anatomy.detailing import completeness, detailing
+from ifcjoint.anatomy.detailing import completeness, detailing, weld_sizes
 from ifcjoint.anatomy.frame import joint_frame
 from ifcjoint.anatomy.read import (
     BoltReading,
@@ -18,10 +18,12 @@ from ifcjoint.anatomy.read import (
     PlateReading,
     StiffenerReading,
     WebPlateReading,
+    WeldReading,
     column_plates,
     grade_of,
     read_bolts,
     read_plate,
+    read_welds,
     section_of,
     tstub_geometry,
     unsupported_parts,
@@ -42,6 +44,7 @@ __all__ = [
     "PlateReading",
     "StiffenerReading",
     "WebPlateReading",
+    "WeldReading",
     "analyse",
     "analyse_joint",
 ]
@@ -74,6 +77,7 @@ class JointAnatomy:
         bolts: the bolts, or None.
         stiffener_plates: transverse column stiffeners, by level, with their sizes.
         web_plate_readings: supplementary web plates, with their sizes.
+        welds: welds modelled as elements, with where they lie and their throats.
         unsupported: parts that make the joint a kind ifcjoint does not handle, with counts.
         findings: detailing and data findings, in report order.
         unread: what could not be read, in words.
@@ -90,6 +94,7 @@ class JointAnatomy:
     bolts: BoltReading | None
     stiffener_plates: tuple[StiffenerReading, ...] = ()
     web_plate_readings: tuple[WebPlateReading, ...] = ()
+    welds: tuple[WeldReading, ...] = ()
     unsupported: tuple[tuple[UnsupportedPart, int], ...] = ()
     findings: tuple[Finding, ...] = ()
     unread: tuple[str, ...] = ()
@@ -166,6 +171,8 @@ def analyse_joint(
         bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
     if plate_r is not None and bolt_r is not None:
         detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings)
+    welds = read_welds(j, fr, fasteners, bsec)
+    weld_sizes(welds, role, bsec, bgrade, findings)
     completeness(j, plate_r, bolt_r, role, findings)
     return JointAnatomy(
         joint_id=j.id,
@@ -178,6 +185,7 @@ def analyse_joint(
         bolts=bolt_r,
         stiffener_plates=stiff,
         web_plate_readings=web_plates,
+        welds=welds,
         unsupported=unsupported_parts(j, fr, plates, col, bsec),
         findings=tuple(findings),
         unread=tuple(unread),

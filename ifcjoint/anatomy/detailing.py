@@ -10,9 +10,11 @@ from dataclasses import dataclass
 from ifcjoint.anatomy.frame import JointFrame
 from ifcjoint.anatomy.read import BoltReading, PlateReading
 from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
+from ifcjoint.catalogue.materials import parse_steel_grade, steel_strength
 from ifcjoint.catalogue.plates import nearest_stock_thickness
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import detailing as dt
+from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
 from ifcjoint.model.codes import Axis, PartRole
 from ifcjoint.model.elements import Fastener
 from ifcjoint.model.joints import Finding, Joint
@@ -251,3 +253,34 @@ def gap_to_column(
         out.append(RULES["gap_to_column"].finding(gap, TOUCH_TOLERANCE, els, part=part))
     if RULES["overlap_with_column"].broken(-gap, TOUCH_TOLERANCE):
         out.append(RULES["overlap_with_column"].finding(-gap, TOUCH_TOLERANCE, els, part=part))
+
+
+def weld_sizes(
+    welds, role: PartRole | None, bsec: ISection | None, grade: str | None,
+    out: list[Finding],
+) -> None:
+    """Modelled welds smaller than full strength for the beam part they join.
+
+    EN 1993-1-8:2005, 4.5.3.3 (``ec3.components.full_strength_fillet_throat``, with the
+    recommended gamma_M2 = 1.25): the flange welds against the flange, the web welds against
+    the web. On an end plate (the check takes full-strength welds) a smaller weld fails the
+    joint; on a welded joint the check uses the weld itself, so it is a warning.
+    """
+    if not welds or bsec is None or grade is None:
+        return
+    g = parse_steel_grade(grade)
+    if g is None or not g.en10025:
+        return
+    rule = RULES["weld_too_small_end_plate" if role == PartRole.END_PLATE
+                 else "weld_too_small_welded"]
+    for w in welds:
+        if w.throat is None:
+            continue
+        t = bsec.tw if w.location == "web" else bsec.tf
+        try:
+            s = steel_strength(g.grade, t, quality=g.quality)
+        except ValueError:
+            return
+        need = full_strength_fillet_throat(t, s.fy, s.fu, BETA_W.get(g.grade, 1.0))
+        if rule.broken(w.throat, need):
+            out.append(rule.finding(w.throat, need, (w.guid,), location=w.location, t=t))

@@ -19,6 +19,7 @@ from ifcjoint.catalogue.sections import (
     find_designation,
     section_from_designation,
 )
+from ifcjoint.catalogue.welds import parse_weld_size
 from ifcjoint.ec3 import detailing as dt
 from ifcjoint.model.codes import PartRole, UnsupportedPart
 from ifcjoint.model.elements import Fastener, Member, Plate
@@ -413,6 +414,55 @@ def read_bolts(
         pitches=pitches,
         off_hole=tuple(missed),
     )
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class WeldReading:
+    """A weld modelled as an element (mm).
+
+    Attributes:
+        guid: the weld element.
+        location: where it joins the beam: ``top_flange``, ``bottom_flange`` or ``web``.
+        throat: its throat a, or None when no size was found.
+        source: where the size was read (a property, the name), or why none.
+    """
+
+    guid: str
+    location: str
+    throat: float | None
+    source: str
+
+
+def read_welds(
+    j: Joint, fr: JointFrame, fasteners: dict[str, Fastener], bsec: ISection | None
+) -> tuple[WeldReading, ...]:
+    """The joint's welds: where each lies (by its direction and height) and its throat.
+
+    A weld running up the beam's depth is a web weld; one running across is on the flange
+    nearer to it (common practice, no source). Its throat: a size property, else the name
+    (``catalogue.welds.parse_weld_size``).
+    """
+    out = []
+    h = bsec.h if bsec is not None else None
+    for link in j.fasteners:
+        f = fasteners.get(link.guid)
+        if f is None or link.role != PartRole.WELD:
+            continue
+        vertical = abs(float(np.dot(np.asarray(f.axis), fr.n))) > 0.7
+        z = fr.depth_below_top(f.center)
+        if vertical:
+            location = "web"
+        elif h is not None and z > h / 2:
+            location = "bottom_flange"
+        else:
+            location = "top_flange"
+        if f.weld_throat is not None:
+            throat, source = f.weld_throat, "size property"
+        else:
+            throat, source = parse_weld_size(f.name, *f.texts)
+            source = source or "no size in its properties or name"
+        out.append(WeldReading(guid=f.guid, location=location, throat=throat, source=source))
+    return tuple(out)
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

@@ -246,6 +246,24 @@ RULES: dict[str, Rule] = {
         fails_joint=True,
         source=(),
     ),
+    "weld_too_small_end_plate": Rule(
+        code=FindingCode.WELD_TOO_SMALL,
+        severity=_E,
+        basis="EN 1993-1-8 4.5.3.3: the end-plate check takes full-strength beam welds "
+        "(a >= t fy sqrt 3 beta_w gamma_M2 / 2 fu, gamma_M2 = 1.25 recommended)",
+        bound="min",
+        tolerance=0.1,
+        fails_joint=True,
+        source=("EN 1993-1-8", "4.5.3.3"),
+    ),
+    "weld_too_small_welded": Rule(
+        code=FindingCode.WELD_TOO_SMALL,
+        severity=_W,
+        basis="EN 1993-1-8 4.5.3.3: below full strength (gamma_M2 = 1.25 recommended); the "
+        "welded joint's check uses this weld's own resistance",
+        bound="min",
+        tolerance=0.1,
+    ),
     "value_not_usable": Rule(
         code=FindingCode.VALUE_NOT_USABLE,
         severity=_E,

@@ -15,7 +15,7 @@ from ifcjoint.catalogue.materials import (
 )
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA, bolt_elongation_length
-from ifcjoint.ec3.components import BETA_W
+from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
 from ifcjoint.engine.inputs import (
     BoltsInput,
     EndPlateJointInput,
@@ -43,8 +43,7 @@ def _throat(t: float, grade: str, fy: float, fu: float, st: CheckSettings) -> fl
     """Assumed throat of a double fillet weld joining a part of thickness t (mm)."""
     if st.weld_throat_ratio is not None:
         return round(st.weld_throat_ratio * t, 1)
-    bw = BETA_W.get(grade, 1.0)
-    a = t * fy * 3**0.5 * bw * st.params.gamma_M2 / (2 * fu)
+    a = full_strength_fillet_throat(t, fy, fu, BETA_W.get(grade, 1.0), st.params)
     return float(-(-a // 1))  # up to the whole mm
 
 
@@ -91,6 +90,27 @@ def section_member(
         Iy=sec.Iy,
         Wpl_y=sec.Wpl_y,
     )
+
+
+def joint_welds(a: JointAnatomy, beam: MemberInput, st: CheckSettings) -> WeldsInput:
+    """The beam's welds: modelled throats where they are, full strength elsewhere (said).
+
+    Where welds are modelled with a size, the smallest at each place (top flange, bottom
+    flange, web) is used; the places with none take the full-strength throat.
+    """
+    assumed = assumed_welds(beam, st)
+    sizes: dict[str, list[float]] = {}
+    for w in a.welds:
+        if w.throat is not None and w.throat > 0:
+            sizes.setdefault(w.location, []).append(w.throat)
+    if not sizes:
+        return assumed
+    top = min(sizes.get("top_flange", [assumed.top_flange_throat]))
+    bottom = min(sizes.get("bottom_flange", [assumed.bottom_flange_throat]))
+    web = min(sizes.get("web", [assumed.web_throat]))
+    modelled = tuple(k for k in ("top_flange", "bottom_flange", "web") if k in sizes)
+    return WeldsInput(top_flange_throat=top, bottom_flange_throat=bottom, web_throat=web,
+                      assumed=len(modelled) < 3, modelled=modelled)
 
 
 def _member(m: Member, sec: ISection, grade: str, basis: str, *, span: bool) -> MemberInput:
@@ -181,7 +201,7 @@ def _shared_fields(
     """Fields both joint inputs take the same way: welds, factors, beta, column plates."""
     stiffeners, webs = column_plate_inputs(a, col, st)
     return {
-        "welds": assumed_welds(beam, st),
+        "welds": joint_welds(a, beam, st),
         "params": st.params,
         "beta": 1.0,
         "braced": st.braced,

@@ -52,7 +52,8 @@ _PLATE_KEYS = frozenset(
 )
 _BOLT_KEYS = frozenset({"d", "grade", "fub", "As", "d0", "gauge", "rows_from_beam_top", "L_b"})
 _WELD_KEYS = frozenset(
-    {"top_flange_throat", "bottom_flange_throat", "web_throat", "assumed", "flange_throat"}
+    {"top_flange_throat", "bottom_flange_throat", "web_throat", "assumed", "flange_throat",
+     "modelled"}
 )
 _STIFFENER_KEYS = frozenset({"level", "t", "b", "fy", "grade", "snipe", "weld_leg", "guid"})
 _WEB_PLATE_KEYS = frozenset({"t", "b", "fy", "sides", "grade", "guid"})
@@ -241,8 +242,14 @@ def welds_from(d: Any, beam: MemberInput, st: CheckSettings) -> WeldsInput:
     flange = _num(d, "flange_throat", w, None)
     top = _num(d, "top_flange_throat", w, flange if flange is not None else _MISSING)
     bottom = _num(d, "bottom_flange_throat", w, flange if flange is not None else top)
+    modelled = d.get("modelled", [])
+    if not isinstance(modelled, list) or not set(modelled) <= {"top_flange", "bottom_flange",
+                                                               "web"}:
+        raise DescriptionError(f"{w}.modelled", "expected a list of top_flange, bottom_flange, "
+                                                "web")
     return WeldsInput(top_flange_throat=top, bottom_flange_throat=bottom,
-                      web_throat=_num(d, "web_throat", w), assumed=_flag(d, "assumed", w, False))
+                      web_throat=_num(d, "web_throat", w), assumed=_flag(d, "assumed", w, False),
+                      modelled=tuple(modelled))
 
 
 def _plate_fy(d: dict, w: str, t: float, col: MemberInput, basis: str) -> float:

@@ -189,6 +189,18 @@ def f_vw_d(fu: float, beta_w: float, params: Parameters = RECOMMENDED) -> float:
     return fu / (math.sqrt(3.0) * beta_w * params.gamma_M2)
 
 
+def full_strength_fillet_throat(
+    t: float, fy: float, fu: float, beta_w: float, params: Parameters = RECOMMENDED
+) -> float:
+    """Throat of the double fillet weld as strong as the part of thickness t it joins (mm).
+
+    EN 1993-1-8:2005, 4.5.3.3 (simplified method, Eq. (4.4)): two welds of throat a carry
+    2 a f_vw,d per unit length; the part carries t f_y / gamma_M0 (gamma_M0 = 1), so
+    a = t f_y sqrt(3) beta_w gamma_M2 / (2 f_u).
+    """
+    return t * fy / (2 * f_vw_d(fu, beta_w, params))
+
+
 def b_eff_b_fc_welded(
     t_wc: float, s: float, t_fc: float, t_fb: float, fy_fc: float, fy_fb: float
 ) -> float:

@@ -173,8 +173,11 @@ def classify(inp: JointInput, hog: SideResult, sag: SideResult) -> Classificatio
 def weld_notes(w: WeldsInput) -> list[Note]:
     """Say so when the weld throats were assumed rather than read from the model."""
     if not w.assumed:
-        return []
+        return [Note(NoteCode.WELDS_MODELLED)]
     throats = {"a_top": w.top_flange_throat, "a_bottom": w.bottom_flange_throat}
+    if w.modelled:
+        return [Note(NoteCode.WELDS_PARTLY_MODELLED,
+                     {**throats, "a_web": w.web_throat, "modelled": tuple(w.modelled)})]
     return [Note(NoteCode.WELDS_ASSUMED, {**throats, "a_web": w.web_throat})]
 
 

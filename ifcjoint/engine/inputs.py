@@ -129,12 +129,17 @@ class BoltsInput:
 
 @dataclass(frozen=True, slots=True, kw_only=True)
 class WeldsInput:
-    """Weld throats a (mm) of the beam to the end plate; ``assumed`` when not modelled."""
+    """Weld throats a (mm) of the beam to the end plate (or column).
+
+    ``assumed`` when any throat was not modelled; ``modelled`` names the ones read from the
+    model (``top_flange``, ``bottom_flange``, ``web``).
+    """
 
     top_flange_throat: float
     bottom_flange_throat: float
     web_throat: float
     assumed: bool = True
+    modelled: tuple[str, ...] = ()
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

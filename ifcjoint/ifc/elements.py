@@ -25,6 +25,8 @@ from ifcjoint.model.elements import Fastener, Member, Plate, Progress, Unreadabl
 #: Property names (lower case, no spaces) read for bolt sizes.
 _SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
 _LENGTH_KEYS = ("nominallength", "boltlength", "length")
+_THROAT_KEYS = ("throat", "throatthickness", "weldthroat", "a")
+_LEG_KEYS = ("leg", "leglength", "weldleg", "weldsize")
 _HOLE_KEYS = ("holediameter", "boltholediameter", "clearanceholediameter", "diameterofhole",
               "clearancehole", "holesize")
 
@@ -465,6 +467,11 @@ class ElementReader:
         nd = nd if nd is not None else self.lookups.number(el, _SIZE_KEYS)
         nl = nl if nl is not None else self.lookups.number(el, _LENGTH_KEYS)
         hole = self.lookups.number(el, _HOLE_KEYS)
+        throat = None
+        if kind == FastenerKind.WELD:  # a size property: the throat a, or the leg (a = leg/√2)
+            throat = self.lookups.number(el, _THROAT_KEYS)
+            leg = self.lookups.number(el, _LEG_KEYS) if throat is None else None
+            throat = throat if leg is None else leg / math.sqrt(2)
         mat, _ = self.lookups.material(el)
         self.fasteners.append(
             Fastener(
@@ -480,6 +487,7 @@ class ElementReader:
                 nominal_diameter=float(nd) * self.s if nd is not None else None,
                 nominal_length=float(nl) * self.s if nl is not None else None,
                 hole_diameter=float(hole) * self.s if hole is not None else None,
+                weld_throat=float(throat) * self.s if throat is not None else None,
                 texts=self.lookups.all_texts(el, mat),
                 shanks=shanks,
             )

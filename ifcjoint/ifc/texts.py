@@ -38,6 +38,15 @@ INTERESTING_PROPERTIES = frozenset(
         "standard",
         "boltstandard",
         "description",
+        # weld sizes of welds modelled as fasteners
+        "throat",
+        "throatthickness",
+        "weldthroat",
+        "a",
+        "leg",
+        "leglength",
+        "weldleg",
+        "weldsize",
         # hole diameters when holes are not modelled
         "holediameter",
         "boltholediameter",

@@ -161,6 +161,7 @@ class FindingCode(StrEnum):
     HOLE_ON_ROOT_RADIUS = "hole_on_root_radius"
     NO_SPANNER_ROOM = "no_spanner_room"
     BOLT_TOO_SHORT = "bolt_too_short"
+    WELD_TOO_SMALL = "weld_too_small"
     VALUE_NOT_USABLE = "value_not_usable"  # a dimension that cannot be right (zero, negative)
 
 
@@ -253,6 +254,8 @@ class NoteCode(StrEnum):
     """What the engine or the verification says about how a result was obtained."""
 
     WELDS_ASSUMED = "welds_assumed"
+    WELDS_MODELLED = "welds_modelled"
+    WELDS_PARTLY_MODELLED = "welds_partly_modelled"
     ALPHA_CHART = "alpha_chart"
     ALPHA_GIVEN = "alpha_given"
     ALPHA_CONSERVATIVE = "alpha_conservative"

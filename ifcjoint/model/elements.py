@@ -134,6 +134,7 @@ class Fastener:
     nominal_diameter: float | None = None  # from IfcMechanicalFastener or properties, mm
     nominal_length: float | None = None
     hole_diameter: float | None = None  # a hole-diameter property of it or its type, mm
+    weld_throat: float | None = None  # a weld's throat a from its properties, mm
     texts: tuple[str, ...] = ()
     #: one element holding several bolts (a bolt group exported as one fastener): the centre
     #: of each shank; empty for a single bolt

@@ -147,6 +147,12 @@ def _at_level(v: dict) -> str:
 
 
 NOTES: dict[NoteCode, Words] = {
+    NoteCode.WELDS_MODELLED: lambda v: "weld throats as modelled (read from the weld elements)",
+    NoteCode.WELDS_PARTLY_MODELLED: lambda v: (
+        f"weld throats: {', '.join(x.replace('_', ' ') for x in v['modelled'])} as modelled, "
+        f"the rest assumed full strength: flanges a = {v['a_top']:g} / {v['a_bottom']:g} mm, "
+        f"web a = {v['a_web']:g} mm"
+    ),
     NoteCode.WELDS_ASSUMED: lambda v: (
         f"weld throats assumed (not modelled): flanges a = {v['a_top']:g} / "
         f"{v['a_bottom']:g} mm, web a = {v['a_web']:g} mm"
@@ -337,6 +343,10 @@ FINDINGS: dict[FindingCode, FindingWords] = {
     ),
     FindingCode.NO_SPANNER_ROOM: lambda v, m, lim: (
         f"bolt centre {m:.0f} mm from the root radius: no room for the nut and washer"
+    ),
+    FindingCode.WELD_TOO_SMALL: lambda v, m, lim: (
+        f"{str(v['location']).replace('_', ' ')} weld a = {m:.1f} mm, below the "
+        f"{lim:.1f} mm of a full-strength weld on the {v['t']:g} mm part"
     ),
     FindingCode.VALUE_NOT_USABLE: lambda v, m, lim: (
         f"{v['what']} of {v['entity']} is {m:g} mm: a dimension must be positive, the value "

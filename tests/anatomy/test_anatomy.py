@@ -39,7 +39,7 @@ def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160
           offsets=(-50.0, 50.0), d=20.0, length=70.0, bolt_text="BOLT M20x70 8.8",
           hole=22.0, gap=0.0, beam_y=0.0, beam_tf=13.5, beam_material="S355J2",
           with_bolts=True, with_plate=True, modelled_holes=True, bolt_kw=None,
-          hole_rows=None):
+          hole_rows=None, welds=()):
     col = Member(guid="COL", ifc_class="IfcColumn", name="C", kind="column",
                  start=(0.0, 0.0, 0.0), end=(0.0, 0.0, 8000.0), depth_dir=(1.0, 0, 0),
                  width_dir=(0, -1.0, 0), depth=260, width=260, web_thickness=10,
@@ -67,6 +67,14 @@ def build(*, tp=20.0, bp=200.0, top=-100.0, bottom=420.0, rows=(-50.0, 60.0, 160
                                                     "nominal_length": None, **(bolt_kw or {})},
                       texts=(bolt_text,))
              for i, r in enumerate(rows) for k, o in enumerate(offsets)] if with_bolts else []
+    xw = 130.0 + gap + tp + 3
+    at = {"top_flange": ((xw, beam_y, TOP - 3), (0, 1.0, 0), 180.0),
+          "bottom_flange": ((xw, beam_y, TOP - 397), (0, 1.0, 0), 180.0),
+          "web": ((xw, beam_y + 6, TOP - 200), (0, 0, 1.0), 300.0)}
+    bolts += [Fastener(guid=f"W{k}", ifc_class="IfcFastener", name=name, kind="weld",
+                       center=at[where][0], axis=at[where][1], length=at[where][2],
+                       diameter=6.0, texts=(name,), **(kw or {}))
+              for k, (where, name, kw) in enumerate(welds)]
     m = ModelContents(path="mem", schema="TEST", length_unit_to_mm=1.0, members=(col, beam),
                       plates=tuple(plates), fasteners=tuple(bolts))
     res = find_joints(m)
@@ -260,3 +268,34 @@ def test_a_bolt_through_plate_material_is_found_and_makes_no_false_row():
     assert [r.from_beam_top for r in a.bolts.rows] == [-50.0, 60.0, 160.0, 340.0]
     assert not [x for x in a.findings if x.code in ("pitch_min", "pitch_max")]
     assert "bolt_off_hole" not in codes(build())
+
+
+def test_modelled_welds_are_read_placed_and_sized():
+    # Flange welds "Fillet weld a5" (throat in the name), a web weld with a leg property of
+    # 10 mm (a = 10 / sqrt 2 = 7.07). Full strength on the S355 IPE 400 (EN 1993-1-8
+    # 4.5.3.3, beta_w 0.9, gamma_M2 1.25, fu 510): flange 13.5 mm -> a >= 9.16 mm, web 8.6 mm
+    # -> a >= 5.83 mm. On an end plate the smaller flange welds fail the joint.
+    import math
+
+    a = build(welds=[("top_flange", "Fillet weld a5", None),
+                     ("bottom_flange", "Fillet weld a5", None),
+                     ("web", "WELD", {"weld_throat": 10 / math.sqrt(2)})])
+    got = {w.location: round(w.throat, 2) for w in a.welds}
+    assert got == {"top_flange": 5.0, "bottom_flange": 5.0, "web": 7.07}
+    small = [f for f in a.findings if f.code == "weld_too_small"]
+    assert {f.detail["location"] for f in small} == {"top_flange", "bottom_flange"}
+    assert all(f.fails_joint and f.limit == pytest.approx(9.16, abs=0.01) for f in small)
+    assert a.archetype == "extended_end_plate"
+
+
+def test_modelled_welds_enter_the_check_and_the_rest_are_assumed():
+    from ifcjoint.archetypes import run_joint
+
+    a = build(welds=[("top_flange", "Fillet weld a12", None)])
+    j, m = _LAST
+    joint = replace(j[0], archetype=a.archetype, archetype_reason=a.reason)
+    _, r = run_joint(joint, a.a, {x.guid: x for x in m.members})
+    w = r.input.welds
+    assert w.top_flange_throat == 12.0 and w.modelled == ("top_flange",) and w.assumed
+    assert w.bottom_flange_throat == 10.0  # assumed full strength there: 9.16 rounded up
+    assert any(n.code == "welds_partly_modelled" for n in r.notes)
