@@ -179,7 +179,8 @@ def i_shape_from_outline(poly, depth_axis: str = "y") -> tuple[float, float, flo
     Widths are measured with shapely on lines across the section: the web at mid-depth, the
     flanges just inside the outer faces; the flange thickness is where the width drops from
     the flange's to less than its half; the root radius follows from the area the fillets
-    add to the three rectangles, (4 - pi) r^2. None when the outline is not an I (web not
+    add to the three rectangles, (4 - pi) r^2 for arcs, more for fillets drawn as a few
+    straight segments (``_fillet_area_factor``). None when the outline is not an I (web not
     clearly narrower than the flanges, or flanges of unequal width).
     """
     if poly.is_empty or poly.area <= 0:
@@ -209,8 +210,25 @@ def i_shape_from_outline(poly, depth_axis: str = "y") -> tuple[float, float, flo
     tf = y1 - hi
     rect = 2 * b * tf + (h - 2 * tf) * tw
     extra = max(poly.area - rect, 0.0)
-    r = math.sqrt(extra / (4 - math.pi)) if extra > 0 else 0.0
+    r = math.sqrt(extra / (4 * _fillet_area_factor(poly))) if extra > 0 else 0.0
     return tw, tf, r
+
+
+def _fillet_area_factor(poly) -> float:
+    """Area of one fillet over r^2: 1 - pi/4 for an arc, more when drawn with chords.
+
+    A fillet drawn as n straight segments (the chords of its quarter circle) adds
+    r^2 (1 - (n/2) sin(pi / 2n)): the chords cut inside the arc. An I outline has 12 corners
+    plus n vertices per fillet, so n = (vertices - 12) / 4 (collinear points dropped); an
+    outline that does not count out (curves tessellated unevenly) is taken as true arcs.
+    """
+    ring = shapely.simplify(poly, 0.0).exterior
+    v = len(ring.coords) - 1
+    if v > 12 and (v - 12) % 4 == 0:
+        n = (v - 12) // 4
+        if n <= 32:
+            return 1 - (n / 2) * math.sin(math.pi / (2 * n))
+    return 1 - math.pi / 4
 
 
 class _Profile:
