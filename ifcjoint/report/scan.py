@@ -110,6 +110,8 @@ def anatomy_dict(j: Joint, a: JointAnatomy) -> dict:
                 for r in b.rows
             ],
         },
+        "welds": [{"guid": w.guid, "location": w.location, "throat": _r(w.throat),
+                   "source": w.source} for w in a.welds],
         "stiffeners": list(stiffener_guids(a)),
         "stiffener_depths_mm": [round(float(x.level), 1) for x in a.stiffener_plates],
         "stiffener_plates": [
