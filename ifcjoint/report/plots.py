@@ -1,18 +1,12 @@
-"""Plots for the report, rendered by matplotlib to inline SVG text (no files, no network).
+"""Plots for the report, written as inline SVG text (``svgplot``; no files, no network).
 
 Every plot reads the results dict (docs/results.md); none recomputes a resistance.
 """
 
 from __future__ import annotations
 
-import io
-
-import matplotlib
-
-matplotlib.use("Agg")
-import matplotlib.pyplot as plt
-
 from ifcjoint.model.codes import Status
+from ifcjoint.report.svgplot import Chart, nice_step
 
 #: Our own palette (see DEVELOPERS.md on originality).
 INK = "#22313f"
@@ -28,27 +22,6 @@ STATUS_COLOURS = {
     Status.UNREADABLE: "#7b4f9d",
 }
 
-plt.rcParams.update(
-    {
-        "svg.fonttype": "none",  # text stays text: small files, searchable
-        "svg.hashsalt": "ifcjoint",  # stable ids: the same input gives the same file
-        "font.size": 8,
-        "axes.edgecolor": INK,
-        "axes.labelcolor": INK,
-        "xtick.color": INK,
-        "ytick.color": INK,
-    }
-)
-
-
-def _svg(fig) -> str:
-    buf = io.StringIO()
-    fig.savefig(buf, format="svg", metadata={"Date": None})
-    plt.close(fig)
-    text = buf.getvalue()
-    return text[text.index("<svg") :]  # drop the XML prolog: the SVG is inlined in HTML
-
-
 def m_phi_svg(check: dict) -> str | None:
     """M-phi curve (EN 1993-1-8 6.3.1(4)) with Mj,Rd, Sj,ini and the class boundaries.
 
@@ -62,38 +35,31 @@ def m_phi_svg(check: dict) -> str | None:
         return None
     phi = [p[0] * 1000 for p in mp]  # mrad
     m = [p[1] for p in mp]
-    fig, ax = plt.subplots(figsize=(5.6, 2.9))
-    fig.subplots_adjust(left=0.11, right=0.66, bottom=0.16, top=0.95)
-    ax.plot(phi, m, color=CURVE, lw=1.8, label="design curve (hogging)")
     mj = res.get("Mj_Rd_hogging_kNm")
     sj = res.get("Sj_ini_kNm_per_rad")
-    xmax = max(phi) * 1.25
-    ax.axhline(mj, color=CURVE, ls=":", lw=1)
-    ax.annotate(f"Mj,Rd = {mj:.0f} kNm", (xmax * 0.02, mj), va="bottom", color=CURVE)
-    if sj:
-        ax.plot([0, mj / sj * 1000], [0, mj], color=CURVE, lw=0.8, ls="--",
-                label=f"Sj,ini = {sj:,.0f} kNm/rad")
-    cls = check.get("classification") or {}
-    for key, label, style in (("rigid_from_kNm_per_rad", "rigid boundary", "-."),
-                              ("pinned_up_to_kNm_per_rad", "pinned boundary", ":")):
-        s = cls.get(key)
-        if s:
-            x_end = min(xmax, mj * 1.15 / s * 1000)
-            ax.plot([0, x_end], [0, s * x_end / 1000], color=BOUND, lw=1.0, ls=style,
-                    label=label)
     g = check.get("governing") or {}
     demand = _design_moment(check, g.get("combination"))
+    xmax = max(phi) * 1.25
+    ymax = max(mj, abs(demand or 0)) * 1.2
+    ch = Chart(x_max=xmax, y_max=ymax)
+    ch.line(phi, m, CURVE, 1.8, label="design curve (hogging)")
+    ch.hline(mj, CURVE, 1.0, "2 3", f"Mj,Rd = {mj:.0f} kNm")
+    if sj:
+        x_end = min(xmax, mj / sj * 1000)
+        ch.line([0, x_end], [0, sj * x_end / 1000], CURVE, 0.8, "5 3",
+                label=f"Sj,ini = {sj:,.0f} kNm/rad")
+    cls = check.get("classification") or {}
+    for key, label, dash in (("rigid_from_kNm_per_rad", "rigid boundary", "7 3 2 3"),
+                             ("pinned_up_to_kNm_per_rad", "pinned boundary", "2 3")):
+        s = cls.get(key)
+        if s:
+            x_end = min(xmax, ymax / s * 1000, mj * 1.15 / s * 1000)
+            ch.line([0, x_end], [0, s * x_end / 1000], BOUND, 1.0, dash, label=label)
     if demand is not None:
-        ax.axhline(abs(demand), color=DEMAND, lw=1.2)
-        ax.annotate(f"|M_Ed| = {abs(demand):.0f} kNm ({g.get('combination')})",
-                    (xmax * 0.02, abs(demand)), va="top", color=DEMAND)
-    ax.set_xlim(0, xmax)
-    ax.set_ylim(0, max(mj, abs(demand or 0)) * 1.2)
-    ax.set_xlabel("rotation phi (mrad)")
-    ax.set_ylabel("moment M (kNm)")
-    ax.legend(loc="center left", bbox_to_anchor=(1.02, 0.5), fontsize=7, frameon=False)
-    ax.spines[["top", "right"]].set_visible(False)
-    return _svg(fig)
+        ch.hline(abs(demand), DEMAND, 1.2, "",
+                 f"|M_Ed| = {abs(demand):.0f} kNm ({g.get('combination')})", below=True)
+    return ch.svg("rotation phi (mrad)", "moment M (kNm)",
+                  title="M-phi of the joint: design curve, Sj,ini, class boundaries")
 
 
 def _design_moment(check: dict, combination: str | None) -> float | None:
@@ -108,18 +74,29 @@ def utilisation_histogram_svg(joints: list[dict]) -> str | None:
     u = [j["check"]["utilisation"] for j in joints if j["check"]["utilisation"] is not None]
     if not u:
         return None
-    fig, ax = plt.subplots(figsize=(5.0, 2.4))
-    fig.subplots_adjust(left=0.1, right=0.98, bottom=0.2, top=0.95)
-    edges = [i / 10 for i in range(0, 21)]
-    top = max(2.0, max(u) + 0.1)
-    edges[-1] = top
-    ok = [x for x in u if x <= 1.0]
-    bad = [x for x in u if x > 1.0]
-    colours = [STATUS_COLOURS[Status.PASS], STATUS_COLOURS[Status.FAIL]]
-    ax.hist([ok, bad], bins=edges, stacked=True, color=colours, label=["pass", "fail"])
-    ax.axvline(1.0, color=INK, lw=1)
-    ax.set_xlabel("highest utilisation per joint")
-    ax.set_ylabel("joints")
-    ax.legend(frameon=False, fontsize=7)
-    ax.spines[["top", "right"]].set_visible(False)
-    return _svg(fig)
+    top = 2.2  # the last bin holds every utilisation of 2 and more
+    edges = [i / 10 for i in range(0, 21)] + [top]
+    ok = [0] * (len(edges) - 1)
+    bad = [0] * (len(edges) - 1)
+    for x in u:
+        k = min(max(next((i for i in range(len(edges) - 1) if x < edges[i + 1]),
+                         len(edges) - 2), 0), len(edges) - 2)
+        (ok if x <= 1.0 else bad)[k] += 1
+    peak = max(a + b for a, b in zip(ok, bad, strict=True))
+    ch = Chart(width=500, height=240, right=80, x_max=top,
+               y_max=peak + max(1, nice_step(peak) / 2))
+    colours = (STATUS_COLOURS[Status.PASS], STATUS_COLOURS[Status.FAIL])
+    for i in range(len(edges) - 1):
+        base = 0
+        for n, colour in zip((ok[i], bad[i]), colours, strict=True):
+            if n:
+                x0, x1 = ch.x(edges[i]) + 0.5, ch.x(edges[i + 1]) - 0.5
+                y0, y1 = ch.y(base + n), ch.y(base)
+                ch.parts.append(f'<rect x="{x0:.1f}" y="{y0:.1f}" width="{x1 - x0:.1f}" '
+                                f'height="{y1 - y0:.1f}" fill="{colour}"/>')
+                base += n
+    ch.line([1.0, 1.0], [0, ch.y_max], INK, 1.0)
+    ch.legend += [("pass", colours[0], ""), ("fail", colours[1], ""),
+                  ("(last bin: 2 and more)", INK, "1 0")]
+    return ch.svg("highest utilisation per joint", "joints",
+                  title="Highest utilisation per checked joint")
