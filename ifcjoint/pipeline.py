@@ -17,6 +17,7 @@ Example:
 from __future__ import annotations
 
 import datetime as _dt
+import functools
 import hashlib
 import json
 from collections import Counter
@@ -196,18 +197,22 @@ def fingerprint(joint: Joint, cap: CheckResult, demands: tuple[Demand, ...]) -> 
 
     Common practice, no source: it changes exactly when a re-check could give another answer.
     """
-    blob = {
-        "joint": [joint.beam, joint.beam_end, joint.column, joint.archetype],
-        "input": input_record(cap.input) if cap.input is not None else {},
-        "demands": [
-            [d.combination, d.M_Ed, d.V_Ed, d.N_Ed, d.M_other, d.Vc_above, d.Vc_below,
-             d.braced, d.assumed_joint]
-            for d in demands
-        ],
-        "version": __version__,
-    }
-    text = json.dumps(blob, sort_keys=True, default=str)
-    return hashlib.sha256(text.encode()).hexdigest()[:16]
+    blob = (
+        (joint.beam, joint.beam_end, joint.column, str(joint.archetype)),
+        _input_digest(cap.input) if cap.input is not None else "",
+        tuple((d.combination, d.M_Ed, d.V_Ed, d.N_Ed, d.M_other, d.Vc_above, d.Vc_below,
+               d.braced, None if d.assumed_joint is None else str(d.assumed_joint))
+              for d in demands),
+        __version__,
+    )
+    return hashlib.sha256(repr(blob).encode()).hexdigest()[:16]
+
+
+@functools.lru_cache(maxsize=4096)
+def _input_digest(inp) -> str:
+    """A digest of an engine input's every value (kept per input: joints share inputs)."""
+    text = json.dumps(input_record(inp), sort_keys=True, default=str)
+    return hashlib.sha256(text.encode()).hexdigest()
 
 
 def check_one(

@@ -6,6 +6,7 @@ Every value the check uses is here, so a check can be repeated by hand from its 
 
 from __future__ import annotations
 
+import functools
 from dataclasses import asdict, dataclass
 
 from ifcjoint.ec3.params import RECOMMENDED, Parameters
@@ -186,8 +187,12 @@ _RECORD_ORDER = (
 )
 
 
+@functools.lru_cache(maxsize=4096)
 def input_record(inp: JointInput) -> dict:
-    """The complete input as plain data (mm, MPa), as the outputs and the fingerprint name it."""
+    """The complete input as plain data (mm, MPa), as the outputs and the fingerprint name it.
+
+    Kept per input (a model's joints share inputs): the dictionary is shared, never modify it.
+    """
     d = asdict(inp)
     d["params"] = inp.params.as_dict()
     d["beam"]["span_mm"] = d["beam"].pop("span")

@@ -7,7 +7,6 @@ relationships name, else to the one on whose side of the column it lies, then th
 
 from __future__ import annotations
 
-import math
 from collections import defaultdict
 from dataclasses import dataclass
 
@@ -113,21 +112,6 @@ def _zone_boxes(zones: list[_Zone]) -> np.ndarray:
     return shapely.box(lo[:, 0], lo[:, 1], hi[:, 0], hi[:, 1])
 
 
-def _in_zone(z: _Zone, p: np.ndarray) -> tuple[bool, float]:
-    """Whether a point lies in the joint's zone, and how far it is from the joint's axis.
-
-    The distance is measured to the beam's centreline segment running from ``back`` behind
-    the beam end to the column face, ignoring height within the beam depth: a part
-    beside the beam's web is closer to its own joint than to a joint around the corner.
-    """
-    d = p - z.origin
-    a, b, c = d.dot(z.t), d.dot(z.n), d.dot(z.lat)
-    inside = (-z.back <= a <= z.front) and abs(b) <= z.half_n and abs(c) <= z.half_l
-    a_out = max(-z.back - a, 0.0, a - z.face_reach)
-    b_out = max(abs(b) - (z.half_n - z.margin), 0.0)
-    return inside, float(math.sqrt(a_out * a_out + b_out * b_out + c * c))
-
-
 def _plate_role(z: _Zone, p: Plate, col_frames: Frames, ci: int, reach: float) -> PartRole:
     """What a plate near a joint is, from its orientation and position.
 
@@ -186,6 +170,19 @@ class _Matcher:
     def __init__(self, model: ModelContents, joints: list[dict], st: FinderSettings) -> None:
         self.zones = _zones(joints, st)
         self.zone_by_k = {z.k: z for z in self.zones}
+        # the zones as arrays, for the in-zone test of every candidate at once
+        zs = self.zones
+        self._o = np.array([z.origin for z in zs])
+        self._t = np.array([z.t for z in zs])
+        self._n = np.array([z.n for z in zs])
+        self._lat = np.array([z.lat for z in zs])
+        self._back = np.array([z.back for z in zs])
+        self._front = np.array([z.front for z in zs])
+        self._half_n = np.array([z.half_n for z in zs])
+        self._half_l = np.array([z.half_l for z in zs])
+        self._inner_n = np.array([z.half_n - z.margin for z in zs])
+        self._reach = np.array([z.face_reach for z in zs])
+        self._k = np.array([z.k for z in zs])
         self.joint_by_k = {j["k"]: j for j in joints}
         self.tree = shapely.STRtree(_zone_boxes(self.zones))
         self.by_member: dict[str, list[int]] = defaultdict(list)
@@ -199,13 +196,33 @@ class _Matcher:
             v.sort(key=lambda x: self._ORDER.get(x[0], 9))
 
     def candidates(self, center: np.ndarray) -> list[_Cand]:
-        """Joints whose zone's plan box holds the point, with inside-ness and distance."""
-        out = []
-        for zi in self.tree.query(shapely.points(center[0], center[1])):
-            z = self.zones[int(zi)]
-            inside, dist = _in_zone(z, center)
-            out.append((z.k, inside, dist))
-        return out
+        """Joints whose zone holds the point in plan and height, with inside-ness and distance.
+
+        Inside: within the zone's extents along the beam, up its depth and across. Distance:
+        to the beam's centreline segment, from ``back`` behind the beam end to the column
+        face, ignoring height within the beam depth (a part beside the beam's web is closer
+        to its own joint than to a joint around the corner). The plan query finds the zones
+        of every storey above one another; the height test keeps the zones the point's height
+        falls in (the others could only hold it by a relation, which names the joint itself).
+        """
+        idx = self.tree.query(shapely.points(center[0], center[1]))
+        if len(idx) == 0:
+            return []
+        d = center - self._o[idx]
+        b = np.einsum("ij,ij->i", d, self._n[idx])
+        near = np.abs(b) <= self._half_n[idx]
+        if not near.any():
+            return []
+        idx, d, b = idx[near], d[near], b[near]
+        a = np.einsum("ij,ij->i", d, self._t[idx])
+        c = np.einsum("ij,ij->i", d, self._lat[idx])
+        inside = (a >= -self._back[idx]) & (a <= self._front[idx]) & (
+            np.abs(c) <= self._half_l[idx])
+        a_out = np.maximum(np.maximum(-self._back[idx] - a, 0.0), a - self._reach[idx])
+        b_out = np.maximum(np.abs(b) - self._inner_n[idx], 0.0)
+        dist = np.sqrt(a_out * a_out + b_out * b_out + c * c)
+        ks = self._k[idx]
+        return [(int(k), bool(i), float(x)) for k, i, x in zip(ks, inside, dist, strict=True)]
 
     def _names(self, k: int, members: set[str], both: bool) -> bool:
         j = self.joint_by_k[k]
