@@ -10,8 +10,10 @@ keeps what people added there: comments stay, topics whose problem is gone are s
 from __future__ import annotations
 
 import datetime as _dt
+import io
 import zipfile
 from pathlib import Path
+from xml.sax.saxutils import escape as xml_escape
 
 import numpy as np
 from xsdata.models.datatype import XmlDateTime
@@ -155,12 +157,24 @@ def write_bcf(results: dict, path: str | Path, *, version: str = "3.0") -> dict[
     """Write (or update) the BCF issue list of a check; returns counts of what was done.
 
     Keys of the returned dict: ``new``, ``updated``, ``closed``, ``kept`` (topics not ours).
+    A new BCF 3.0 file is written directly as XML (``_write_new_bcf3``: the library builds a
+    data model per topic, minutes for a large model); updating an earlier file, or BCF 2.1,
+    goes through bcf-client. Both give the same content (tested through the library).
 
     Raises:
         ifcjoint.errors.OutputError: the target exists and is not a BCF of that version.
     """
-    bx, mdl, tp, vi = _modules(version)
     target = Path(path)
+    if version == "3.0" and not (target.exists() and target.stat().st_size > 0):
+        return _write_new_bcf3(results, target)
+    return write_bcf_with_library(results, target, version=version)
+
+
+def write_bcf_with_library(
+    results: dict, target: Path, *, version: str = "3.0"
+) -> dict[str, int]:
+    """``write_bcf`` through bcf-client: new files and updates of earlier ones."""
+    bx, mdl, tp, vi = _modules(version)
     old, old_topics = _open_existing(bx, target, version)
     project_name = Path(results["model"]["path"]).name
     doc = old if old is not None else _new_document(bx, mdl, version, project_name)
@@ -243,3 +257,80 @@ def _close_topic(mdl, version, h, guid: str, when, tool: str) -> str | None:
         _add_comment(mdl, version, h, f"Closed by {AUTHOR} {tool}: the problem is no longer "
                      "found.", when, key)
     return "closed"
+
+
+# --- a new BCF 3.0 file, written directly -------------------------------------------------
+
+_XML_HEAD = '<?xml version="1.0" encoding="UTF-8"?>\n'
+_NS = ' xmlns:xs="http://www.w3.org/2001/XMLSchema"'
+
+
+def _x(text) -> str:
+    """Text for XML content or an attribute value."""
+    return xml_escape(str(text), {'"': "&quot;"})
+
+
+def _xyz(name: str, v) -> str:
+    return f"<{name}><X>{float(v[0])!r}</X><Y>{float(v[1])!r}</Y><Z>{float(v[2])!r}</Z></{name}>"
+
+
+def _markup3(guid: str, p: dict, desc: str, labels: list[str], when: str, vp: str) -> str:
+    lab = "".join(f"<Label>{_x(x)}</Label>" for x in labels)
+    return (
+        f'{_XML_HEAD}<Markup{_NS}><Topic Guid="{guid}" TopicType="{_x(TOPIC_TYPES[p["kind"]])}" '
+        f'TopicStatus="{OPEN}"><Title>{_x(p["title"])}</Title>'
+        f"<Priority>{PRIORITIES[p['severity']]}</Priority><Labels>{lab}</Labels>"
+        f"<CreationDate>{when}</CreationDate><CreationAuthor>{AUTHOR}</CreationAuthor>"
+        f"<Description>{_x(desc)}</Description><Viewpoints>"
+        f'<ViewPoint Guid="{vp}"><Viewpoint>{vp}.bcfv</Viewpoint></ViewPoint>'
+        "</Viewpoints></Topic></Markup>\n"
+    )
+
+
+def _viewpoint3(vp: str, point_mm, elements) -> str:
+    from bcf.geometry import camera_vectors_from_target_position
+
+    target = np.asarray(point_mm, dtype=float) / 1000.0
+    pos, direction, up = camera_vectors_from_target_position(target, CAMERA_OFFSET_M)
+    comps = "".join(f'<Component IfcGuid="{_x(e)}"/>' for e in elements)
+    return (
+        f'{_XML_HEAD}<VisualizationInfo{_NS} Guid="{vp}"><Components><Selection>{comps}'
+        '</Selection><Visibility DefaultVisibility="true"/></Components><PerspectiveCamera>'
+        f"{_xyz('CameraViewPoint', pos)}{_xyz('CameraDirection', direction)}"
+        f"{_xyz('CameraUpVector', up)}<FieldOfView>60.0</FieldOfView>"
+        "<AspectRatio>1.0</AspectRatio></PerspectiveCamera></VisualizationInfo>\n"
+    )
+
+
+def _write_new_bcf3(results: dict, target: Path) -> dict[str, int]:
+    """A new BCF 3.0 archive: the same topics, labels, viewpoints as the library writes."""
+    project_name = Path(results["model"]["path"]).name
+    when = _dt.datetime.fromisoformat(results["check"]["created"])
+    stamp = when.astimezone(_dt.UTC).strftime("%Y-%m-%dT%H:%M:%SZ")
+    pid = str(stable_uuid("project/" + project_name))
+    types = "".join(f"<TopicType>{_x(t)}</TopicType>" for t in TOPIC_TYPES.values())
+    prios = "".join(f"<Priority>{x}</Priority>" for x in PRIORITIES.values())
+    labels = [LABEL, *TOPIC_TYPES, "extended_end_plate", "flush_end_plate", "welded",
+              "fin_plate", "incomplete", "undetailed", "unsupported"]
+    buf = io.BytesIO()
+    n = 0
+    with zipfile.ZipFile(buf, "w", zipfile.ZIP_DEFLATED) as z:
+        z.writestr("bcf.version", f'{_XML_HEAD}<Version{_NS} VersionId="3.0"/>\n')
+        z.writestr("project.bcfp", f'{_XML_HEAD}<ProjectInfo{_NS}><Project ProjectId="{pid}">'
+                   f"<Name>{_x(project_name)}</Name></Project></ProjectInfo>\n")
+        z.writestr("extensions.xml", (
+            f"{_XML_HEAD}<Extensions{_NS}><TopicTypes>{types}</TopicTypes><TopicStatuses>"
+            f"<TopicStatus>{OPEN}</TopicStatus><TopicStatus>{CLOSED}</TopicStatus>"
+            f"</TopicStatuses><Priorities>{prios}</Priorities><TopicLabels>"
+            + "".join(f"<TopicLabel>{_x(x)}</TopicLabel>" for x in labels)
+            + "</TopicLabels></Extensions>\n"))
+        for j, p, desc in _topics(results):
+            guid = p["guid"]
+            key = problem_key(j["beam"], j["beam_end"], p["kind"])
+            vp = str(stable_uuid(key + "/viewpoint"))
+            z.writestr(f"{guid}/markup.bcf",
+                       _markup3(guid, p, desc, [LABEL, p["kind"], j["archetype"]], stamp, vp))
+            z.writestr(f"{guid}/{vp}.bcfv", _viewpoint3(vp, j["point_mm"], p["elements"]))
+            n += 1
+    atomic_write_bytes(target, buf.getvalue())
+    return {"new": n, "updated": 0, "closed": 0, "kept": 0}

@@ -111,3 +111,37 @@ def test_not_a_bcf_file_is_refused(tmp_path, demo_check):
     with pytest.raises(OutputError, match="not a BCF file"):
         write_bcf(demo_check.results, p)
     assert p.read_text() == "not a zip"  # nothing lost
+
+
+def test_the_direct_bcf3_writer_gives_what_the_library_writes(demo_check, tmp_path):
+    # A new BCF 3.0 file is written as XML directly (fast); read back through bcf-client it
+    # holds the same topics, fields, labels, selections and cameras as the library's own file.
+    import bcf.v3.bcfxml as bx
+
+    from ifcjoint.report.bcf import write_bcf, write_bcf_with_library
+
+    res = demo_check.results
+    fast, lib = tmp_path / "fast.bcf", tmp_path / "lib.bcf"
+    assert write_bcf(res, fast)["new"] > 0
+    write_bcf_with_library(res, lib)
+
+    def content(path):
+        doc = bx.BcfXml.load(path)
+        out = {}
+        for guid, h in doc.topics.items():
+            t = h.topic
+            vp = next(iter(h.viewpoints.values())).visualization_info
+            cam = vp.perspective_camera
+            out[guid] = (
+                t.title, t.description, t.priority, t.topic_type, t.topic_status,
+                tuple(t.labels.label), str(t.creation_date), t.creation_author,
+                tuple(c.ifc_guid for c in vp.components.selection.component),
+                tuple(round(v, 9) for v in (cam.camera_view_point.x, cam.camera_view_point.y,
+                                            cam.camera_view_point.z, cam.camera_direction.x,
+                                            cam.camera_up_vector.z)),
+            )
+        ext = doc.extensions
+        doc.close()
+        return out, list(ext.topic_types.topic_type), list(ext.topic_labels.topic_label)
+
+    assert content(fast) == content(lib)
