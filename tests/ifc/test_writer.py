@@ -53,3 +53,31 @@ def test_writing_over_the_input_needs_in_place(tmp_path):
     with pytest.raises(UsageError, match="input model"):
         write_property_sets(copy, copy, [])
     assert write_property_sets(copy, copy, [], in_place=True)["beams"] == 0
+
+
+def test_text_and_numbers_as_iso_10303_21_writes_them():
+    # ISO 10303-21: apostrophes doubled, backslashes doubled, characters beyond ASCII as
+    # \X2\hhhh\X0\; a REAL always has a decimal point.
+    from ifcjoint.ifc.writer import step_real, step_string
+
+    assert step_string("it's") == "'it''s'"
+    assert step_string("a\\b") == "'a\\\\b'"
+    assert step_string("Träger") == "'Tr\\X2\\00E4\\X0\\ger'"
+    assert [step_real(x) for x in (1.0, 0.125, 1e-7, 2.5e20)] == ["1.", "0.125", "1.E-7",
+                                                                  "2.5E20"]
+    with pytest.raises(ValueError):
+        step_real(float("inf"))
+
+
+def test_names_beyond_ascii_survive_the_copy(tmp_path):
+    # A label with an apostrophe and an umlaut goes into the copy and reads back unchanged.
+    src = ifcopenshell.open(str(SAMPLES / "kestrel-workshop-ifc4-mm.ifc"))
+    beam = src.by_type("IfcBeam")[0].GlobalId
+    req = PsetRequest(guid=beam, name="ifcjoint_Test", key=f"{beam}/t",
+                      values=(("Label", "IfcLabel", "Träger's end, 2/B", None),
+                              ("Count", "IfcInteger", 3, None)))
+    out = tmp_path / "o.ifc"
+    write_property_sets(SAMPLES / "kestrel-workshop-ifc4-mm.ifc", out, [req])
+    f = ifcopenshell.open(str(out))
+    ps = ifcopenshell.util.element.get_psets(f.by_guid(beam))["ifcjoint_Test"]
+    assert ps["Label"] == "Träger's end, 2/B" and ps["Count"] == 3
