@@ -63,7 +63,7 @@ def test_text_and_numbers_as_iso_10303_21_writes_them():
     assert step_string("it's") == "'it''s'"
     assert step_string("a\\b") == "'a\\\\b'"
     assert step_string("Träger") == "'Tr\\X2\\00E4\\X0\\ger'"
-    assert [step_real(x) for x in (1.0, 0.125, 1e-7, 2.5e20)] == ["1.", "0.125", "1.E-7",
+    assert [step_real(x) for x in (1.0, 0.125, 1e-7, 2.5e20)] == ["1.0", "0.125", "1.E-7",
                                                                   "2.5E20"]
     with pytest.raises(ValueError):
         step_real(float("inf"))
