@@ -9,6 +9,8 @@ elsewhere.
 
 from __future__ import annotations
 
+import base64
+import gzip
 from collections import Counter
 
 from jinja2 import Environment, PackageLoader, select_autoescape
@@ -63,6 +65,7 @@ def _sheet(j: dict, svg_mphi: str | None, code) -> dict:
     c = j["check"]
     svg_plate = plate_svg(j)
     return {
+        "chunk": None,
         "joint": j,
         "check": c,
         "components": component_rows(c, code),
@@ -83,6 +86,9 @@ def report_context(results: dict, progress=None) -> dict:
     checked = [j["check"] if j["check"].get("engine_status") == "checked" else {} for j in joints]
     plots = _m_phi_all(checked, progress)
     code = _code_of(results)
+    sheets = [_sheet(j, svg, code) for j, svg in zip(joints, plots, strict=True)]
+    lazy = len(joints) > LAZY_FROM
+    chunks = _compressed_chunks(sheets, code) if lazy else []
     return {
         "r": results,
         "ck": ck,
@@ -92,11 +98,37 @@ def report_context(results: dict, progress=None) -> dict:
         "unchecked": sum(counts.get(s, 0) for s in UNCHECKED),
         "archetypes": sorted(arche.items(), key=lambda kv: -kv[1]),
         "histogram": Markup(hist) if hist else None,
-        "sheets": [_sheet(j, svg, code) for j, svg in zip(joints, plots, strict=True)],
+        "sheets": sheets,
+        "chunks": chunks,
         "statuses": STATUS_WORDS,
-        # Large reports keep each sheet in a <template>, built when opened: the page loads fast.
-        "lazy": len(joints) > LAZY_FROM,
+        # Large reports carry their sheets compressed, unpacked when opened: a small page.
+        "lazy": lazy,
     }
+
+
+#: Sheets per compressed chunk of a large report (one chunk is unpacked per sheet opened).
+CHUNK_SHEETS = 200
+
+
+def _compressed_chunks(sheets: list[dict], code) -> list[tuple[int, str]]:
+    """The sheets' full markup, gzip-compressed and base64-encoded, ``CHUNK_SHEETS`` a chunk.
+
+    Each sheet keeps only its summary in the page (``chunk`` set): a 10,000-joint report is a
+    few megabytes instead of a hundred, and a sheet costs nothing until it is opened.
+    """
+    tpl = _env().get_template("_sheet.html.j2")
+    out = []
+    for k in range(0, len(sheets), CHUNK_SHEETS):
+        html = "".join(
+            tpl.render(s=s, j=s["joint"], c=s["check"], design_code=code.name,
+                       open_sheets=False)
+            for s in sheets[k:k + CHUNK_SHEETS]
+        )
+        data = gzip.compress(html.encode("utf-8"), compresslevel=6, mtime=0)
+        out.append((k // CHUNK_SHEETS, base64.b64encode(data).decode("ascii")))
+        for s in sheets[k:k + CHUNK_SHEETS]:
+            s["chunk"] = k // CHUNK_SHEETS
+    return out
 
 
 def render_html(results: dict, progress=None) -> str:

@@ -66,15 +66,22 @@ def test_status_filter_from_the_address(report_file, demo_check, tmp_path):
 
 
 def test_large_report_builds_a_sheet_when_it_is_opened(demo_check, tmp_path, monkeypatch):
-    # Big reports keep sheets in <template>s; following a link to one builds and opens it.
+    # Big reports carry their sheets compressed in chunks; following a link to one unpacks
+    # its chunk and builds that sheet, with its content (the others stay unbuilt).
     import ifcjoint.report.html as rep
 
     monkeypatch.setattr(rep, "LAZY_FROM", 10)
+    monkeypatch.setattr(rep, "CHUNK_SHEETS", 20)
     page = tmp_path / "lazy.html"
-    page.write_text(rep.render_html(json.loads(json.dumps(build_results(demo_check)))))
+    html = rep.render_html(json.loads(json.dumps(build_results(demo_check))))
+    page.write_text(html)
+    assert html.count('type="application/octet-stream"') == -(-len(demo_check.joints) // 20)
+    assert "7. Detailing findings" not in html  # every sheet's body is in a chunk
     jid = demo_check.top(1)[0].joint.id
-    r = _chromium(tmp_path, "--dump-dom", page.as_uri() + f"#sheet-{jid}")
-    assert 'data-ready="ok"' in r.stdout
-    opened = re.search(rf'<details[^>]*id="sheet-{jid}"[^>]*>', r.stdout).group(0)
-    assert 'data-filled="1"' in opened and "open" in opened
+    r = _chromium(tmp_path, "--virtual-time-budget=10000", "--dump-dom",
+                  page.as_uri() + f"#sheet-{jid}")
+    assert 'data-ready="ok"' in r.stdout, r.stdout[-500:]
+    opened = re.search(rf'<details[^>]*id="sheet-{jid}"[^>]*>.*?</details>', r.stdout, re.S)
+    assert 'data-filled="1"' in opened.group(0) and " open" in opened.group(0)
+    assert "7. Detailing findings" in opened.group(0)
     assert r.stdout.count('data-filled="1"') == 1  # the others stay unbuilt
