@@ -290,14 +290,19 @@ def off_hole(c: np.ndarray, plate: Plate) -> tuple[float, float] | None:
     """
     if not plate.holes:
         return None
-    nrm = np.array(plate.normal)
-    best = None
-    for centre, d in plate.holes:
-        v = np.array(centre) - c
-        dist = float(np.linalg.norm(v - nrm * v.dot(nrm)))
-        if best is None or dist < best[0]:
-            best = (dist, d)
-    return best if best[0] > best[1] / 2 else None
+    centres, dias = _hole_arrays(plate)
+    nrm = np.asarray(plate.normal, dtype=float)
+    v = centres - c
+    v -= np.outer(v @ nrm, nrm)  # in the plate's plane
+    dist = np.sqrt((v * v).sum(axis=1))
+    k = int(dist.argmin())
+    return (float(dist[k]), float(dias[k])) if dist[k] > dias[k] / 2 else None
+
+
+def _hole_arrays(plate: Plate) -> tuple[np.ndarray, np.ndarray]:
+    """A plate's hole centres and diameters as arrays."""
+    return (np.array([h[0] for h in plate.holes], dtype=float),
+            np.array([h[1] for h in plate.holes], dtype=float))
 
 
 def bolt_points(

@@ -319,6 +319,12 @@ def _voids(q: _Profile) -> tuple[float, list[tuple[float, float, float]]]:
     removed, holes = 0.0, []
     for inner in (q["InnerCurves"] if q.t.endswith("WithVoids") else None) or ():
         try:
+            if inner.is_a("IfcCircle"):  # a round hole: its centre and radius, no sampling
+                r = float(inner.Radius)
+                m = axis2placement(q.ctx, inner.Position)
+                removed += math.pi * r * r
+                holes.append((float(m[0, 3]), float(m[1, 3]), 2 * r))
+                continue
             pts = curve_points(q.ctx, inner)
             removed += shapely.Polygon(pts).area
             c = pts.mean(axis=0)
