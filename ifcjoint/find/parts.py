@@ -195,9 +195,10 @@ class _Matcher:
         for v in self.links.values():
             v.sort(key=lambda x: self._ORDER.get(x[0], 9))
 
-    def candidates(self, center: np.ndarray) -> list[_Cand]:
-        """Joints whose zone holds the point in plan and height, with inside-ness and distance.
+    def candidates_of(self, centers: np.ndarray) -> list[list[_Cand]]:
+        """For each point, the joints whose zone holds it, with inside-ness and distance.
 
+        Every point in one query.
         Inside: within the zone's extents along the beam, up its depth and across. Distance:
         to the beam's centreline segment, from ``back`` behind the beam end to the column
         face, ignoring height within the beam depth (a part beside the beam's web is closer
@@ -205,24 +206,28 @@ class _Matcher:
         of every storey above one another; the height test keeps the zones the point's height
         falls in (the others could only hold it by a relation, which names the joint itself).
         """
-        idx = self.tree.query(shapely.points(center[0], center[1]))
-        if len(idx) == 0:
-            return []
-        d = center - self._o[idx]
-        b = np.einsum("ij,ij->i", d, self._n[idx])
-        near = np.abs(b) <= self._half_n[idx]
-        if not near.any():
-            return []
-        idx, d, b = idx[near], d[near], b[near]
-        a = np.einsum("ij,ij->i", d, self._t[idx])
-        c = np.einsum("ij,ij->i", d, self._lat[idx])
-        inside = (a >= -self._back[idx]) & (a <= self._front[idx]) & (
-            np.abs(c) <= self._half_l[idx])
-        a_out = np.maximum(np.maximum(-self._back[idx] - a, 0.0), a - self._reach[idx])
-        b_out = np.maximum(np.abs(b) - self._inner_n[idx], 0.0)
+        out: list[list[_Cand]] = [[] for _ in range(len(centers))]
+        if len(centers) == 0 or len(self.zones) == 0:
+            return out
+        pi, zi = self.tree.query(shapely.points(centers[:, 0], centers[:, 1]))
+        if len(pi) == 0:
+            return out
+        d = centers[pi] - self._o[zi]
+        b = np.einsum("ij,ij->i", d, self._n[zi])
+        near = np.abs(b) <= self._half_n[zi]
+        pi, zi, d, b = pi[near], zi[near], d[near], b[near]
+        a = np.einsum("ij,ij->i", d, self._t[zi])
+        c = np.einsum("ij,ij->i", d, self._lat[zi])
+        inside = (a >= -self._back[zi]) & (a <= self._front[zi]) & (
+            np.abs(c) <= self._half_l[zi])
+        a_out = np.maximum(np.maximum(-self._back[zi] - a, 0.0), a - self._reach[zi])
+        b_out = np.maximum(np.abs(b) - self._inner_n[zi], 0.0)
         dist = np.sqrt(a_out * a_out + b_out * b_out + c * c)
-        ks = self._k[idx]
-        return [(int(k), bool(i), float(x)) for k, i, x in zip(ks, inside, dist, strict=True)]
+        order = np.lexsort((zi, pi))  # by point, then by zone (the order a point query gives)
+        for p, k, ins, x in zip(pi[order].tolist(), self._k[zi[order]].tolist(),
+                                inside[order].tolist(), dist[order].tolist(), strict=True):
+            out[p].append((k, ins, x))
+        return out
 
     def _names(self, k: int, members: set[str], both: bool) -> bool:
         j = self.joint_by_k[k]
@@ -256,13 +261,17 @@ def attach_parts(
         return {}
     mt = _Matcher(model, joints, st)
     plates_of: dict[int, list[PartLink]] = defaultdict(list)
-    for p in model.plates:
-        for k, link in _attach_plate(mt, p, col_frames, st):
+    plate_cands = mt.candidates_of(np.array([p.center for p in model.plates], dtype=float)
+                                   .reshape(-1, 3))
+    for p, cands in zip(model.plates, plate_cands, strict=True):
+        for k, link in _attach_plate(mt, p, col_frames, st, cands):
             plates_of[k].append(link)
     plate_by_guid = {p.guid: p for p in model.plates}
     bolts_of: dict[int, list[PartLink]] = defaultdict(list)
-    for f in model.fasteners:
-        hit = _attach_fastener(mt, f, plates_of, plate_by_guid)
+    fastener_cands = mt.candidates_of(
+        np.array([f.center for f in model.fasteners], dtype=float).reshape(-1, 3))
+    for f, cands in zip(model.fasteners, fastener_cands, strict=True):
+        hit = _attach_fastener(mt, f, plates_of, plate_by_guid, cands)
         if hit is not None:
             bolts_of[hit[0]].append(hit[1])
     out = {}
@@ -276,10 +285,9 @@ def attach_parts(
 
 
 def _attach_plate(
-    mt: _Matcher, p: Plate, col_frames: Frames, st: FinderSettings
+    mt: _Matcher, p: Plate, col_frames: Frames, st: FinderSettings, cands: list[_Cand]
 ) -> list[tuple[int, PartLink]]:
     """The joints a plate belongs to (several for a plate inside a shared column section)."""
-    cands = mt.candidates(np.array(p.center))
     ks, source = mt.by_relation(p.guid, cands)
     dist = {k: d for k, _, d in cands}
     if not ks:
@@ -300,11 +308,11 @@ def _attach_plate(
 
 
 def _attach_fastener(
-    mt: _Matcher, f, plates_of: dict[int, list[PartLink]], plate_by_guid: dict[str, Plate]
+    mt: _Matcher, f, plates_of: dict[int, list[PartLink]], plate_by_guid: dict[str, Plate],
+    cands: list[_Cand],
 ) -> tuple[int, PartLink] | None:
     """The joint a fastener belongs to: by relation, through an attached plate, or nearest."""
     c, ax = np.array(f.center), np.array(f.axis)
-    cands = mt.candidates(c)
     ks, source = mt.by_relation(f.guid, cands)
     if not ks:
         through = {
