@@ -624,5 +624,60 @@ def calc(description, html_out, json_out, from_results, joint_key, out_path, fai
     sys.exit(EXIT_GATE if failed else EXIT_OK)
 
 
+@main.command()
+@click.argument("models", nargs=-1, required=True, type=click.Path(path_type=str))
+@click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
+              help="Folder for every model's outputs (<model name>.json and the --also ones).")
+@click.option("--scan-only", is_flag=True, help="Scan the models instead of checking them.")
+@click.option("--demands", "demands_pattern", default="{stem}-demands.csv", show_default=True,
+              help="Each model's demands CSV beside it; {stem} is the model's file name without "
+              "its extension. A model without one is checked without demands.")
+@click.option("--also", "also", multiple=True,
+              help="More outputs per model, as for check: e.g. --also html:{out}/{stem}.html "
+              "--also bcf:{out}/{stem}.bcf (json, csv, issues, bcf, ifc, html, md).")
+@click.option("--jobs", "-j", type=click.IntRange(1, 64), default=2, show_default=True,
+              help="Models run at the same time, each in its own process.")
+@click.option("--timeout", type=click.FloatRange(min=1), default=3600.0, show_default=True,
+              help="Seconds a model may take; one that takes longer is stopped and reported.")
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
+def batch(models, out_dir, scan_only, demands_pattern, also, jobs, timeout, quiet):
+    """Check (or scan) several MODELS (files or folders), each in its own process.
+
+    A model that cannot be read, crashes or hangs is reported in the summary and never stops
+    the others. Exit code 0 when every model ran, 3 when any could not be used (failed,
+    crashed or timed out). Gates are for single models: run check on one with --fail-on.
+    """
+    from ifcjoint.batch import model_files, run_batch, summary_table
+
+    kinds = {"json": "--json", "csv": "--csv", "issues": "--issues", "bcf": "--bcf",
+             "ifc": "--ifc-out", "html": "--html", "md": "--md"}
+    extra: list[str] = []
+    for a in also:
+        kind, _, target = a.partition(":")
+        if kind not in kinds or not target:
+            _exit(UsageError(f"--also {a!r}: expected KIND:PATH with KIND one of "
+                             f"{', '.join(kinds)} (PATH may use {{stem}} and {{out}})"))
+        if scan_only and kind not in ("json", "csv"):
+            _exit(UsageError(f"--also {kind}: a scan writes json and csv only"))
+        if "{stem}" not in target:
+            _exit(UsageError(f"--also {a!r}: the path needs {{stem}} (one file per model)"))
+        extra += [kinds[kind], target]
+    found = _guarded("finding the models", False, None, lambda: model_files(list(models)))
+    bar = _Bar(sys.stderr.isatty() and not quiet)
+    items = _guarded("running the models", False, bar, lambda: run_batch(
+        "scan" if scan_only else "check", found, Path(out_dir), jobs=jobs, timeout=timeout,
+        demands_pattern=None if scan_only else demands_pattern, extra=extra, progress=bar))
+    if not quiet:
+        from ifcjoint.batch import summary_table
+
+        click.echo(summary_table(items), nl=False)
+    bad = [i for i in items if i.outcome != "done"]
+    if bad:
+        click.echo(f"ifcjoint: {len(bad)} of {len(items)} model(s) could not be run: "
+                   + "; ".join(f"{Path(i.model).name}: {i.outcome} ({i.message})" for i in bad),
+                   err=True)
+    sys.exit(3 if bad else EXIT_OK)
+
+
 if __name__ == "__main__":  # pragma: no cover
     main()

@@ -27,7 +27,9 @@ LAYERS: tuple[frozenset[str], ...] = (
     frozenset({"archetypes"}),
     frozenset({"report"}),
     frozenset({"pipeline"}),
+    frozenset({"batch"}),
     frozenset({"cli"}),
+    frozenset({"__main__"}),
 )
 RANK = {stage: k for k, layer in enumerate(LAYERS) for stage in layer}
 #: Stages that must work without ifcopenshell installed.
