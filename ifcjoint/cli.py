@@ -11,10 +11,12 @@ Exit codes (also in the README and ``ifcjoint --help``) come from the exceptions
        or a rules, parameters, demands, results or joint description file that cannot be used
     4  model read, but it holds no steel beams or columns to scan (outputs still written)
     5  internal error (a bug: please report it with the model if you can)
+    130 interrupted (Ctrl-C), 143 terminated (SIGTERM): no output written or changed
 """
 
 from __future__ import annotations
 
+import contextlib
 import sys
 import traceback
 from collections.abc import Callable
@@ -104,10 +106,39 @@ def _guarded(what: str, debug: bool, bar: _Bar | None, fn: Callable):
             bar.close()
 
 
+EXIT_INTERRUPTED = 130  # 128 + SIGINT, the shell's convention
+EXIT_TERMINATED = 143  # 128 + SIGTERM
+
+
+def _terminated(signum, frame):
+    raise SystemExit(EXIT_TERMINATED)
+
+
+class _Main(click.Group):
+    """The command group: an interrupt or a termination ends the run cleanly.
+
+    Ctrl-C exits 130 and SIGTERM 143; on both the temporaries of the outputs being written
+    are removed (``ifcjoint.fileio.staged_outputs``) and no output is left half-written.
+    """
+
+    def invoke(self, ctx):
+        import signal
+
+        with contextlib.suppress(ValueError):  # not the main thread: leave signals alone
+            signal.signal(signal.SIGTERM, _terminated)
+        try:
+            return super().invoke(ctx)
+        except KeyboardInterrupt:
+            click.echo("\nifcjoint: interrupted; no output was changed", err=True)
+            sys.exit(EXIT_INTERRUPTED)
+
+
 @click.group(
+    cls=_Main,
     context_settings={"help_option_names": ["-h", "--help"]},
     epilog="Exit codes: 0 done (check: gate passed), 1 check gate failed, 2 usage error, "
-    "3 model or input file unusable, 4 no steel members, 5 internal error.",
+    "3 model or input file unusable, 4 no steel members, 5 internal error, 130 interrupted "
+    "(Ctrl-C), 143 terminated.",
 )
 @click.version_option(__version__, prog_name="ifcjoint")
 def main() -> None:
@@ -134,7 +165,7 @@ def _model_options(func):
             click.option(
                 "--rules",
                 "rules_file",
-                type=click.Path(exists=True, dir_okay=False),
+                type=click.Path(),
                 help="Extra element recognition rules (TOML, like ifcjoint/data/recognition.toml).",
             ),
             click.option(
@@ -185,6 +216,14 @@ def _scan(model, bar, debug, **kw):
     )
 
 
+def _outputs_ok(outputs: dict, inputs: dict, may_replace: dict | None = None) -> None:
+    """Before any work: no output may be an input, and every output must be writable."""
+    from ifcjoint.fileio import check_output_paths
+
+    _guarded("checking the output paths", False, None,
+             lambda: check_output_paths(outputs, inputs, may_replace=may_replace))
+
+
 def _wrote(quiet: bool):
     """Report each output written (on stderr)."""
 
@@ -201,7 +240,7 @@ def _wrote(quiet: bool):
 
 
 @main.command()
-@click.argument("model", type=click.Path(dir_okay=False, path_type=str))
+@click.argument("model", type=click.Path(path_type=str))
 @click.option(
     "--json",
     "json_out",
@@ -219,20 +258,24 @@ def _wrote(quiet: bool):
 def scan(model, json_out, csv_out, brief, quiet, debug, **kw):
     """Find every beam-to-column joint in MODEL (.ifc or .ifczip) and account for every beam end."""
     from ifcjoint.errors import OutputError
+    from ifcjoint.fileio import staged_outputs
     from ifcjoint.pipeline import require_steel
     from ifcjoint.report.scan import build_scan, write_scan_csv, write_scan_json, write_scan_summary
 
+    _outputs_ok({"--json": json_out, "--csv": csv_out},
+                {"the model": model, "the rules file": kw["rules_file"]})
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, **kw)
     scan_dict = build_scan(result)
 
     def write() -> None:
-        for out, render in ((json_out, write_scan_json), (csv_out, write_scan_csv)):
-            if out:
-                try:
-                    render(scan_dict, out)
-                except OSError as exc:
-                    raise OutputError(f"cannot write output: {exc}") from exc
+        with staged_outputs():
+            for out, render in ((json_out, write_scan_json), (csv_out, write_scan_csv)):
+                if out:
+                    try:
+                        render(scan_dict, out)
+                    except OSError as exc:
+                        raise OutputError(f"cannot write {out}: {exc.strerror or exc}") from exc
 
     _guarded("writing the outputs", debug, None, write)
     if not quiet:
@@ -242,7 +285,7 @@ def scan(model, json_out, csv_out, brief, quiet, debug, **kw):
 
 
 @main.command()
-@click.argument("model", type=click.Path(dir_okay=False, path_type=str))
+@click.argument("model", type=click.Path(path_type=str))
 @click.option(
     "-o",
     "--output",
@@ -258,6 +301,7 @@ def demands(model, out, quiet, debug, **kw):
     from ifcjoint.pipeline import require_steel
     from ifcjoint.tables.demands import write_template
 
+    _outputs_ok({"--output": out}, {"the model": model, "the rules file": kw["rules_file"]})
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, **kw)
 
@@ -318,17 +362,26 @@ def _settings(params_file, frame, alpha_method):
 
     code = EN_1993_1_8
     if params_file:
+        where = f"{params_file} (--params)"
         try:
             code = code.with_params(Parameters.from_toml(params_file))
         except tomllib.TOMLDecodeError as exc:
-            raise ConfigError(f"{params_file}: not valid TOML ({exc})") from exc
-        except (ValueError, OSError) as exc:
-            raise ConfigError(f"parameters: {exc}") from exc
+            raise ConfigError(f"{where}: not valid TOML ({exc})") from exc
+        except UnicodeDecodeError as exc:
+            raise ConfigError(
+                f"{where}: not UTF-8 text ({exc.reason} at byte {exc.start})") from exc
+        except OSError as exc:
+            raise ConfigError(f"{where}: cannot read ({exc.strerror or exc})") from exc
+        except (ValueError, TypeError) as exc:
+            msg = str(exc)
+            if msg.startswith(str(params_file)):
+                msg = msg[len(str(params_file)):].lstrip(": ")
+            raise ConfigError(f"{where}: {msg}") from exc
     return CheckSettings(code=code, braced=frame == "braced", alpha_method=alpha_method)
 
 
 @main.command()
-@click.argument("model", type=click.Path(dir_okay=False, path_type=str))
+@click.argument("model", type=click.Path(path_type=str))
 @click.option(
     "--demands",
     "demands_file",
@@ -376,7 +429,7 @@ def _settings(params_file, frame, alpha_method):
 @click.option(
     "--params",
     "params_file",
-    type=click.Path(exists=True, dir_okay=False),
+    type=click.Path(),
     help="Partial factors and other parameters (TOML; recommended values otherwise).",
 )
 @click.option(
@@ -445,6 +498,13 @@ def check(
                         lambda: _settings(params_file, frame, alpha_method))
     if ifc_out and not in_place and Path(ifc_out).resolve() == Path(model).resolve():
         _exit(UsageError(f"--ifc-out {ifc_out} is the input model; use another path or --in-place"))
+    _outputs_ok(
+        {"--ifc-out": ifc_out, "--bcf": bcf_out, "--issues": issues_out, "--json": json_out,
+         "--csv": csv_out, "--html": html_out, "--md": md_out},
+        {"the model": model, "the demands file": demands_file,
+         "the parameters file": params_file, "the rules file": kw["rules_file"]},
+        may_replace={"--ifc-out": "the model"} if in_place else None,
+    )
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, **kw)
     table = None
@@ -506,7 +566,7 @@ def _read_results(results_json: str) -> dict:
 
 
 @main.command()
-@click.argument("results_json", type=click.Path(dir_okay=False, path_type=str))
+@click.argument("results_json", type=click.Path(path_type=str))
 @click.option("--html", "html_out", type=click.Path(dir_okay=False), help="HTML report to write.")
 @click.option("--md", "md_out", type=click.Path(dir_okay=False), help="Markdown summary to write.")
 @click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
@@ -516,6 +576,7 @@ def report(results_json, html_out, md_out, quiet):
 
     if not html_out and not md_out:
         _exit(UsageError("nothing to write: give --html and/or --md"))
+    _outputs_ok({"--html": html_out, "--md": md_out}, {"the results JSON": results_json})
     data = _guarded("reading the results", False, None, lambda: _read_results(results_json))
     bar = _Bar(sys.stderr.isatty() and not quiet)
     _guarded("writing the reports", False, bar,
@@ -600,6 +661,7 @@ def calc(description, html_out, json_out, from_results, joint_key, out_path, fai
     if from_results:
         if description:
             _exit(UsageError("give a DESCRIPTION to calculate or --from to export, not both"))
+        _outputs_ok({"--out": out_path}, {"the results JSON": from_results})
         wrote = _guarded("exporting the joint", debug, None,
                          lambda: _export_description(from_results, joint_key, out_path))
         if wrote and not quiet:
@@ -607,9 +669,7 @@ def calc(description, html_out, json_out, from_results, joint_key, out_path, fai
         sys.exit(EXIT_OK)
     if not description:
         _exit(UsageError("give a joint DESCRIPTION (.toml or .json), or --from RESULTS --joint ID"))
-    for out in (html_out, json_out):
-        if out and Path(out).resolve() == Path(description).resolve():
-            _exit(UsageError(f"{out} is the description itself; write the output elsewhere"))
+    _outputs_ok({"--html": html_out, "--json": json_out}, {"the description": description})
     when = timestamp.replace(tzinfo=dt.UTC) if timestamp else None
     jc = _guarded("calculating", debug, None, lambda: run_calc(description, created=when))
     _guarded("writing the outputs", debug, None,

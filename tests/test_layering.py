@@ -18,7 +18,8 @@ ROOT = Path(__file__).resolve().parents[1] / "ifcjoint"
 
 #: Stages from the bottom up; a stage may import only stages of a lower rank (and itself).
 LAYERS: tuple[frozenset[str], ...] = (
-    frozenset({"errors", "fileio"}),
+    frozenset({"errors"}),
+    frozenset({"fileio"}),
     frozenset({"model", "ec3"}),
     frozenset({"catalogue"}),
     frozenset({"ifc", "find", "tables"}),

@@ -15,6 +15,14 @@ class NeedsMesh(Exception):
     """The body cannot be read analytically; tessellate it instead."""
 
 
+class DamagedData(ValueError):
+    """The element's data is damaged (a cycle, a zero or non-finite direction or coordinate).
+
+    Never handed to the geometry kernel, which may crash on the same data: the element is
+    reported unreadable with this message.
+    """
+
+
 class ReadContext:
     """The file being read, its schema, and the caches that may only serve this file.
 
@@ -35,6 +43,32 @@ class ReadContext:
         self.a2p: dict[int, tuple] = {}
         self.profiles: dict[int, Any] = {}
         self.placements = PlacementCache(self)
+        self.keys: dict[int, str] = {}  # entity id -> key, for elements whose GlobalId repeats
+        self.duplicates: dict[str, list[int]] = {}  # GlobalId -> entity ids sharing it
+
+    def register(self, elements: list[Any]) -> None:
+        """Give every element a distinct key even where exporters repeated a GlobalId.
+
+        An element keeps its GlobalId as its key unless another element read here has the
+        same one (copy-paste in some modelling tools): then the first (lowest entity id)
+        keeps it and each other one is keyed ``GlobalId#entity`` (``model.identity``), so no
+        two elements ever merge and joint ids stay unique.
+        """
+        from ifcjoint.model.identity import element_key
+
+        by_gid: dict[str, list[int]] = {}
+        for el in elements:
+            by_gid.setdefault(self.att(el, "GlobalId"), []).append(el.id())
+        for gid, ids in by_gid.items():
+            if len(ids) > 1:
+                ids.sort()
+                self.duplicates[gid] = ids
+                for i in ids[1:]:
+                    self.keys[i] = element_key(gid, i)
+
+    def key(self, e: Any) -> str:
+        """The element's key: its GlobalId, made distinct where it repeats (``register``)."""
+        return self.keys.get(e.id()) or self.att(e, "GlobalId")
 
     def att(self, e: Any, name: str) -> Any:
         """Attribute by name through an index of positions (several times faster than ``e.Name``).

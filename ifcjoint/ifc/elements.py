@@ -12,7 +12,7 @@ import math
 
 import numpy as np
 
-from ifcjoint.ifc.context import NeedsMesh, ReadContext
+from ifcjoint.ifc.context import DamagedData, NeedsMesh, ReadContext
 from ifcjoint.ifc.mesh import principal_box, section_outline, tessellate
 from ifcjoint.ifc.profiles import i_shape_from_outline
 from ifcjoint.ifc.recognition import Rules
@@ -35,6 +35,24 @@ def _unit(v) -> np.ndarray:
     x, y, z = float(v[0]), float(v[1]), float(v[2])
     n = math.sqrt(x * x + y * y + z * z)
     return np.array((x / n, y / n, z / n)) if n > 0 else np.array((x, y, z))
+
+
+#: Largest coordinate or size believed, mm (1e9 mm = 1,000 km; common practice, no source).
+_LIMIT_MM = 1e9
+
+
+def _finite(el, *values) -> None:
+    """Refuse an element whose read numbers are not finite or beyond any building.
+
+    Raises:
+        DamagedData: naming the element; it is reported unreadable, never written back.
+    """
+    for v in values:
+        a = np.asarray(v, dtype=float)
+        if not np.isfinite(a).all() or (np.abs(a) > _LIMIT_MM).any():
+            raise DamagedData(
+                f"#{el.id()} {el.is_a()}: coordinates or sizes not finite or beyond 1,000 km "
+                "(damaged geometry)")
 
 
 def _orient(axis: np.ndarray) -> np.ndarray:
@@ -64,7 +82,8 @@ class ElementReader:
 
     def fail(self, el, reason: str) -> None:
         """Record an element that could not be read, with the reason."""
-        self.unreadable.append(Unreadable(element=el.GlobalId, ifc_class=el.is_a(), reason=reason))
+        self.unreadable.append(Unreadable(element=self.ctx.key(el), ifc_class=el.is_a(),
+                                          reason=reason, name=el.Name or ""))
 
     def _boxes(self, el) -> list[SolidBox] | None:
         """Analytic boxes in model units, or None when the body must be tessellated."""
@@ -73,9 +92,11 @@ class ElementReader:
             return solid_boxes(self.ctx, el, world)
         except NeedsMesh:
             return None
+        except DamagedData:
+            raise  # never to the kernel: the element is unreadable
         except (AttributeError, TypeError, ValueError, ZeroDivisionError, IndexError) as exc:
             # Malformed analytic data: let the geometry kernel try before giving up.
-            self.notes.append(f"{el.GlobalId}: analytic read failed ({exc}); tessellated")
+            self.notes.append(f"{self.ctx.key(el)}: analytic read failed ({exc}); tessellated")
             return None
 
     def bolt_shaped(self, el) -> bool:
@@ -197,7 +218,10 @@ class ElementReader:
         source,
         r=None,
     ) -> None:
+        _finite(el, start, end, depth_dir, width_dir, depth, width)
         axis = _unit(np.asarray(end) - np.asarray(start))
+        if not np.isfinite(axis).all() or not axis.any():
+            raise DamagedData("member has zero length")
         kind = self.member_kind(el, axis)
         mat, mat_profiles = self.lookups.material(el)
         texts = self.lookups.texts(el)
@@ -218,7 +242,7 @@ class ElementReader:
             steel = SteelState.NON_STEEL  # solid section, no steel hint: concrete/timber-like
         self.members.append(
             Member(
-                guid=el.GlobalId,
+                guid=self.ctx.key(el),
                 ifc_class=el.is_a(),
                 name=el.Name or "",
                 kind=kind,
@@ -359,10 +383,11 @@ class ElementReader:
         return out
 
     def _add_plate(self, el, center, normal, u, v, hu, hv, t, source, holes=()) -> None:
+        _finite(el, center, normal, u, v, hu, hv, t, *(h[0] for h in holes))
         mat, _ = self.lookups.material(el)
         self.plates.append(
             Plate(
-                guid=el.GlobalId,
+                guid=self.ctx.key(el),
                 ifc_class=el.is_a(),
                 name=el.Name or "",
                 center=tuple(float(x) for x in center),
@@ -448,6 +473,9 @@ class ElementReader:
         except NeedsMesh:
             self.fail(el, "no body and a placement ifcjoint cannot resolve")
             return
+        except DamagedData as exc:
+            self.fail(el, f"damaged placement: {exc}")
+            return
         if el.ObjectPlacement is None:
             self.fail(el, "no body and no placement")
             return
@@ -460,6 +488,7 @@ class ElementReader:
         )
 
     def _add_fastener(self, el, kind, center, axis, length, dia, source, shanks=()) -> None:
+        _finite(el, center, axis, length, dia, *shanks)
         nd = nl = None
         if el.is_a("IfcMechanicalFastener"):
             nd = self.ctx.att(el, "NominalDiameter")
@@ -475,7 +504,7 @@ class ElementReader:
         mat, _ = self.lookups.material(el)
         self.fasteners.append(
             Fastener(
-                guid=el.GlobalId,
+                guid=self.ctx.key(el),
                 ifc_class=el.is_a(),
                 name=el.Name or "",
                 kind=kind,

@@ -53,6 +53,46 @@ def encode_raw_text(raw: bytes) -> tuple[str | None, str | None]:
     return _NON_ASCII.sub(lambda m: _step_escape(m.group(0)), text), note
 
 
+#: Largest .ifc an .ifczip may unpack to, and the highest compression ratio believed above
+#: 64 MB: a "zip bomb" is refused before it fills the memory (common practice, no source).
+MAX_UNZIPPED_BYTES = 16 * 1024**3
+MAX_RATIO = 200.0
+
+
+def _ifc_from_zip(p: Path, name: str) -> bytes:
+    """The .ifc inside an ifczip, read with limits; damage of any kind is a ModelError."""
+    import zlib
+
+    try:
+        with zipfile.ZipFile(p) as zf:
+            infos = [i for i in zf.infolist() if i.filename.lower().endswith(".ifc")]
+            if not infos:
+                raise ModelError(name, "zip archive holds no .ifc file",
+                                 "an ifczip with one .ifc inside")
+            info = infos[0]
+            ratio = info.file_size / max(1, info.compress_size)
+            if info.file_size > MAX_UNZIPPED_BYTES or (
+                    info.file_size > 64 * 1024**2 and ratio > MAX_RATIO):
+                raise ModelError(
+                    name, f"{info.filename!r} would unpack to {info.file_size / 1e9:.1f} GB "
+                    f"({ratio:.0f} times its packed size); refused as a likely zip bomb",
+                    "an ifczip of a real model")
+            out = bytearray()
+            with zf.open(info) as fh:
+                while chunk := fh.read(1 << 20):
+                    out += chunk
+                    if len(out) > max(info.file_size, 1) or len(out) > MAX_UNZIPPED_BYTES:
+                        raise ModelError(name, f"{info.filename!r} unpacks to more than its "
+                                         "declared size; refused", "an undamaged ifczip")
+            return bytes(out)
+    except (zipfile.BadZipFile, zlib.error, EOFError, NotImplementedError, RuntimeError,
+            ValueError) as exc:
+        raise ModelError(name, f"damaged zip archive ({type(exc).__name__}: {exc})",
+                         "an undamaged ifczip") from exc
+    except OSError as exc:
+        raise ModelError(name, f"cannot read the zip archive ({exc.strerror or exc})") from exc
+
+
 def open_model(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...]]:
     """Open an IFC-SPF file or an ifczip, checking it is whole and of a supported schema.
 
@@ -76,19 +116,9 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...
     with tempfile.TemporaryDirectory(prefix="ifcjoint-") as tmp:
         spf = p
         if raw[:4] == b"PK\x03\x04":
-            try:
-                with zipfile.ZipFile(p) as zf:
-                    names = [n for n in zf.namelist() if n.lower().endswith(".ifc")]
-                    if not names:
-                        raise ModelError(
-                            str(path),
-                            "zip archive holds no .ifc file",
-                            "an ifczip with one .ifc inside",
-                        )
-                    spf = Path(zf.extract(names[0], tmp))
-                    raw = spf.read_bytes()
-            except zipfile.BadZipFile as exc:
-                raise ModelError(str(path), f"damaged zip archive ({exc})") from exc
+            raw = _ifc_from_zip(p, str(path))
+            spf = Path(tmp) / "model.ifc"
+            spf.write_bytes(raw)
         head = _header(raw)
         if not head.lstrip().startswith("ISO-10303-21"):
             raise ModelError(

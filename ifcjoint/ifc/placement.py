@@ -10,7 +10,7 @@ import math
 
 import numpy as np
 
-from ifcjoint.ifc.context import NeedsMesh, ReadContext
+from ifcjoint.ifc.context import DamagedData, NeedsMesh, ReadContext
 
 Aff = tuple  # (ox, oy, oz, xx, xy, xz, yx, yy, yz, zx, zy, zz): origin and axis columns
 
@@ -56,6 +56,31 @@ def np_to_aff(m: np.ndarray) -> Aff:
     return tuple(float(x) for x in (*m[:3, 3], *m[:3, 0], *m[:3, 1], *m[:3, 2]))
 
 
+#: Largest coordinate believed, in model units of any kind: beyond it a value is damage
+#: (1e12 mm is a million km; common practice, no source).
+COORDINATE_LIMIT = 1e12
+
+
+def _numbers(e, least: int, what: str) -> tuple[float, ...]:
+    """The numbers of an IfcCartesianPoint or IfcDirection, checked: enough, finite, sane.
+
+    Raises:
+        DamagedData: too few values, not numbers, not finite, beyond ``COORDINATE_LIMIT``,
+            or (a direction) of zero length.
+    """
+    try:
+        v = tuple(float(x) for x in e.get_argument(0))
+    except (TypeError, ValueError, AttributeError, RuntimeError) as exc:
+        raise DamagedData(f"#{e.id()} {e.is_a()} holds no usable {what} ({exc})") from exc
+    if len(v) < least:
+        raise DamagedData(f"#{e.id()} {e.is_a()} has {len(v)} {what}, expected {least} or more")
+    if not all(math.isfinite(x) and abs(x) < COORDINATE_LIMIT for x in v):
+        raise DamagedData(f"#{e.id()} {e.is_a()} {what} {v} are not finite or beyond any model")
+    if what == "direction" and not any(v):
+        raise DamagedData(f"#{e.id()} IfcDirection has zero length")
+    return v
+
+
 def a2p_aff(ctx: ReadContext, p) -> Aff:
     """Affine tuple of an IfcAxis2Placement2D/3D (model units), cached per entity."""
     if p is None:
@@ -66,13 +91,13 @@ def a2p_aff(ctx: ReadContext, p) -> Aff:
         return hit
     att = ctx.att
     loc = att(p, "Location")
-    c = loc.get_argument(0) if loc is not None else (0.0, 0.0, 0.0)
-    o = (float(c[0]), float(c[1]), float(c[2]) if len(c) > 2 else 0.0)
+    c = _numbers(loc, 2, "coordinates") if loc is not None else (0.0, 0.0, 0.0)
+    o = (c[0], c[1], c[2] if len(c) > 2 else 0.0)
     t = p.is_a()
     if t == "IfcAxis2Placement3D":
         ax, ref = att(p, "Axis"), att(p, "RefDirection")
-        z = ax.get_argument(0) if ax is not None else (0.0, 0.0, 1.0)
-        x = ref.get_argument(0) if ref is not None else (1.0, 0.0, 0.0)
+        z = _numbers(ax, 3, "direction") if ax is not None else (0.0, 0.0, 1.0)
+        x = _numbers(ref, 3, "direction") if ref is not None else (1.0, 0.0, 0.0)
         nz = norm3(z)
         z = (z[0] / nz, z[1] / nz, z[2] / nz)
         d = x[0] * z[0] + x[1] * z[1] + x[2] * z[2]
@@ -86,8 +111,10 @@ def a2p_aff(ctx: ReadContext, p) -> Aff:
         out = (*o, *x, *y, *z)
     elif t == "IfcAxis2Placement2D":
         ref = att(p, "RefDirection")
-        x = ref.get_argument(0)[:2] if ref is not None else (1.0, 0.0)
+        x = _numbers(ref, 2, "direction")[:2] if ref is not None else (1.0, 0.0)
         nx = math.hypot(x[0], x[1])
+        if nx == 0.0:
+            raise DamagedData(f"#{ref.id()} IfcDirection has zero length")
         cx, cy = x[0] / nx, x[1] / nx
         out = (*o, cx, cy, 0.0, -cy, cx, 0.0, 0.0, 0.0, 1.0)
     else:
@@ -170,7 +197,7 @@ class PlacementCache:
             if not p.is_a("IfcLocalPlacement"):
                 raise NeedsMesh(f"{p.is_a()} placement")
             if p.id() in seen:
-                raise NeedsMesh("cyclic placement")
+                raise DamagedData(f"placement #{p.id()} is its own ancestor (a cycle)")
             seen.add(p.id())
             chain.append(p)
             p = self.ctx.att(p, "PlacementRelTo")

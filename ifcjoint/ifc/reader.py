@@ -64,7 +64,7 @@ def read_model(
     _read_elements(r, found, progress)
     member_ids = {m.guid for m in r.members}
     part_ids = {p.guid for p in r.plates} | {x.guid for x in r.fasteners}
-    links = part_links(f, member_ids, part_ids)
+    links = part_links(ctx, member_ids, part_ids)
     counts, notes = _counts_and_notes(r, found)
     notes = [*open_notes, *notes]
     return ModelContents(
@@ -110,11 +110,17 @@ def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
                 out.plates.append(el)
             elif r.bolt_shaped(el):
                 out.fasteners.append((el, FastenerKind.BOLT))
-                r.notes.append(f"{el.GlobalId} ({el.is_a()}): taken as a bolt by its shape")
+                r.notes.append(f"{ctx.key(el)} ({el.is_a()}): taken as a bolt by its shape")
             elif kind == FastenerKind.OTHER:
                 out.fasteners.append((el, kind))
             else:
                 out.ignored[el.is_a()] += 1
+    ctx.register([*out.members, *out.plates, *(el for el, _ in out.fasteners)])
+    for gid, ids in sorted(ctx.duplicates.items()):
+        r.notes.append(
+            f"GlobalId {gid} is shared by {len(ids)} elements "
+            f"({', '.join(f'#{i}' for i in ids)}): GlobalIds must be unique; each element is "
+            f"kept apart as {gid}#<entity> and results name the entity; fix the model")
     return out
 
 

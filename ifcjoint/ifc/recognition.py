@@ -137,9 +137,22 @@ def load_rules(extra: str | Path | None = None) -> Rules:
     if extra is not None:
         try:
             data = _merge(data, tomllib.loads(Path(extra).read_text("utf-8")))
-        except (OSError, tomllib.TOMLDecodeError) as exc:
-            raise ConfigError(f"{extra}: cannot read recognition rules: {exc}") from exc
+        except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError) as exc:
+            why = exc.strerror if isinstance(exc, OSError) and exc.strerror else exc
+            raise ConfigError(f"{extra} (--rules): cannot read recognition rules: {why}") from exc
         where = str(extra)
+    try:
+        return _build_rules(data, where)
+    except ConfigError:
+        raise
+    except (KeyError, TypeError, ValueError, AttributeError) as exc:
+        raise ConfigError(
+            f"{where}: recognition rules not shaped like ifcjoint/data/recognition.toml "
+            f"({type(exc).__name__}: {exc})") from exc
+
+
+def _build_rules(data: dict, where: str) -> Rules:
+    """The rules from the merged TOML tables (see ``load_rules``)."""
     m, s, f, p = data["members"], data["steel"], data["fasteners"], data.get("plates", {})
     rules = []
     for r in f.get("rule", []):

@@ -35,46 +35,52 @@ def storey_names(f: ifcopenshell.file) -> dict[int, str]:
     return out
 
 
-def part_links(f: ifcopenshell.file, member_ids: set[str], part_ids: set[str]) -> list[Link]:
-    """Relationships tying plates/fasteners to members, by source."""
+def part_links(ctx: ReadContext, member_ids: set[str], part_ids: set[str]) -> list[Link]:
+    """Relationships tying plates/fasteners to members, by source.
+
+    Parts and members are named by their keys (``ReadContext.key``).
+    """
+    f = ctx.file
+    key = ctx.key
     acc: dict[tuple[str, LinkSource], set[str]] = defaultdict(set)
 
-    def parts_of(el) -> list:
-        if el.GlobalId in part_ids:
-            return [el]
+    def parts_of(el) -> list[str]:
+        k = key(el)
+        if k in part_ids:
+            return [k]
         if el.is_a("IfcElementAssembly"):
-            return [
-                p for p in ifcopenshell.util.element.get_decomposition(el) if p.GlobalId in part_ids
-            ]
+            return [k for p in ifcopenshell.util.element.get_decomposition(el)
+                    if (k := key(p)) in part_ids]
         return []
 
     for rel in f.by_type("IfcRelConnectsWithRealizingElements"):
         ms = {
-            e.GlobalId
+            k
             for e in (rel.RelatingElement, rel.RelatedElement)
-            if e is not None and e.GlobalId in member_ids
+            if e is not None and (k := key(e)) in member_ids
         }
         for r in rel.RealizingElements or ():
             for p in parts_of(r):
                 if ms:
-                    acc[(p.GlobalId, LinkSource.REALIZING)] |= ms
+                    acc[(p, LinkSource.REALIZING)] |= ms
     for asm in f.by_type("IfcElementAssembly"):
-        parts = ifcopenshell.util.element.get_decomposition(asm)
-        ms = {p.GlobalId for p in parts if p.GlobalId in member_ids}
+        parts = [key(p) for p in ifcopenshell.util.element.get_decomposition(asm)]
+        ms = {p for p in parts if p in member_ids}
         if not ms:
             continue
         for p in parts:
-            if p.GlobalId in part_ids:
-                acc[(p.GlobalId, LinkSource.ASSEMBLY)] |= ms
+            if p in part_ids:
+                acc[(p, LinkSource.ASSEMBLY)] |= ms
     for rel in f.by_type("IfcRelConnectsElements"):
         if rel.is_a("IfcRelConnectsWithRealizingElements"):
             continue
         a, b = rel.RelatingElement, rel.RelatedElement
         if a is None or b is None:
             continue
-        for x, y in ((a, b), (b, a)):
-            if x.GlobalId in part_ids and y.GlobalId in member_ids:
-                acc[(x.GlobalId, LinkSource.CONNECTS)].add(y.GlobalId)
+        ka, kb = key(a), key(b)
+        for x, y in ((ka, kb), (kb, ka)):
+            if x in part_ids and y in member_ids:
+                acc[(x, LinkSource.CONNECTS)].add(y)
     return [Link(part=p, members=tuple(sorted(ms)), source=s) for (p, s), ms in acc.items()]
 
 

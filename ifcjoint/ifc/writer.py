@@ -26,7 +26,7 @@ import ifcopenshell.guid
 from ifcjoint.errors import ModelError, OutputError, UsageError
 from ifcjoint.fileio import atomic_write_bytes
 from ifcjoint.ifc.open import encode_raw_text
-from ifcjoint.model.identity import stable_uuid
+from ifcjoint.model.identity import split_key, stable_uuid
 
 #: One property: name, IFC value type, value, unit kind (moment, force, rot or None).
 Prop = tuple[str, str, object, str | None]
@@ -88,6 +88,16 @@ def step_string(text: str) -> str:
     return "'" + "".join(out) + "'"
 
 
+def _writable(value) -> bool:
+    """A value worth a property: not empty and, a number, finite.
+
+    A non-finite number is left out rather than written as text no IFC reader parses.
+    """
+    if value is None or value == "":
+        return False
+    return not (isinstance(value, float) and not math.isfinite(value))
+
+
 def step_real(v: float) -> str:
     """A REAL as ISO 10303-21 writes it: always with a decimal point."""
     if not math.isfinite(v):
@@ -136,16 +146,31 @@ class _Text:
         self.data_end = ends[-1]
         self.by_guid: dict[str, tuple[int, str]] = {}
         self.guid_of: dict[int, str] = {}
+        self.class_of: dict[int, str] = {}
         for m in _ENTITY.finditer(self.text):
             sid = int(m.group(1))
-            self.by_guid[m.group(3)] = (sid, m.group(2).upper())
+            hit = self.by_guid.get(m.group(3))
+            if hit is None or sid < hit[0]:  # a repeated GlobalId: the lowest id keeps it
+                self.by_guid[m.group(3)] = (sid, m.group(2).upper())
             self.guid_of[sid] = m.group(3)
+            self.class_of[sid] = m.group(2).upper()
         self._spans: dict[int, tuple[int, int]] | None = None
         ids = re.findall(r"^#(\d+)\s*=", self.text, re.M)
         longest = max(map(len, ids), default=0)  # the largest number has the most digits
         self.max_id = int(max((x for x in ids if len(x) == longest), default="0"))
         oh = re.search(r"^#(\d+)\s*=\s*IFCOWNERHISTORY\s*\(", self.text, re.M)
         self.owner_history = f"#{oh.group(1)}" if oh else "$"
+
+    def find(self, key: str) -> tuple[int, str] | None:
+        """(entity id, class) of an element key, or None.
+
+        A key is a GlobalId, or ``GlobalId#entity`` where the model repeats the GlobalId
+        (``ifcjoint.model.identity.element_key``).
+        """
+        gid, ent = split_key(key)
+        if ent is None:
+            return self.by_guid.get(gid)
+        return (ent, self.class_of[ent]) if self.guid_of.get(ent) == gid else None
 
     def entity_span(self, step_id: int) -> tuple[int, int] | None:
         """Where an entity's text (``#id=...;``) starts and ends (indexed on first use)."""
@@ -233,7 +258,7 @@ def _assemblies(t: _Text) -> dict[int, int]:
             continue
         for child in re.findall(r"#(\d+)", tail.group(2)):
             parent[int(child)] = int(tail.group(1))
-    kinds = {sid: kind for sid, kind in t.by_guid.values()}
+    kinds = t.class_of
     out: dict[int, int] = {}
     for child in parent:
         p = parent.get(child)
@@ -280,18 +305,18 @@ def write_property_sets(
     asm_of = _assemblies(t) if any(r.assembly_name for r in requests) else {}
     seen_assemblies: set[int] = set()
     for req in requests:
-        hit = t.by_guid.get(req.guid)
+        hit = t.find(req.guid)
         if hit is None:
             counts["missing"] += 1
             continue
-        props = [p for p in req.props(t.schema) if p[2] is not None and p[2] != ""]
+        props = [p for p in req.props(t.schema) if _writable(p[2])]
         w.pset(hit[0], req.name, props, req.key)
         keys.append(req.key)
         counts["beams"] += 1
         if not req.assembly_name:
             continue
-        asm = next((asm_of[t.by_guid[g][0]] for g in req.parts
-                    if g in t.by_guid and t.by_guid[g][0] in asm_of), None)
+        part_ids = [h[0] for g in req.parts if (h := t.find(g)) is not None]
+        asm = next((asm_of[i] for i in part_ids if i in asm_of), None)
         if asm is not None and asm not in seen_assemblies:
             seen_assemblies.add(asm)
             key = f"{t.guid_of[asm]}/joint"

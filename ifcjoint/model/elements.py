@@ -174,6 +174,7 @@ class Unreadable:
     element: str
     ifc_class: str
     reason: str
+    name: str = ""
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

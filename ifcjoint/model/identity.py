@@ -14,6 +14,34 @@ import uuid
 NAMESPACE = uuid.UUID("6f1d2c3a-5b7e-4c1d-9a8f-0e2b4c6d8a10")
 
 
+#: Separates a repeated GlobalId from the entity id that makes its element's key distinct;
+#: never a character of a GlobalId (IFC base-64: 0-9 A-Z a-z _ $).
+KEY_SEPARATOR = "#"
+
+
+def element_key(global_id: str, entity_id: int) -> str:
+    """The key of an element whose GlobalId another element repeats: ``GlobalId#entity``.
+
+    Example:
+        >>> element_key("2O2Fr$t4X7Zf8NOew3FLOH", 1501)
+        '2O2Fr$t4X7Zf8NOew3FLOH#1501'
+    """
+    return f"{global_id}{KEY_SEPARATOR}{entity_id}"
+
+
+def split_key(key: str) -> tuple[str, int | None]:
+    """(GlobalId, entity id or None) of an element key (see ``element_key``).
+
+    Example:
+        >>> split_key("2O2Fr$t4X7Zf8NOew3FLOH#1501")
+        ('2O2Fr$t4X7Zf8NOew3FLOH', 1501)
+        >>> split_key("2O2Fr$t4X7Zf8NOew3FLOH")
+        ('2O2Fr$t4X7Zf8NOew3FLOH', None)
+    """
+    gid, sep, ent = key.partition(KEY_SEPARATOR)
+    return (gid, int(ent)) if sep and ent.isdigit() else (key, None)
+
+
 def joint_id(beam_guid: str, beam_end: str) -> str:
     """Stable joint id from the beam GlobalId and the end, so it survives re-export.
 

@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import datetime as _dt
 import io
+import tempfile
 import zipfile
 from pathlib import Path
 from xml.sax.saxutils import escape as xml_escape
@@ -20,7 +21,7 @@ from xsdata.models.datatype import XmlDateTime
 
 from ifcjoint.errors import OutputError
 from ifcjoint.fileio import atomic_write_bytes
-from ifcjoint.model.identity import problem_key, stable_uuid
+from ifcjoint.model.identity import problem_key, split_key, stable_uuid
 
 AUTHOR = "ifcjoint"
 LABEL = "ifcjoint"
@@ -58,6 +59,11 @@ def _when(dt: _dt.datetime) -> XmlDateTime:
     return XmlDateTime.from_datetime(dt)
 
 
+def _ifc_guids(elements) -> list[str]:
+    """The GlobalIds of element keys (a repeated GlobalId's ``#entity`` removed), once each."""
+    return list(dict.fromkeys(split_key(e)[0] for e in elements))
+
+
 def _viewpoint(vi, mdl, key: str, point_mm, elements):
     from bcf.geometry import camera_vectors_from_target_position
 
@@ -65,7 +71,7 @@ def _viewpoint(vi, mdl, key: str, point_mm, elements):
     pos, direction, up = camera_vectors_from_target_position(target, CAMERA_OFFSET_M)
     info = mdl.VisualizationInfo(
         guid=str(stable_uuid(key + "/viewpoint")),
-        components=vi.build_components(*elements),
+        components=vi.build_components(*_ifc_guids(elements)),
         perspective_camera=vi.build_camera_from_vectors(pos, direction, up),
     )
     return vi.VisualizationInfoHandler(visualization_info=info)
@@ -215,11 +221,10 @@ def write_bcf_with_library(
         if done:
             counts[done] += 1
     # Save beside the target, then rename: the old file is read until the end.
-    target.parent.mkdir(parents=True, exist_ok=True)
-    tmp = target.with_name(f".{target.name}.writing")
-    doc.save(tmp)
-    data = tmp.read_bytes()
-    tmp.unlink()
+    with tempfile.TemporaryDirectory(prefix="ifcjoint-bcf-") as d:
+        tmp = Path(d) / target.name
+        doc.save(tmp)
+        data = tmp.read_bytes()
     doc.close()
     atomic_write_bytes(target, data)
     return counts
@@ -292,7 +297,7 @@ def _viewpoint3(vp: str, point_mm, elements) -> str:
 
     target = np.asarray(point_mm, dtype=float) / 1000.0
     pos, direction, up = camera_vectors_from_target_position(target, CAMERA_OFFSET_M)
-    comps = "".join(f'<Component IfcGuid="{_x(e)}"/>' for e in elements)
+    comps = "".join(f'<Component IfcGuid="{_x(e)}"/>' for e in _ifc_guids(elements))
     return (
         f'{_XML_HEAD}<VisualizationInfo{_NS} Guid="{vp}"><Components><Selection>{comps}'
         '</Selection><Visibility DefaultVisibility="true"/></Components><PerspectiveCamera>'

@@ -84,16 +84,20 @@ def write_calc_outputs(results: dict, targets: dict[str, str | Path | None], *,
     Raises:
         OutputError: an output cannot be written (the message names it).
     """
+    from ifcjoint.fileio import staged_outputs
     from ifcjoint.report.html import write_calc_html
 
     renderers = {"json": write_calc_json, "html": write_calc_html}
-    for kind, render in renderers.items():
-        path = targets.get(kind)
-        if not path:
-            continue
-        try:
-            counts = render(results, path)
-        except OSError as exc:
-            raise OutputError(f"cannot write {path}: {exc}") from exc
-        if done is not None:
-            done(kind, path, counts)
+    written = []
+    with staged_outputs():
+        for kind, render in renderers.items():
+            path = targets.get(kind)
+            if not path:
+                continue
+            try:
+                counts = render(results, path)
+            except OSError as exc:
+                raise OutputError(f"cannot write {path}: {exc.strerror or exc}") from exc
+            written.append((kind, path, counts))
+    for kind, path, counts in written if done is not None else ():
+        done(kind, path, counts)

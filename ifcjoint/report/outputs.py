@@ -11,6 +11,7 @@ from collections.abc import Callable
 from pathlib import Path
 
 from ifcjoint.errors import OutputError
+from ifcjoint.fileio import staged_outputs
 from ifcjoint.report.bcf import write_bcf
 from ifcjoint.report.html import write_html
 from ifcjoint.report.markdown import write_markdown
@@ -40,18 +41,25 @@ def write_outputs(
 ) -> None:
     """Write every output asked for (kind -> path; None: not asked), in the renderers' order.
 
+    The outputs are staged (``ifcjoint.fileio.staged_outputs``): none is moved into place
+    unless all were written.
+
     Raises:
         OutputError: an output cannot be written (the message names it).
         ifcjoint.errors.UsageError: an output would replace the input model.
     """
     options = options or {}
-    for kind, render in RENDERERS.items():
-        path = targets.get(kind)
-        if not path:
-            continue
-        try:
-            counts = render(results, path, **options.get(kind, {}))
-        except OSError as exc:
-            raise OutputError(f"cannot write {path}: {exc}") from exc
-        if done is not None:
+    written: list[tuple[str, str | Path, dict[str, int]]] = []
+    with staged_outputs():  # all or nothing: moved into place when every one is written
+        for kind, render in RENDERERS.items():
+            path = targets.get(kind)
+            if not path:
+                continue
+            try:
+                counts = render(results, path, **options.get(kind, {}))
+            except OSError as exc:
+                raise OutputError(f"cannot write {path}: {exc.strerror or exc}") from exc
+            written.append((kind, path, counts))
+    if done is not None:
+        for kind, path, counts in written:
             done(kind, path, counts)

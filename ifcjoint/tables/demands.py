@@ -135,6 +135,45 @@ def _header_problems(header: list[str]) -> list[str]:
     return problems
 
 
+def _records(p: str, text: str) -> list[tuple[int, list[str], str]]:
+    """The CSV's records as RFC 4180 reads them, each with the line it starts on.
+
+    A quoted cell may hold line breaks (the record then spans several lines, and its line
+    number is that of its first). Blank lines and lines starting with ``#`` outside a quoted
+    cell are skipped. The delimiter is ``;`` when the header has more of them than commas
+    (files written with a decimal comma), else ``,``.
+
+    Raises:
+        DemandsError: a quoted cell never closed, or a cell beyond the size limit.
+    """
+    lines = text.replace("\r\n", "\n").replace("\r", "\n").split("\n")
+    starts: list[int] = []  # the physical line each non-comment line is
+    kept: list[str] = []
+    inside = False
+    for no, ln in enumerate(lines, start=1):
+        if not inside and (not ln.strip() or ln.lstrip().startswith("#")):
+            continue
+        starts.append(no)
+        kept.append(ln)
+        inside = inside != (ln.count('"') % 2 == 1)
+    if not kept:
+        return []
+    head = kept[0]
+    delim = ";" if head.count(";") > head.count(",") else ","
+    reader = csv.reader((ln + "\n" for ln in kept), delimiter=delim)
+    out = []
+    used = 0
+    try:
+        for cells in reader:
+            out.append((starts[used], cells, delim))
+            used = reader.line_num
+    except csv.Error as exc:
+        at = starts[min(used, len(starts) - 1)]
+        raise DemandsError(p, at, f"cannot read the CSV from this line on ({exc}); a quoted "
+                           "cell must be closed by a second double quote") from exc
+    return out
+
+
 def _decode(p: str, raw: bytes) -> str:
     try:
         return raw.decode("utf-8-sig")
@@ -271,14 +310,11 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
         raw = Path(path).read_bytes()
     except OSError as exc:
         raise DemandsError(p, 0, f"cannot read the file ({exc.strerror or exc})") from exc
-    lines = _decode(p, raw).splitlines()
-    numbered = [(i, ln) for i, ln in enumerate(lines, start=1) if ln.strip()]
-    numbered = [(i, ln) for i, ln in numbered if not ln.lstrip().startswith("#")]
-    if not numbered:
+    records = _records(p, _decode(p, raw))
+    if not records:
         raise DemandsError(p, 0, "no header line (expected a CSV with a header row)")
-    head_line, head = numbered[0]
-    delim = ";" if head.count(";") > head.count(",") else ","
-    header = [h.strip() for h in next(csv.reader([head], delimiter=delim))]
+    head_line, head, delim = records[0]
+    header = [h.strip() for h in head]
     hp = _header_problems(header)
     if hp:
         raise DemandsError(p, head_line, "; ".join(hp))
@@ -300,8 +336,7 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
         by_id={j.id: j for j in joints},
         by_beam={(j.beam, j.beam_end): j for j in joints},
     )
-    for line, text_line in numbered[1:]:
-        cells = next(csv.reader([text_line], delimiter=delim), [])
+    for line, cells, _ in records[1:]:
         if not any(c.strip() for c in cells):
             continue  # a row of empty cells, as spreadsheets leave below the data
         table.rows_read += 1

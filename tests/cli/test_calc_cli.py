@@ -102,7 +102,7 @@ def test_unusable_files_and_outputs(tmp_path):
     f = tmp_path / "j.json"
     f.write_text("{}")
     r = run("calc", f, "--json", f)
-    assert r.exit_code == 2 and "is the description itself" in r.output
+    assert r.exit_code == 2 and "is the description; an output never replaces an input" in r.output
     assert f.read_text() == "{}"  # never overwritten
     assert run("calc").exit_code == 2
 

@@ -239,7 +239,7 @@ def test_exit_codes_come_from_the_errors(tmp_path, monkeypatch):
     blocker = tmp_path / "file"
     blocker.write_text("x")
     r = run("check", DEMO, "--csv", blocker / "under-a-file.csv", "-q")
-    assert r.exit_code == 2 and "cannot write" in r.output
+    assert r.exit_code == 2 and "is a file, not a folder" in r.output
 
     def broken(results, path):
         raise RuntimeError("renderer bug")
