@@ -321,7 +321,8 @@ def demands(model, out, quiet, debug, **kw):
 
 
 GATES = {
-    "fail": "exit 1 when a joint fails",
+    "fail": "exit 1 when a joint fails, a beam or column cannot be read, or a demand row is "
+    "rejected",
     "unchecked": "exit 1 when a joint fails or is unchecked (default)",
     "problems": "exit 1 on any problem: also detailing errors and analysis-assumption mismatches",
     "never": "exit 0 whatever the results (report only)",
@@ -338,6 +339,12 @@ def gate_fails(mc, fail_on: str) -> list[str]:
         return why
     if c[Status.FAIL]:
         why.append(f"{c[Status.FAIL]} joint(s) fail")
+    n = len(mc.unreadable_members())
+    if n:
+        why.append(f"{n} beam(s)/column(s) could not be read (their joints are unknown)")
+    if mc.demands is not None and mc.demands.rows_rejected:
+        why.append(f"{mc.demands.rows_rejected} demand row(s) rejected (forces meant for a "
+                   "joint were not checked)")
     if fail_on in ("unchecked", "problems"):
         n = len(mc.unchecked())
         if n:
@@ -510,7 +517,8 @@ def check(
     table = None
     if demands_file:
         table = _guarded("reading the demands", debug, None,
-                         lambda: read_demands(demands_file, result.joints))
+                         lambda: read_demands(demands_file, result.joints,
+                                              result.model.unreadable))
     when = (
         timestamp.replace(tzinfo=dt.UTC)
         if timestamp

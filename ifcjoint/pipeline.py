@@ -43,7 +43,7 @@ from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.engine.verify import JointVerdict, detailing_utilisations, verify_joint
 from ifcjoint.errors import JointFileError, NoSteelError
 from ifcjoint.find import FinderSettings, find_joints
-from ifcjoint.ifc.reader import read_model
+from ifcjoint.ifc.reader import MEMBER_CLASSES, read_model
 from ifcjoint.ifc.recognition import load_rules
 from ifcjoint.model.codes import (
     UNCHECKED,
@@ -55,7 +55,7 @@ from ifcjoint.model.codes import (
     SteelState,
 )
 from ifcjoint.model.demands import Demand
-from ifcjoint.model.elements import Progress
+from ifcjoint.model.elements import Progress, Unreadable
 from ifcjoint.model.joints import Finding, Joint, ScanResult
 from ifcjoint.tables.demands import DemandsTable, read_demands
 from ifcjoint.tables.joint_file import read_description
@@ -168,6 +168,14 @@ class ModelCheck:
     def unchecked(self) -> list[JointCheck]:
         """Joints that are neither pass nor fail."""
         return [j for j in self.joints if j.status in UNCHECKED]
+
+    def unreadable_members(self) -> list[Unreadable]:
+        """Beams, columns and members the model holds but that could not be read.
+
+        Their joints cannot even be found: each is listed with its reason, and fails every
+        gate but ``never``.
+        """
+        return [u for u in self.scan.model.unreadable if u.ifc_class in MEMBER_CLASSES]
 
     def top(self, n: int = 10) -> list[JointCheck]:
         """The n highest utilisations."""
@@ -340,7 +348,8 @@ def check(
         progress=progress,
         anatomy=anatomy,
     )
-    table = read_demands(demands, sc.joints) if isinstance(demands, (str, Path)) else demands
+    table = (read_demands(demands, sc.joints, sc.model.unreadable)
+             if isinstance(demands, (str, Path)) else demands)
     return check_scan(sc, table, settings, created=created, progress=progress)
 
 

@@ -43,6 +43,7 @@ class ReadContext:
         self.a2p: dict[int, tuple] = {}
         self.profiles: dict[int, Any] = {}
         self.placements = PlacementCache(self)
+        self.walking: set[int] = set()  # representation items being read (cycle guard)
         self.keys: dict[int, str] = {}  # entity id -> key, for elements whose GlobalId repeats
         self.duplicates: dict[str, list[int]] = {}  # GlobalId -> entity ids sharing it
 

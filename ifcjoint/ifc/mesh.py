@@ -27,14 +27,104 @@ class MeshBox:
     depth_hint: np.ndarray | None = None
 
 
-def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float):
-    """Yield ``(element, verts_mm, faces)`` for the elements, in world coordinates.
+def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float, *,
+               isolate: bool = True):
+    """Yield ``(element, verts_mm, faces, error)`` for the elements, in world coordinates.
 
     Elements the kernel cannot process are yielded with ``verts`` None and the error text.
+    With ``isolate`` (the default where processes can be forked) the kernel runs in a child
+    process: damaged data that crashes it (a segmentation fault) costs that element, which
+    is reported as unreadable, never the run.
     """
     elements = list(elements)
     if not elements:
         return
+    if isolate and "fork" in multiprocessing.get_all_start_methods():
+        yield from _tessellate_isolated(model, elements, scale_to_mm)
+    else:
+        yield from _tessellate_here(model, elements, scale_to_mm)
+
+
+def _child(model, ids: list[int], one_by_one: bool, conn) -> None:
+    """Tessellate in a forked child; send each result as it is made, then None."""
+    import faulthandler
+
+    faulthandler.disable()  # a crash here is reported by the parent, not dumped on stderr
+    try:
+        els = [model.by_id(i) for i in ids]
+        gen = (_tessellate_one_by_one if one_by_one else _tessellate_here)(model, els, 1.0)
+        for el, v, f, err in gen:
+            conn.send((el.id(), v, f, err))
+        conn.send(None)
+    finally:
+        conn.close()
+
+
+def _tessellate_isolated(model, elements: list, scale_to_mm: float):
+    """Tessellate in forked children; a child that dies loses one element, named, not all.
+
+    A first child runs the kernel's multi-threaded iterator; if it dies, the rest go one by
+    one, and each death marks the element in hand as unreadable before a new child goes on.
+    """
+    ctx = multiprocessing.get_context("fork")
+    remaining = [e.id() for e in elements]
+    one_by_one = False
+    while remaining:
+        recv, send = ctx.Pipe(duplex=False)
+        proc = ctx.Process(target=_child, args=(model, remaining, one_by_one, send), daemon=True)
+        proc.start()
+        send.close()
+        got: set[int] = set()
+        finished = False
+        try:
+            while True:
+                msg = recv.recv()
+                if msg is None:
+                    finished = True
+                    break
+                eid, v, f, err = msg
+                got.add(eid)
+                yield model.by_id(eid), v, f, err
+        except EOFError:
+            pass
+        finally:
+            recv.close()
+            proc.join()
+        remaining = [i for i in remaining if i not in got]
+        if finished or not remaining:
+            break
+        if not one_by_one:
+            one_by_one = True  # the iterator's order is unknown: find the culprit one by one
+            continue
+        code = proc.exitcode
+        why = f"signal {-code}" if code is not None and code < 0 else f"exit code {code}"
+        yield (model.by_id(remaining[0]), None, None,
+               f"the geometry kernel crashed on this element's body ({why}); damaged data?")
+        remaining = remaining[1:]
+
+
+def _tessellate_one_by_one(model, elements: list, scale_to_mm: float):
+    """The kernel on each element alone, in order (to find one that crashes it)."""
+    settings = ifcopenshell.geom.settings()
+    settings.set("use-world-coords", True)
+    for el in elements:
+        yield _shape(settings, el)
+
+
+def _shape(settings, el):
+    try:
+        shape = ifcopenshell.geom.create_shape(settings, el)
+        v = np.asarray(shape.geometry.verts, dtype=float).reshape(-1, 3) * 1000.0
+        f = np.asarray(shape.geometry.faces, dtype=int).reshape(-1, 3)
+        if len(f) == 0:
+            return el, None, None, "body has no triangles"
+        return el, v, f, None
+    except Exception as exc:  # the kernel raises many kinds
+        return el, None, None, f"geometry kernel could not process the body: {exc}"
+
+
+def _tessellate_here(model: ifcopenshell.file, elements: list, scale_to_mm: float):
+    """Tessellate in this process (see ``tessellate``)."""
     settings = ifcopenshell.geom.settings()
     settings.set("use-world-coords", True)
     done = set()
@@ -55,18 +145,8 @@ def tessellate(model: ifcopenshell.file, elements: Iterable, scale_to_mm: float)
             if not it.next():
                 break
     for el in elements:
-        if el.id() in done:
-            continue
-        try:
-            shape = ifcopenshell.geom.create_shape(settings, el)
-            v = np.asarray(shape.geometry.verts, dtype=float).reshape(-1, 3) * 1000.0
-            f = np.asarray(shape.geometry.faces, dtype=int).reshape(-1, 3)
-            if len(f) == 0:
-                yield el, None, None, "body has no triangles"
-            else:
-                yield el, v, f, None
-        except Exception as exc:  # the kernel raises many kinds
-            yield el, None, None, f"geometry kernel could not process the body: {exc}"
+        if el.id() not in done:
+            yield _shape(settings, el)
 
 
 def principal_box(verts: np.ndarray, faces: np.ndarray) -> MeshBox:

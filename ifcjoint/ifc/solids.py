@@ -11,7 +11,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from ifcjoint.ifc.context import NeedsMesh, ReadContext
+from ifcjoint.ifc.context import DamagedData, NeedsMesh, ReadContext
 from ifcjoint.ifc.placement import (
     Aff,
     a2p_aff,
@@ -231,7 +231,14 @@ def walk(
     reader = ITEM_READERS.get(item.is_a())
     if reader is None:
         raise NeedsMesh(item.is_a())
-    reader(_Walk(ctx, m, out, cuts), item)
+    iid = item.id()
+    if iid in ctx.walking:
+        raise DamagedData(f"representation item #{iid} ({item.is_a()}) contains itself (a cycle)")
+    ctx.walking.add(iid)
+    try:
+        reader(_Walk(ctx, m, out, cuts), item)
+    finally:
+        ctx.walking.discard(iid)
 
 
 def body_items(ctx: ReadContext, element):

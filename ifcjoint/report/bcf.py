@@ -21,6 +21,7 @@ from xsdata.models.datatype import XmlDateTime
 
 from ifcjoint.errors import OutputError
 from ifcjoint.fileio import atomic_write_bytes
+from ifcjoint.model.codes import Archetype
 from ifcjoint.model.identity import problem_key, split_key, stable_uuid
 
 AUTHOR = "ifcjoint"
@@ -34,6 +35,9 @@ TOPIC_TYPES = {
     "assumption": "Analysis assumption",
 }
 OPEN, CLOSED = "Open", "Closed"
+#: Every label our topics carry, once each: ours, the problem kinds, the archetypes.
+EXTENSION_LABELS = list(dict.fromkeys(
+    [LABEL, *TOPIC_TYPES, *(a.value for a in Archetype if a != Archetype.UNKNOWN)]))
 #: Camera offset from the joint, metres: up, back and to the side, so the joint is in view.
 CAMERA_OFFSET_M = np.array((3.0, -4.0, 2.5))
 BCF_VERSIONS = ("3.0", "2.1")
@@ -143,8 +147,7 @@ def _new_document(bx, mdl, version: str, project_name: str):
         topic_statuses=mdl.ExtensionsTopicStatuses(topic_status=[OPEN, CLOSED]),
         priorities=mdl.ExtensionsPriorities(priority=list(PRIORITIES.values())),
         topic_labels=mdl.ExtensionsTopicLabels(
-            topic_label=[LABEL, *TOPIC_TYPES, "extended_end_plate", "flush_end_plate",
-                         "welded", "fin_plate", "incomplete", "undetailed", "unsupported"]
+            topic_label=list(EXTENSION_LABELS)
         ),
     )
     return doc
@@ -187,15 +190,15 @@ def write_bcf_with_library(
     ck = results["check"]
     when = _dt.datetime.fromisoformat(ck["created"])
     tool = ck["tool_version"]
-    counts = {"new": 0, "updated": 0, "closed": 0, "kept": 0}
+    counts = {"new": 0, "updated": 0, "unchanged": 0, "closed": 0, "kept": 0}
     current = set()
     for j, p, desc in _topics(results):
         guid = p["guid"]
         current.add(guid)
         labels = [LABEL, p["kind"], j["archetype"]]
         if guid in old_topics:
-            _update_topic(mdl, version, old_topics[guid], p, desc, labels, when, tool)
-            counts["updated"] += 1
+            changed = _update_topic(mdl, version, old_topics[guid], p, desc, labels, when, tool)
+            counts["updated" if changed else "unchanged"] += 1
             continue
         topic = mdl.Topic(
             guid=guid,
@@ -220,6 +223,9 @@ def write_bcf_with_library(
         done = _close_topic(mdl, version, h, guid, when, tool) if guid not in current else None
         if done:
             counts[done] += 1
+    if old is not None and not (counts["new"] or counts["updated"] or counts["closed"]):
+        doc.close()
+        return counts  # nothing changed: the file is left as it was
     # Save beside the target, then rename: the old file is read until the end.
     with tempfile.TemporaryDirectory(prefix="ifcjoint-bcf-") as d:
         tmp = Path(d) / target.name
@@ -230,12 +236,17 @@ def write_bcf_with_library(
     return counts
 
 
-def _update_topic(mdl, version, h, p: dict, desc: str, labels, when, tool: str) -> None:
-    """Our topic found again: new title, description and priority; reopened if closed."""
+def _update_topic(mdl, version, h, p: dict, desc: str, labels, when, tool: str) -> bool:
+    """Our topic found again: new title, description and priority; reopened if closed.
+
+    Returns whether anything of the topic changed.
+    """
     guid = p["guid"]
     t = h.topic
     priority = PRIORITIES[p["severity"]]
-    changed = (t.title, t.description, t.priority) != (p["title"], desc, priority)
+    changed = (t.title, t.description, t.priority, t.topic_type, _labels_of(version, t)) != (
+        p["title"], desc, priority, TOPIC_TYPES[p["kind"]], list(labels))
+    reopened = t.topic_status == CLOSED
     t.title, t.description = p["title"], desc
     t.priority = priority
     t.topic_type = TOPIC_TYPES[p["kind"]]
@@ -246,6 +257,7 @@ def _update_topic(mdl, version, h, p: dict, desc: str, labels, when, tool: str) 
                      "again.", when, f"{guid}/reopen/{when.isoformat()}")
     if changed:
         t.modified_date, t.modified_author = _when(when), AUTHOR
+    return changed or reopened
 
 
 def _close_topic(mdl, version, h, guid: str, when, tool: str) -> str | None:
@@ -315,8 +327,7 @@ def _write_new_bcf3(results: dict, target: Path) -> dict[str, int]:
     pid = str(stable_uuid("project/" + project_name))
     types = "".join(f"<TopicType>{_x(t)}</TopicType>" for t in TOPIC_TYPES.values())
     prios = "".join(f"<Priority>{x}</Priority>" for x in PRIORITIES.values())
-    labels = [LABEL, *TOPIC_TYPES, "extended_end_plate", "flush_end_plate", "welded",
-              "fin_plate", "incomplete", "undetailed", "unsupported"]
+    labels = EXTENSION_LABELS
     buf = io.BytesIO()
     n = 0
     with zipfile.ZipFile(buf, "w", zipfile.ZIP_DEFLATED) as z:
@@ -338,4 +349,4 @@ def _write_new_bcf3(results: dict, target: Path) -> dict[str, int]:
             z.writestr(f"{guid}/{vp}.bcfv", _viewpoint3(vp, j["point_mm"], p["elements"]))
             n += 1
     atomic_write_bytes(target, buf.getvalue())
-    return {"new": n, "updated": 0, "closed": 0, "kept": 0}
+    return {"new": n, "updated": 0, "unchanged": 0, "closed": 0, "kept": 0}

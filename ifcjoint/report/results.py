@@ -373,6 +373,12 @@ def build_results(mc) -> dict:
             ],
         },
         "notes": list(mc.notes),
+        "unreadable_members": [
+            {"element": u.element, "ifc_class": u.ifc_class, "name": u.name,
+             "reason": u.reason,
+             "demand_lines": list(dem.unreadable_rows.get(u.element, ())) if dem else []}
+            for u in mc.unreadable_members()
+        ],
     }
     d["caution"] = CAUTION
     return finite_json(d)
@@ -498,6 +504,16 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
         parts = [f"{STATUS_WORDS[s].split(': ')[1]} {c[s]}" for s in UNCHECKED if c[s]]
         out.write(f" ({', '.join(parts)})")
     out.write("\n")
+    bad = ck.get("unreadable_members") or []
+    if bad:
+        out.write(f"  {len(bad)} beam(s)/column(s) could not be read; their joints are unknown:\n")
+        for u in bad[:20]:
+            rows = f" (demand rows on line {', '.join(map(str, u['demand_lines']))})" \
+                if u["demand_lines"] else ""
+            name = f" '{u['name']}'" if u["name"] else ""
+            out.write(f"    {u['element']} ({u['ifc_class']}){name}: {u['reason']}{rows}\n")
+        if len(bad) > 20:
+            out.write(f"    ... and {len(bad) - 20} more (results JSON: unreadable_members)\n")
     dem = ck["demands"]
     if dem is None:
         out.write("  demands: none given\n")

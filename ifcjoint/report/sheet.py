@@ -8,6 +8,8 @@ dictionary (``joint["check"]``), so a scanned joint and a described one read the
 
 from __future__ import annotations
 
+import math
+
 from ifcjoint.ec3.code import Component, Zone
 from ifcjoint.report.words import STATUS_WORDS
 
@@ -19,7 +21,10 @@ def fmt(v, digits: int = 1) -> str:
     if v is None:
         return "-"
     if isinstance(v, (int, float)) and not isinstance(v, bool):
-        return f"{v:,.{digits}f}"
+        if not math.isfinite(v):
+            return "not available"
+        text = f"{v:,.{digits}f}"
+        return text[1:] if text.startswith("-") and not text.strip("-0.,") else text  # no "-0.0"
     return str(v)
 
 

@@ -11,6 +11,7 @@ from __future__ import annotations
 import csv
 import io
 import math
+from collections.abc import Iterable
 from dataclasses import dataclass, field
 from pathlib import Path
 
@@ -18,6 +19,8 @@ from ifcjoint.errors import DemandsError
 from ifcjoint.fileio import atomic_write_text, safe_cell
 from ifcjoint.model.codes import JointModel
 from ifcjoint.model.demands import Demand
+from ifcjoint.model.elements import Unreadable
+from ifcjoint.model.identity import joint_id, split_key
 from ifcjoint.model.joints import Joint
 
 #: column -> (base quantity, factor to N or N mm). Units are part of the name.
@@ -93,6 +96,8 @@ class DemandsTable:
     problems: list[DemandProblem] = field(default_factory=list)
     rows_read: int = 0
     rows_rejected: int = 0
+    #: rows naming a beam the model holds but that could not be read: element -> lines
+    unreadable_rows: dict[str, list[int]] = field(default_factory=dict)
 
     @property
     def rows_used(self) -> int:
@@ -188,6 +193,14 @@ class _RowError(ValueError):
     """A row that cannot be used; the message says why."""
 
 
+class _UnreadableRow(_RowError):
+    """A row naming a beam of the model that could not be read."""
+
+    def __init__(self, element: str, message: str) -> None:
+        super().__init__(message)
+        self.element = element
+
+
 @dataclass(slots=True)
 class _Reader:
     """What every row is read against: the file, its format and the scan's joints."""
@@ -198,6 +211,27 @@ class _Reader:
     by_id: dict[str, Joint]
     by_beam: dict[tuple[str, str], Joint]
     seen: dict[tuple[str, str], int] = field(default_factory=dict)
+    #: joint ids and beam keys of beams that could not be read -> (element, why)
+    unreadable: dict[str, tuple[str, str]] = field(default_factory=dict)
+
+    def _not_read(self, key: str) -> _RowError | None:
+        hit = self.unreadable.get(key)
+        if hit is None:
+            return None
+        element, why = hit
+        return _UnreadableRow(element, f"beam {element} could not be read ({why}): its joints "
+                              "are not checked; fix the model")
+
+    def _closest(self, jid: str) -> str:
+        """A "did you mean" hint: the joint ids or labels closest to a wrong id."""
+        import difflib
+
+        near = difflib.get_close_matches(jid, list(self.by_id), n=2, cutoff=0.6)
+        if not near:
+            labels = {j.label: j.id for j in self.by_id.values()}
+            near = [f"{labels[x]} ({x})" for x in
+                    difflib.get_close_matches(jid, list(labels), n=2, cutoff=0.6)]
+        return f" (did you mean {' or '.join(near)}?)" if near else ""
 
     @property
     def decimal_comma(self) -> bool:
@@ -210,7 +244,9 @@ class _Reader:
         if jid:
             joint = self.by_id.get(jid)
             if joint is None:
-                raise _RowError(f"unknown joint_id {jid!r} (not a joint of this model's scan)")
+                raise self._not_read(jid) or _RowError(
+                    f"unknown joint_id {jid!r} (not a joint of this model's scan)"
+                    + self._closest(jid))
             if bg and (joint.beam != bg or (be and joint.beam_end != be)):
                 raise _RowError(
                     f"joint_id {jid!r} is beam {joint.beam} {joint.beam_end}, but the row "
@@ -222,7 +258,8 @@ class _Reader:
                 raise _RowError(f"beam_end {row.get('beam_end', '')!r}: expected 'start' or 'end'")
             joint = self.by_beam.get((bg, be))
             if joint is None:
-                raise _RowError(f"no joint at the {be} of beam {bg!r} in this model")
+                raise self._not_read(bg) or _RowError(
+                    f"no joint at the {be} of beam {bg!r} in this model")
             return joint
         raise _RowError("no joint_id and no beam_guid: the row names no joint")
 
@@ -295,11 +332,17 @@ class _Reader:
         )
 
 
-def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> DemandsTable:
+def read_demands(
+    path: str | Path,
+    joints: tuple[Joint, ...] | list[Joint],
+    unreadable: Iterable[Unreadable] = (),
+) -> DemandsTable:
     """Read a demands CSV against the joints of a scan.
 
     Every row problem is recorded with its line number and the row is skipped; the other rows
-    are used. A file that cannot be used at all raises.
+    are used. A row naming a beam that is in the model but could not be read (``unreadable``,
+    from the scan) says so, and is listed against that beam. A file that cannot be used at
+    all raises.
 
     Raises:
         ifcjoint.errors.DemandsError: the file is missing, unreadable, empty or its header is
@@ -335,6 +378,9 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
         delim=delim,
         by_id={j.id: j for j in joints},
         by_beam={(j.beam, j.beam_end): j for j in joints},
+        unreadable={k: (u.element, u.reason) for u in unreadable
+                    for k in (u.element, split_key(u.element)[0],
+                              joint_id(u.element, "start"), joint_id(u.element, "end"))},
     )
     for line, cells, _ in records[1:]:
         if not any(c.strip() for c in cells):
@@ -345,6 +391,8 @@ def read_demands(path: str | Path, joints: tuple[Joint, ...] | list[Joint]) -> D
         except _RowError as exc:
             table.problems.append(DemandProblem(path=p, line=line, message=str(exc)))
             table.rows_rejected += 1
+            if isinstance(exc, _UnreadableRow):
+                table.unreadable_rows.setdefault(exc.element, []).append(line)
             continue
         table.by_joint.setdefault(joint.id, []).append(demand)
     _pair_partners(table, rd.by_id)

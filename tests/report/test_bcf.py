@@ -22,7 +22,7 @@ def test_one_topic_per_problem_with_the_right_elements(tmp_path, demo_check, ver
     p = tmp_path / "issues.bcf"
     counts = write_bcf(demo_check.results, p, version=version)
     problems = demo_check.problems()
-    assert counts == {"new": len(problems), "updated": 0, "closed": 0, "kept": 0}
+    assert counts == {"new": len(problems), "updated": 0, "unchanged": 0, "closed": 0, "kept": 0}
     with zipfile.ZipFile(p) as z:
         assert z.read("bcf.version").decode().count(version) == 1
     doc = _load(p, version)
@@ -67,16 +67,19 @@ def test_rerun_updates_topics_and_closes_solved_ones_keeping_comments(tmp_path, 
     )
     doc.save(p)
     doc.close()
-    # same results again: nothing new, nothing duplicated
+    # same results again: nothing new, nothing duplicated, nothing changed, file untouched
+    before = p.read_bytes()
     again = write_bcf(demo_check.results, p)
-    assert again["new"] == 0 and again["updated"] == len(demo_check.problems())
+    assert again["new"] == 0 and again["updated"] == 0
+    assert again["unchanged"] == len(demo_check.problems())
+    assert p.read_bytes() == before
     # the first joint's problem is solved: its topic is closed, not deleted, comment kept
     solved = copy.deepcopy(demo_check.results)
     first = next(j for j in solved["joints"] if j["check"]["problems"])
     n_first = len(first["check"]["problems"])
     first["check"]["problems"] = []
     c = write_bcf(solved, p)
-    assert c["closed"] == n_first and c["new"] == 0
+    assert c["closed"] == n_first and c["new"] == 0 and c["updated"] == 0
     doc = Bcf3.load(p)
     t = doc.topics[first_guid].topic
     assert t.topic_status == CLOSED
