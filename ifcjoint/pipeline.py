@@ -300,6 +300,13 @@ def check_scan(
     notes = []
     if demands is None:
         notes.append("no demands file given: every checkable joint is unchecked (no_demands)")
+    rep = scan.model.repeated_ids
+    if rep:
+        shown = ", ".join(f"{g} ({len(ids)} elements)" for g, ids in list(rep.items())[:5])
+        notes.append(
+            f"warning: {len(rep)} GlobalId(s) repeated in the model ({shown}"
+            f"{', ...' if len(rep) > 5 else ''}): each element is kept apart and named "
+            "GlobalId#entity in the results; GlobalIds must be unique, fix the model")
     return ModelCheck(
         scan=scan,
         joints=tuple(out),

@@ -221,6 +221,8 @@ class PlacementCache:
             p1 = c.Points[-1].Coordinates
             dx, dy = p1[0] - p0[0], p1[1] - p0[1]
             n = math.hypot(dx, dy)
+            if not math.isfinite(n) or n == 0.0:
+                raise DamagedData(f"grid axis #{ax.id()} has no length")
             if not ax.SameSense:
                 dx, dy = -dx, -dy
             # positive offsets lie to the left of the axis direction

@@ -9,10 +9,12 @@ file owns every cache.
 
 from __future__ import annotations
 
+import math
 from collections import Counter
 from dataclasses import dataclass, field
 from pathlib import Path
 
+from ifcjoint.errors import ModelError
 from ifcjoint.ifc.context import ReadContext
 from ifcjoint.ifc.elements import ElementReader
 from ifcjoint.ifc.open import SUPPORTED_SCHEMAS, open_model
@@ -57,14 +59,23 @@ def read_model(
     """
     rules = rules or load_rules()
     f, sha, open_notes = open_model(path)
-    scale, unit_source = length_scale_to_mm(f, str(path), assume_length_unit)
+    where = str(path)
+    scale, unit_source = _model_level(
+        where, "the length unit", lambda: length_scale_to_mm(f, where, assume_length_unit))
+    if not (math.isfinite(scale) and scale > 0):
+        raise ModelError(where, f"the length unit gives {scale} mm per unit",
+                         "a positive, finite length unit")
     ctx = ReadContext(f)
-    r = ElementReader(ctx, scale, rules)
-    found = _sort_elements(ctx, r, rules)
+    r = _model_level(where, "types, materials and storeys",
+                     lambda: ElementReader(ctx, scale, rules))
+    found = _model_level(where, "the elements' classes and names",
+                         lambda: _sort_elements(ctx, r, rules))
     _read_elements(r, found, progress)
     member_ids = {m.guid for m in r.members}
     part_ids = {p.guid for p in r.plates} | {x.guid for x in r.fasteners}
-    links = part_links(ctx, member_ids, part_ids)
+    links = _model_level(where, "the relationships of parts to members",
+                         lambda: part_links(ctx, member_ids, part_ids))
+    axes = _model_level(where, "the grid", lambda: grid_axes(ctx, scale))
     counts, notes = _counts_and_notes(r, found)
     notes = [*open_notes, *notes]
     return ModelContents(
@@ -77,11 +88,31 @@ def read_model(
         plates=tuple(sorted(r.plates, key=lambda p: p.guid)),
         fasteners=tuple(sorted(r.fasteners, key=lambda x: x.guid)),
         links=tuple(sorted(links, key=lambda lk: (lk.part, lk.source))),
-        grid_axes=tuple(grid_axes(ctx, scale)),
+        grid_axes=tuple(axes),
         counts=counts,
         unreadable=tuple(sorted(r.unreadable, key=lambda u: u.element)),
         notes=tuple(notes),
+        repeated_ids={g: tuple(ids) for g, ids in sorted(ctx.duplicates.items())},
     )
+
+
+def _model_level(path: str, what: str, fn):
+    """Run a model-wide reading step; damaged data in it is bad input (exit 3), not a crash.
+
+    Element-level damage never gets here (that element is reported unreadable); this is for
+    what the whole model shares: units, relationships, types, the grid.
+
+    Raises:
+        ModelError: naming the step and the error.
+    """
+    try:
+        return fn()
+    except ModelError:
+        raise
+    except (AttributeError, TypeError, ValueError, IndexError, KeyError, RuntimeError,
+            ZeroDivisionError) as exc:
+        raise ModelError(path, f"damaged data while reading {what} ({type(exc).__name__}: "
+                         f"{exc})", "a valid IFC file; if it is one, please report this") from exc
 
 
 def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:

@@ -11,7 +11,7 @@ import ifcopenshell
 import ifcopenshell.util.element
 import numpy as np
 
-from ifcjoint.ifc.context import NeedsMesh, ReadContext
+from ifcjoint.ifc.context import DamagedData, NeedsMesh, ReadContext
 from ifcjoint.model.codes import LinkSource
 from ifcjoint.model.elements import GridAxis, Link
 
@@ -90,8 +90,8 @@ def grid_axes(ctx: ReadContext, s: float) -> list[GridAxis]:
     for grid in ctx.file.by_type("IfcGrid"):
         try:
             m = ctx.placements.matrix(grid.ObjectPlacement)
-        except NeedsMesh:
-            continue
+        except (NeedsMesh, DamagedData):
+            continue  # grid lines only label joints: a grid that cannot be placed is skipped
         for fam in ("UAxes", "VAxes", "WAxes"):
             for ax in getattr(grid, fam, None) or ():
                 c = ax.AxisCurve
@@ -102,6 +102,8 @@ def grid_axes(ctx: ReadContext, s: float) -> list[GridAxis]:
                     xyz = list(pt.Coordinates) + [0.0] * (3 - len(pt.Coordinates))
                     w = m @ np.array([*xyz, 1.0])
                     pts.append((float(w[0] * s), float(w[1] * s)))
+                if not np.isfinite(pts).all():
+                    continue
                 out.append(
                     GridAxis(tag=str(ax.AxisTag or "?"), family=fam[0], p0=pts[0], p1=pts[1])
                 )

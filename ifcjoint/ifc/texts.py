@@ -171,11 +171,14 @@ def _interesting(pset) -> dict[str, object]:
         return {}
     found = {}
     for p in pset.HasProperties or ():
-        if not p.is_a("IfcPropertySingleValue") or p.NominalValue is None:
-            continue
-        key = p.Name.replace(" ", "").replace("_", "").lower()
-        if key in INTERESTING_PROPERTIES:
-            found[key] = p.NominalValue.wrappedValue
+        try:
+            if not p.is_a("IfcPropertySingleValue") or p.NominalValue is None:
+                continue
+            key = str(p.Name or "").replace(" ", "").replace("_", "").lower()
+            if key in INTERESTING_PROPERTIES:
+                found[key] = p.NominalValue.wrappedValue
+        except (AttributeError, TypeError, RuntimeError):
+            continue  # a damaged property: skipped (a value it held is reported missing)
     return found
 
 

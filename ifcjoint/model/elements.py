@@ -210,3 +210,6 @@ class ModelContents:
     counts: dict[str, int] = field(default_factory=dict)
     unreadable: tuple[Unreadable, ...] = ()
     notes: tuple[str, ...] = ()
+    #: GlobalIds that several elements share -> their entity ids (kept apart, see
+    #: ``ifcjoint.model.identity.element_key``)
+    repeated_ids: dict[str, tuple[int, ...]] = field(default_factory=dict)

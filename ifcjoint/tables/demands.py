@@ -161,6 +161,13 @@ def _records(p: str, text: str) -> list[tuple[int, list[str], str]]:
         starts.append(no)
         kept.append(ln)
         inside = inside != (ln.count('"') % 2 == 1)
+    if inside:
+        opened, was = 0, False
+        for no, now in zip(starts, _opens(kept), strict=True):
+            opened = no if now and not was else opened
+            was = now
+        raise DemandsError(p, opened, "a quoted cell opened on this line is never closed (a "
+                           "quoted cell ends with a second double quote)")
     if not kept:
         return []
     head = kept[0]
@@ -176,6 +183,15 @@ def _records(p: str, text: str) -> list[tuple[int, list[str], str]]:
         at = starts[min(used, len(starts) - 1)]
         raise DemandsError(p, at, f"cannot read the CSV from this line on ({exc}); a quoted "
                            "cell must be closed by a second double quote") from exc
+    return out
+
+
+def _opens(lines: list[str]) -> list[bool]:
+    """For each line, whether a quoted cell is still open at its end."""
+    out, inside = [], False
+    for ln in lines:
+        inside = inside != (ln.count('"') % 2 == 1)
+        out.append(inside)
     return out
 
 
