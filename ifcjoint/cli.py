@@ -464,6 +464,20 @@ def _settings(params_file, frame, alpha_method):
 )
 @click.option("--top", type=click.IntRange(0, 1000), default=10, show_default=True,
               help="How many of the highest utilisations to list.")
+@click.option("--storey", "f_storeys", multiple=True, metavar="NAME",
+              help="Print and write only the joints of this storey (repeatable; wildcards "
+              "such as 'Level 0*' allowed). The BCF and IFC outputs and the gate still cover "
+              "every joint.")
+@click.option("--status", "f_statuses", multiple=True,
+              type=click.Choice(["pass", "fail", "unchecked", "no_demands", "incomplete",
+                                 "unsupported", "unreadable"]),
+              help="Print and write only the joints of this status (repeatable).")
+@click.option("--archetype", "f_archetypes", multiple=True, metavar="NAME",
+              help="Print and write only the joints of this archetype, e.g. flush_end_plate "
+              "(repeatable).")
+@click.option("--joint", "f_joints", multiple=True, metavar="ID",
+              help="Print and write only this joint, by id or label (repeatable; wildcards "
+              "allowed).")
 @click.option(
     "--timestamp",
     type=click.DateTime(formats=["%Y-%m-%dT%H:%M:%S", "%Y-%m-%d"]),
@@ -488,6 +502,10 @@ def check(
     alpha_method,
     fail_on,
     top,
+    f_storeys,
+    f_statuses,
+    f_archetypes,
+    f_joints,
     timestamp,
     quiet,
     debug,
@@ -531,10 +549,15 @@ def check(
     html_bar = _Bar(sys.stderr.isatty() and not quiet)
     options = {"bcf": {"version": bcf_version}, "ifc": {"in_place": in_place},
                "html": {"progress": html_bar}}
+    from ifcjoint.report.results import filter_results
+
+    shown = filter_results(mc.results, storeys=f_storeys, statuses=f_statuses,
+                           archetypes=f_archetypes, joints=f_joints)
     _guarded("writing the outputs", debug, html_bar,
-             lambda: write_outputs(mc.results, targets, options, done=_wrote(quiet)))
+             lambda: write_outputs(shown, targets, options, done=_wrote(quiet),
+                                   complete=mc.results))
     if not quiet:
-        write_check_summary(mc.results, sys.stdout, top=top)
+        write_check_summary(shown, sys.stdout, top=top)
     _guarded("scanning", debug, None, lambda: require_steel(result))
     why = gate_fails(mc, fail_on)
     if why:

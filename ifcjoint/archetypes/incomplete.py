@@ -4,8 +4,20 @@ from __future__ import annotations
 
 from ifcjoint.anatomy import TOUCH_TOLERANCE, JointAnatomy
 from ifcjoint.archetypes.base import JointType, bare_beam_end, bolt_count
-from ifcjoint.model.codes import Archetype, PartRole, Reason, ReasonCode
+from ifcjoint.model.codes import (
+    Archetype,
+    NotChecked,
+    NotCheckedCode,
+    PartRole,
+    Reason,
+    ReasonCode,
+)
 from ifcjoint.model.joints import Joint
+
+
+def parts_missing(joint: Joint) -> NotChecked:
+    """Not checked because parts are missing, naming which (the archetype's reason)."""
+    return NotChecked(NotCheckedCode.PARTS_MISSING, {"reason": joint.archetype_reason})
 
 
 class Incomplete(JointType):
@@ -16,6 +28,10 @@ class Incomplete(JointType):
     """
 
     archetype = Archetype.INCOMPLETE
+
+    def engine_input(self, joint, a, members, st):
+        """Never an engine input: the reason names the missing part."""
+        return parts_missing(joint)
 
     def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
         """The first missing part, in the order a detailer would look."""
@@ -32,6 +48,10 @@ class Undetailed(JointType):
     """A beam drawn into the column with no plates or bolts: the connection is not modelled."""
 
     archetype = Archetype.UNDETAILED
+
+    def engine_input(self, joint, a, members, st):
+        """Never an engine input: the beam is drawn into the column without parts."""
+        return parts_missing(joint)
 
     def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
         """A bare beam end inside the column."""

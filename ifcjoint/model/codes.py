@@ -206,6 +206,7 @@ class NotCheckedCode(StrEnum):
     BEARING_OUT_OF_RANGE = "bearing_out_of_range"  # Table 3.4 used outside Table 3.3's limits
     CLASS_4_BEAM = "class_4_beam"  # M_c,Rd needs the effective section (EN 1993-1-5)
     VALUE_NOT_USABLE = "unusable_value"  # a dimension read that cannot be right
+    PARTS_MISSING = "parts_missing"  # incomplete: the model lacks parts the joint needs
 
     @property
     def status(self) -> Status:

@@ -32,17 +32,24 @@ RENDERERS: dict[str, Renderer] = {
 }
 
 
+#: Outputs that always hold every joint of the run, whatever the filter.
+COMPLETE_KINDS = frozenset({"bcf", "ifc"})
+
+
 def write_outputs(
     results: dict,
     targets: dict[str, str | Path | None],
     options: dict[str, dict] | None = None,
     *,
     done: Callable[[str, str | Path, dict[str, int]], None] | None = None,
+    complete: dict | None = None,
 ) -> None:
     """Write every output asked for (kind -> path; None: not asked), in the renderers' order.
 
     The outputs are staged (``ifcjoint.fileio.staged_outputs``): none is moved into place
-    unless all were written.
+    unless all were written. ``complete``: the unfiltered results when ``results`` is a
+    filtered view (``filter_results``); the BCF issue list and the IFC copy always take every
+    joint, so a filter never closes a topic or drops a property set.
 
     Raises:
         OutputError: an output cannot be written (the message names it).
@@ -56,7 +63,8 @@ def write_outputs(
             if not path:
                 continue
             try:
-                counts = render(results, path, **options.get(kind, {}))
+                data = complete if complete is not None and kind in COMPLETE_KINDS else results
+                counts = render(data, path, **options.get(kind, {}))
             except OSError as exc:
                 raise OutputError(f"cannot write {path}: {exc.strerror or exc}") from exc
             written.append((kind, path, counts))

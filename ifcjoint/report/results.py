@@ -415,6 +415,7 @@ def results_dataframe(results: dict) -> pd.DataFrame:
             {
                 "joint_id": j["id"],
                 "label": j["label"],
+                "storey": j.get("storey", ""),
                 "beam_guid": j["beam"],
                 "beam_end": j["beam_end"],
                 "column_guid": j["column"],
@@ -492,6 +493,76 @@ def top_joints(results: dict, n: int = 10) -> list[dict]:
     return sorted(done, key=lambda j: -j["check"]["utilisation"])[:n]
 
 
+def filter_results(
+    results: dict,
+    *,
+    storeys: tuple[str, ...] = (),
+    statuses: tuple[str, ...] = (),
+    archetypes: tuple[str, ...] = (),
+    joints: tuple[str, ...] = (),
+) -> dict:
+    """The results with only the joints that match every given criterion (any of its values).
+
+    Storeys and joints (id or label) match case-insensitively and may use shell wildcards
+    (``Level 0*``); the status ``unchecked`` stands for every unchecked status. Counts are
+    those of the joints kept; ``check.filter`` records the criteria and how many joints the
+    run had, so no report hides that it is partial. Returns the results unchanged when no
+    criterion is given.
+    """
+    import fnmatch
+
+    if not (storeys or statuses or archetypes or joints):
+        return results
+
+    def like(text: str, patterns) -> bool:
+        t = (text or "").casefold()
+        return any(fnmatch.fnmatchcase(t, p.casefold()) for p in patterns)
+
+    want_status = {x for x in statuses if x != "unchecked"}
+    if "unchecked" in statuses:
+        want_status |= {str(x) for x in UNCHECKED}
+
+    def keep(j: dict) -> bool:
+        return ((not storeys or like(j.get("storey", ""), storeys))
+                and (not statuses or j["check"]["status"] in want_status)
+                and (not archetypes or j["archetype"] in archetypes)
+                and (not joints or like(j["id"], joints) or like(j["label"], joints)))
+
+    kept = [j for j in results["joints"] if keep(j)]
+    out = dict(results)
+    out["joints"] = kept
+    ck = dict(results["check"])
+    counts = Counter(j["check"]["status"] for j in kept)
+    ck["counts"] = {s: counts.get(s, 0) for s in results["check"]["counts"]}
+    ck["filter"] = {"storeys": list(storeys), "statuses": list(statuses),
+                    "archetypes": list(archetypes), "joints": list(joints),
+                    "joints_in_run": len(results["joints"]), "joints_shown": len(kept)}
+    out["check"] = ck
+    return out
+
+
+def unchecked_groups(results: dict) -> list[tuple[str, str, list[dict]]]:
+    """The unchecked joints grouped by status and reason: (status, reason, joints)."""
+    groups: dict[tuple[str, str], list[dict]] = {}
+    for j in results["joints"]:
+        c = j["check"]
+        if c["status"] in UNCHECKED:
+            groups.setdefault((c["status"], c["status_reason"] or ""), []).append(j)
+    return [(s, r, js) for (s, r), js in sorted(groups.items(), key=lambda kv: -len(kv[1]))]
+
+
+def write_unchecked(results: dict, out: TextIO, *, shown: int = 8) -> None:
+    """Every unchecked joint's reason, grouped, with the first labels of each group."""
+    groups = unchecked_groups(results)
+    if not groups:
+        return
+    out.write("  unchecked joints, by reason:\n")
+    for status, reason, js in groups:
+        names = ", ".join(f"{j['label']} ({j['id']})" for j in js[:shown])
+        more = f", ... {len(js) - shown} more" if len(js) > shown else ""
+        out.write(f"    {len(js)} {status.replace('_', ' ')}: {reason}\n      {names}{more}\n")
+
+
 def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
     """Counts by status, the highest utilisations, rejected demand rows, the caution."""
     ck = results["check"]
@@ -499,6 +570,12 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
     n = len(results["joints"])
     unchecked = sum(c[s] for s in UNCHECKED)
     out.write(f"{results['model']['path']}: {n} joints checked by ifcjoint {ck['tool_version']}\n")
+    flt = ck.get("filter")
+    if flt:
+        crit = "; ".join(f"{k} {', '.join(v)}" for k, v in flt.items()
+                         if isinstance(v, list) and v)
+        out.write(f"  filtered ({crit}): {flt['joints_shown']} of {flt['joints_in_run']} joints "
+                  "shown; the gate and the BCF and IFC outputs cover every joint\n")
     out.write(f"  pass {c['pass']}, fail {c['fail']}, unchecked {unchecked}")
     if unchecked:
         parts = [f"{STATUS_WORDS[s].split(': ')[1]} {c[s]}" for s in UNCHECKED if c[s]]
@@ -535,6 +612,7 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
                 f"    {g['utilisation']:6.2f}  {ch['status']:4}  {j['label']} ({j['id']})  "
                 f"{g['name']} ({where})\n"
             )
+    write_unchecked(results, out)
     kinds = Counter(p["kind"] for j in results["joints"] for p in j["check"]["problems"])
     if kinds:
         out.write("  problems: " + ", ".join(f"{k} {v}" for k, v in sorted(kinds.items())) + "\n")

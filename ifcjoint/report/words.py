@@ -100,6 +100,9 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "fin plate, nominally pinned: no moment resistance to check; the fin plate shear "
         "check is not implemented yet"
     ),
+    NotCheckedCode.PARTS_MISSING: lambda v: (
+        f"{coded(v['reason'])}: nothing to check until the model holds the joint's parts"
+    ),
     NotCheckedCode.ARCHETYPE_NOT_CHECKED: lambda v: (
         f"archetype {v['archetype']}: only bolted end plates and welded joints are checked"
     ),
