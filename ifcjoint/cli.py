@@ -424,6 +424,9 @@ def _settings(params_file, frame, alpha_method):
     "--json", "json_out", type=click.Path(dir_okay=False), help="Results JSON (docs/results.md)."
 )
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Results, a row per joint.")
+@click.option("--parts", "parts_out", type=click.Path(dir_okay=False),
+              help="The parts table as CSV: every plate, bolt group and weld of every joint "
+              "with its dimensions and grade, to compare with the shop drawings.")
 @click.option(
     "--html",
     "html_out",
@@ -495,6 +498,7 @@ def check(
     issues_out,
     json_out,
     csv_out,
+    parts_out,
     html_out,
     md_out,
     params_file,
@@ -525,7 +529,7 @@ def check(
         _exit(UsageError(f"--ifc-out {ifc_out} is the input model; use another path or --in-place"))
     _outputs_ok(
         {"--ifc-out": ifc_out, "--bcf": bcf_out, "--issues": issues_out, "--json": json_out,
-         "--csv": csv_out, "--html": html_out, "--md": md_out},
+         "--csv": csv_out, "--parts": parts_out, "--html": html_out, "--md": md_out},
         {"the model": model, "the demands file": demands_file,
          "the parameters file": params_file, "the rules file": kw["rules_file"]},
         may_replace={"--ifc-out": "the model"} if in_place else None,
@@ -544,8 +548,8 @@ def check(
     )
     mc = _guarded("checking", debug, bar,
                   lambda: check_scan(result, table, settings, created=when, progress=bar))
-    targets = {"json": json_out, "csv": csv_out, "issues": issues_out, "bcf": bcf_out,
-               "ifc": ifc_out, "html": html_out, "md": md_out}
+    targets = {"json": json_out, "csv": csv_out, "issues": issues_out, "parts": parts_out,
+               "bcf": bcf_out, "ifc": ifc_out, "html": html_out, "md": md_out}
     html_bar = _Bar(sys.stderr.isatty() and not quiet)
     options = {"bcf": {"version": bcf_version}, "ifc": {"in_place": in_place},
                "html": {"progress": html_bar}}
@@ -740,7 +744,8 @@ def batch(models, out_dir, scan_only, demands_pattern, also, jobs, timeout, quie
     """
     from ifcjoint.batch import model_files, run_batch, summary_table
 
-    kinds = {"json": "--json", "csv": "--csv", "issues": "--issues", "bcf": "--bcf",
+    kinds = {"json": "--json", "csv": "--csv", "issues": "--issues", "parts": "--parts",
+             "bcf": "--bcf",
              "ifc": "--ifc-out", "html": "--html", "md": "--md"}
     extra: list[str] = []
     for a in also:

@@ -21,6 +21,7 @@ from ifcjoint.engine.settings import DESIGN_CODES, design_code
 from ifcjoint.fileio import atomic_write_text
 from ifcjoint.model.codes import UNCHECKED, Status
 from ifcjoint.report.drawing import plate_svg
+from ifcjoint.report.parts import parts_rows
 from ifcjoint.report.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
 from ifcjoint.report.results import unchecked_groups
 from ifcjoint.report.sheet import component_rows, fmt
@@ -98,6 +99,7 @@ def report_context(results: dict, progress=None) -> dict:
         "counts": [(s, STATUS_WORDS[s], counts.get(s, 0), STATUS_COLOURS[s]) for s in Status],
         "unchecked": sum(counts.get(s, 0) for s in UNCHECKED),
         "unchecked_groups": unchecked_groups(results),
+        "parts": None if lazy else parts_rows(results),
         "archetypes": sorted(arche.items(), key=lambda kv: -kv[1]),
         "histogram": Markup(hist) if hist else None,
         "sheets": sheets,

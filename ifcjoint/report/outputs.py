@@ -15,6 +15,7 @@ from ifcjoint.fileio import staged_outputs
 from ifcjoint.report.bcf import write_bcf
 from ifcjoint.report.html import write_html
 from ifcjoint.report.markdown import write_markdown
+from ifcjoint.report.parts import write_parts_csv
 from ifcjoint.report.psets import write_results_ifc
 from ifcjoint.report.results import write_issues, write_results_csv, write_results_json
 
@@ -25,6 +26,7 @@ RENDERERS: dict[str, Renderer] = {
     "json": write_results_json,
     "csv": write_results_csv,
     "issues": write_issues,
+    "parts": write_parts_csv,
     "bcf": write_bcf,
     "ifc": write_results_ifc,
     "html": write_html,
