@@ -166,7 +166,9 @@ def _model_options(func):
                 "--rules",
                 "rules_file",
                 type=click.Path(),
-                help="Extra element recognition rules (TOML, like ifcjoint/data/recognition.toml).",
+                help="Extra element recognition rules: a TOML file shaped like the "
+                "recognition.toml bundled in the installed package (ifcjoint/data); its "
+                "lists come first.",
             ),
             click.option(
                 "--assume-grade",
@@ -245,7 +247,8 @@ def _wrote(quiet: bool):
     "--json",
     "json_out",
     type=click.Path(dir_okay=False, writable=True),
-    help="Write the scan as JSON (schema in docs/scan-json.md).",
+    help="Write the scan as JSON: every joint with its parts and anatomy, every other "
+    "beam end, every unreadable element.",
 )
 @click.option(
     "--csv",
@@ -296,7 +299,11 @@ def scan(model, json_out, csv_out, brief, quiet, debug, **kw):
 )
 @_model_options
 def demands(model, out, quiet, debug, **kw):
-    """Write a demands template for MODEL: one row per joint, ready to fill (docs/demands.md)."""
+    """Write a demands template for MODEL: one row per joint, ready to fill.
+
+    Fill M_Ed_kNm, V_Ed_kN and a combination name in each row; add rows for more
+    combinations.
+    """
     from ifcjoint.errors import OutputError
     from ifcjoint.pipeline import require_steel
     from ifcjoint.tables.demands import write_template
@@ -393,7 +400,8 @@ def _settings(params_file, frame, alpha_method):
     "--demands",
     "demands_file",
     type=click.Path(dir_okay=False),
-    help="Design forces CSV (docs/demands.md). Without it every checkable joint is unchecked.",
+    help="Design forces CSV, a row per joint and combination (`ifcjoint demands` writes a "
+    "template). Without it every checkable joint is unchecked.",
 )
 @click.option(
     "--ifc-out",
@@ -421,7 +429,8 @@ def _settings(params_file, frame, alpha_method):
     help="The issue list as CSV (.csv) or JSON (other suffix).",
 )
 @click.option(
-    "--json", "json_out", type=click.Path(dir_okay=False), help="Results JSON (docs/results.md)."
+    "--json", "json_out", type=click.Path(dir_okay=False),
+    help="Results JSON: every joint with its inputs, components, clauses and status.",
 )
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Results, a row per joint.")
 @click.option("--parts", "parts_out", type=click.Path(dir_okay=False),
@@ -456,7 +465,7 @@ def _settings(params_file, frame, alpha_method):
     default="chart",
     show_default=True,
     help="alpha of EN 1993-1-8 Fig. 6.11: from the chart (its published closed form), or "
-    "the chart's lowest value 4.45 everywhere (docs/check-engine.md).",
+    "the chart's lowest value 4.45 everywhere.",
 )
 @click.option(
     "--fail-on",
@@ -659,7 +668,7 @@ def _export_description(results_json: str, joint_key: str | None, out: str | Non
 @click.option("--html", "html_out", type=click.Path(dir_okay=False),
               help="The calculation sheet as a self-contained HTML page.")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False),
-              help="The one-joint results JSON (docs/joint-file.md).")
+              help="The one-joint results JSON.")
 @click.option("--from", "from_results", type=click.Path(dir_okay=False, path_type=str),
               help="Export a joint of this results JSON (of `check --json`) as a description "
               "to edit and run; with --joint and --out.")
@@ -679,7 +688,7 @@ def _export_description(results_json: str, joint_key: str | None, out: str | Non
 @click.option("--debug", is_flag=True, help="Print a traceback on an internal error.")
 def calc(description, html_out, json_out, from_results, joint_key, out_path, fail_on,
          timestamp, quiet, debug):
-    """Calculate one joint from a DESCRIPTION (TOML or JSON, docs/joint-file.md).
+    """Calculate one joint from a DESCRIPTION (TOML or JSON; `--from` exports one to start from).
 
     Prints its calculation sheet: inputs, components with clauses, row distribution,
     resistances, stiffness, classification and utilisations. With --from, exports a joint of

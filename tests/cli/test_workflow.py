@@ -89,3 +89,11 @@ def test_library_check_shows_its_real_signature():
     sig = inspect.signature(ifcjoint.check)
     assert {"path", "demands", "settings", "created"} <= set(sig.parameters)
     assert "Scan a model, read its demands and check every joint" in ifcjoint.check.__doc__
+
+
+def test_help_texts_name_nothing_the_installed_package_lacks():
+    for cmd in ("scan", "demands", "check", "report", "calc", "batch"):
+        r = run(cmd, "--help")
+        assert r.exit_code == 0
+        assert "docs/" not in r.output, cmd  # the docs folder is not installed
+        assert "..." not in r.output.replace("MODELS...", ""), cmd  # nothing cut off
