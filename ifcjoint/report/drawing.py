@@ -101,13 +101,6 @@ def plate_svg(joint: dict) -> str | None:
         for key in FINDING_DIMENSIONS.get(f.get("code"), ()):
             flagged.setdefault(key, []).append(f["code"])
 
-    def colour(key):
-        return ALERT if key in flagged else DIM
-
-    def label(key, value):
-        tag = f" ! {', '.join(flagged[key])}" if key in flagged else ""
-        return f"{value:.0f}{tag}"
-
     size = max(bp, hp) / 28
     margin = size * 7
     x0, y0 = -bp / 2 - margin, -top - margin
@@ -142,7 +135,28 @@ def plate_svg(joint: dict) -> str | None:
                 f'<circle cx="{x:.1f}" cy="{r["from_beam_top"]:.1f}" r="{max(d0, 1) / 2:.1f}" '
                 f'fill="{HOLE}" stroke="{EDGE}" vector-effect="non-scaling-stroke"/>'
             )
-    # dimensions
+    parts += _plate_dimensions(rows, bp, hp, top, size, flagged)
+    parts.append(_text(0, -top - size * 4.2, f"t_p = {pl.get('tp', 0):.0f} mm, d0 = {d0:.0f} mm",
+                       EDGE, size))
+    parts.append("</svg>")
+    return "".join(parts)
+
+
+def _plate_dimensions(rows: list, bp: float, hp: float, top: float, size: float,
+                      flagged: dict[str, list[str]]) -> list[str]:
+    """The plate's dimension lines: width, gauge, edge, pitches and end distances.
+
+    A dimension a finding concerns is drawn in the alert colour with the finding's code.
+    """
+
+    def colour(key):
+        return ALERT if key in flagged else DIM
+
+    def label(key, value):
+        tag = f" ! {', '.join(flagged[key])}" if key in flagged else ""
+        return f"{value:.0f}{tag}"
+
+    parts: list[str] = []
     bottom = -top + hp
     parts += _dim(-bp / 2, bottom + size * 4.5, bp / 2, bottom + size * 4.5,
                   label("width", bp), colour("width"), size, False)
@@ -172,7 +186,4 @@ def plate_svg(joint: dict) -> str | None:
                       size, True)
         parts += _dim(xl, ys[-1], xl, bottom, label("end_bottom", bottom - ys[-1]),
                       colour("end_bottom"), size, True)
-    parts.append(_text(0, -top - size * 4.2, f"t_p = {pl.get('tp', 0):.0f} mm, d0 = {d0:.0f} mm",
-                       EDGE, size))
-    parts.append("</svg>")
-    return "".join(parts)
+    return parts
