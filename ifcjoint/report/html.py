@@ -22,6 +22,7 @@ from ifcjoint.fileio import atomic_write_text
 from ifcjoint.model.codes import UNCHECKED, Status
 from ifcjoint.report.drawing import plate_svg
 from ifcjoint.report.parts import parts_rows
+from ifcjoint.report.plans import frame_elevations, storey_plans
 from ifcjoint.report.plots import STATUS_COLOURS, m_phi_svg, utilisation_histogram_svg
 from ifcjoint.report.results import unchecked_groups
 from ifcjoint.report.sheet import component_rows, fmt
@@ -90,6 +91,7 @@ def report_context(results: dict, progress=None) -> dict:
     code = _code_of(results)
     sheets = [_sheet(j, svg, code) for j, svg in zip(joints, plots, strict=True)]
     lazy = len(joints) > LAZY_FROM
+    elevations, elevations_left = frame_elevations(results)
     chunks = _compressed_chunks(sheets, code) if lazy else []
     return {
         "r": results,
@@ -100,6 +102,9 @@ def report_context(results: dict, progress=None) -> dict:
         "unchecked": sum(counts.get(s, 0) for s in UNCHECKED),
         "unchecked_groups": unchecked_groups(results),
         "parts": None if lazy else parts_rows(results),
+        "plans": [(name, Markup(svg)) for name, svg in storey_plans(results)],
+        "elevations": [(name, Markup(svg)) for name, svg in elevations],
+        "elevations_left": elevations_left,
         "archetypes": sorted(arche.items(), key=lambda kv: -kv[1]),
         "histogram": Markup(hist) if hist else None,
         "sheets": sheets,

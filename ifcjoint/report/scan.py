@@ -125,8 +125,17 @@ def anatomy_dict(j: Joint, a: JointAnatomy) -> dict:
     }
 
 
-def joint_dict(j: Joint, a: JointAnatomy | None) -> dict:
-    """One joint of the scan as JSON-ready data."""
+def _axis_xy(m, z: float) -> list[float] | None:
+    """Plan position (mm) of a member's axis at height z (None without the member)."""
+    if m is None:
+        return None
+    (x0, y0, z0), (x1, y1, z1) = m.start, m.end
+    t = 0.0 if abs(z1 - z0) < 1e-9 else min(1.0, max(0.0, (z - z0) / (z1 - z0)))
+    return [round(x0 + t * (x1 - x0), 1), round(y0 + t * (y1 - y0), 1)]
+
+
+def joint_dict(j: Joint, a: JointAnatomy | None, column=None) -> dict:
+    """One joint of the scan as JSON-ready data (``column``: the column member, for its axis)."""
     return {
         "id": j.id,
         "label": j.label,
@@ -138,6 +147,7 @@ def joint_dict(j: Joint, a: JointAnatomy | None) -> dict:
         "face": j.face,
         "side": j.side,
         "point_mm": _pt(j.point),
+        "column_axis_mm": _axis_xy(column, j.point[2]),
         "gap_mm": round(j.gap, 3),
         "partner": j.partner,
         "haunch_members": list(j.haunch_members),
@@ -158,6 +168,7 @@ def joint_dict(j: Joint, a: JointAnatomy | None) -> dict:
 def build_scan(result: ScanResult) -> dict:
     """The scan as plain JSON-ready data (documented in docs/scan-json.md)."""
     m = result.model
+    members = {x.guid: x for x in m.members}
     return {
         "schema_version": SCAN_SCHEMA_VERSION,
         "tool": {"name": TOOL_NAME, "version": __version__},
@@ -170,7 +181,8 @@ def build_scan(result: ScanResult) -> dict:
         },
         "counts": dict(sorted(m.counts.items())),
         "settings": result.settings,
-        "joints": [joint_dict(j, result.anatomy.get(j.id)) for j in result.joints],
+        "joints": [joint_dict(j, result.anatomy.get(j.id), members.get(j.column))
+                   for j in result.joints],
         "other_beam_ends": [
             {
                 "beam": o.beam,
@@ -179,6 +191,7 @@ def build_scan(result: ScanResult) -> dict:
                 "other": o.other,
                 "point_mm": _pt(o.point),
                 "label": o.label,
+                "storey": members[o.beam].storey if o.beam in members else "",
             }
             for o in result.other_beam_ends
         ],
