@@ -39,11 +39,18 @@ def _env() -> Environment:
         lstrip_blocks=True,
     )
     env.filters["num"] = _num
+    env.filters["mm"] = _mm
     return env
 
 
 def _num(v, digits: int = 1) -> str:
     return fmt(v, digits)
+
+
+def _mm(v) -> str:
+    """A dimension as drawings give it: to 0.1 mm, without a trailing .0 (common practice)."""
+    text = fmt(v, 1)
+    return text[:-2] if text.endswith(".0") else text
 
 
 def _m_phi_all(checks: list[dict], progress=None) -> list[str | None]:

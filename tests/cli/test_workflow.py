@@ -97,3 +97,15 @@ def test_help_texts_name_nothing_the_installed_package_lacks():
         assert r.exit_code == 0
         assert "docs/" not in r.output, cmd  # the docs folder is not installed
         assert "..." not in r.output.replace("MODELS...", ""), cmd  # nothing cut off
+
+
+def test_report_numbers_are_at_the_precision_of_the_trade(tmp_path):
+    # No float noise such as -49.999999999999545 anywhere in the page: dimensions to 0.1 mm,
+    # forces to 0.1 kN, utilisations to 0.001 (common practice, no source).
+    import re
+
+    html, md = tmp_path / "r.html", tmp_path / "r.md"
+    run("check", DEMO, "--demands", DEMANDS, "--html", html, "--md", md, "-q",
+        "--fail-on", "never")
+    for p in (html, md):
+        assert not re.findall(r"\d\.\d{4,}", p.read_text()), p
