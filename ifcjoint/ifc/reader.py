@@ -14,6 +14,8 @@ from collections import Counter
 from dataclasses import dataclass, field
 from pathlib import Path
 
+import numpy as np
+
 from ifcjoint.errors import ModelError
 from ifcjoint.ifc.context import ReadContext
 from ifcjoint.ifc.elements import ElementReader
@@ -156,7 +158,17 @@ def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
 
 
 def _read_elements(r: ElementReader, found: _Sorted, progress: Progress | None) -> None:
-    """Read every sorted element; one that fails is recorded and never stops the others."""
+    """Read every sorted element; one that fails is recorded and never stops the others.
+
+    Damaged numbers (NaN, infinities, zero lengths) are not warned about by numpy on the way:
+    every element's result is checked for finite values before it is kept, and one that is not
+    is reported unreadable with the reason (``elements._finite``).
+    """
+    with np.errstate(all="ignore"):
+        _read_each(r, found, progress)
+
+
+def _read_each(r: ElementReader, found: _Sorted, progress: Progress | None) -> None:
     jobs = [
         *((el, r.read_member, "member", ()) for el in found.members),
         *((el, r.read_plate, "plate", ()) for el in found.plates),

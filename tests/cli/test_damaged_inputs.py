@@ -156,6 +156,17 @@ def _representation_cycle(t: str) -> str:
     return t[:i] + extra + t[i:]
 
 
+def _no_representation(t: str) -> str:
+    return t.replace(BEAM.group(0), BEAM.group(0)[: -len(BEAM.group(5)) - 1] + "$")
+
+
+HOSTILE = "<script>alert(1)</script>=HYPERLINK(\"x\")"
+
+
+def _hostile_names(t: str) -> str:
+    return t.replace(f"'{BEAM.group(3)}'", f"'{HOSTILE}'", 1)
+
+
 def _schema_lie(t: str) -> str:
     return t.replace("FILE_SCHEMA(('IFC4'))", "FILE_SCHEMA(('IFC2X3'))")
 
@@ -170,6 +181,8 @@ MUTATIONS = {
     "dangling reference": _dangling_reference,
     "representation contains itself": _representation_cycle,
     "schema name lies": _schema_lie,
+    "beam without a representation": _no_representation,
+    "hostile names": _hostile_names,
 }
 
 
@@ -181,7 +194,8 @@ def test_damaged_model_ends_cleanly(tmp_path, case):
 
 
 @pytest.mark.parametrize("case", ["placement refers to itself", "placement cycle of two",
-                                  "huge coordinate", "representation contains itself"])
+                                  "huge coordinate", "representation contains itself",
+                                  "beam without a representation"])
 def test_an_unreadable_beam_is_listed_and_fails_the_gate(tmp_path, case):
     model = _mutated(tmp_path, MUTATIONS[case](TEXT))
     r, out = check_case(tmp_path, model)
@@ -190,6 +204,44 @@ def test_an_unreadable_beam_is_listed_and_fails_the_gate(tmp_path, case):
     assert BEAM_GUID in bad and bad[BEAM_GUID]["reason"]
     assert bad[BEAM_GUID]["demand_lines"]  # the demo gives that beam forces: rows listed
     assert r.exit_code == 1  # the gate fails on it, even --fail-on fail
+
+
+def test_hostile_names_are_inert_in_every_output(tmp_path):
+    model = _mutated(tmp_path, _hostile_names(TEXT))
+    _, out = check_case(tmp_path, model, "--joint", "*")
+    assert "<script>alert" not in out["--html"].read_text()
+    for name in ("--csv", "--issues"):
+        assert ",=HYPERLINK" not in out[name].read_text()
+    with zipfile.ZipFile(out["--bcf"]) as z:  # every XML part still parses
+        import xml.etree.ElementTree as ET
+
+        for n in z.namelist():
+            if n.endswith((".bcf", ".bcfv", ".xml", ".bcfp", ".version")):
+                ET.fromstring(z.read(n))
+
+
+def test_renderers_take_every_value_the_engine_can_give(demo_check, tmp_path):
+    # a utilisation that is missing or not finite is shown as "not available", never a crash
+    import copy
+
+    from ifcjoint.report.outputs import write_outputs
+
+    results = copy.deepcopy(demo_check.results)
+    hit = 0
+    for j in results["joints"]:
+        for cb in j["check"].get("combinations") or []:
+            for k, u in enumerate(cb["utilisations"]):
+                u["utilisation"] = None if k % 2 else float("inf")
+                hit += 1
+        if j["check"]["utilisation"] is not None:
+            j["check"]["utilisation"] = float("inf")
+    assert hit
+    out = {k: tmp_path / f"r.{k}" for k in ("html", "md", "csv", "ifc")}
+    write_outputs(results, out)
+    assert "not available" in out["html"].read_text()
+    data = out["ifc"].read_text().split("DATA;", 1)[1]
+    assert not re.search(r"(?i)[(,]\s*-?(inf|nan)", data)  # no REAL no reader parses
+    assert "'ifcjoint_JointAtStart'" in data and "'MaxUtilisation'" not in data
 
 
 @pytest.mark.parametrize("seed", range(6))
