@@ -19,6 +19,9 @@ from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
 from ifcjoint.engine.inputs import (
     BoltsInput,
     EndPlateJointInput,
+    FinBoltsInput,
+    FinPlateInput,
+    FinPlateJointInput,
     MemberInput,
     PlateInput,
     StiffenerInput,
@@ -123,9 +126,14 @@ def beam_and_column(
     members: dict[str, Member],
     st: CheckSettings,
     extra: tuple[tuple[str, object], ...] = (),
+    *,
+    minor_axis: bool = False,
 ) -> tuple[MemberInput, MemberInput] | NotChecked:
-    """Beam and column engine inputs, or why they cannot be made (axis, missing data)."""
-    minor = require_major_axis(joint)
+    """Beam and column engine inputs, or why they cannot be made (axis, missing data).
+
+    ``minor_axis``: the joint type checks joints on a column web too (saying what it leaves).
+    """
+    minor = None if minor_axis else require_major_axis(joint)
     if minor is not None:
         return minor
     required = (
@@ -272,3 +280,70 @@ def welded_input(
     beam, _col = members_in
     col = members_in[1]
     return WeldedJointInput(column=col, beam=beam, **_shared_fields(a, beam, col, st))
+
+
+#: Bolts within this of each other along the beam form one vertical line (common practice).
+LINE_TOLERANCE = 5.0
+
+
+def fin_plate_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> FinPlateJointInput | NotChecked:
+    """The engine input for a fin plate joint, or the reason it cannot be checked.
+
+    Distances along the beam are measured from the column face: the lever arm z to the centre
+    of the bolt lines, e2 from the outer line to the plate's free end, and the beam web's
+    edge distance from the inner line to the beam end (the joint's gap from the face). With
+    pitches that differ the least is used (smaller pitches lower bearing and raise the
+    group's eccentricity factors: on the safe side).
+    """
+    st = settings or CheckSettings()
+    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)),
+                                 minor_axis=True)
+    if isinstance(members_in, NotChecked):
+        return members_in
+    beam, col = members_in
+    b, p = a.bolts, a.plate
+    if b.d is None or b.bolt_class is None or b.d0 is None:
+        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
+    if int(round(b.d)) not in TENSILE_STRESS_AREA:
+        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
+    lines: list[float] = []
+    for x in sorted(-v for r in b.rows for v in r.along):
+        if not lines or x - lines[-1] > LINE_TOLERANCE:
+            lines.append(x)
+    n1, n2 = len(b.rows), len(lines)
+    if not b.rows or n2 > 2 or any(len(r.bolts) != n2 for r in b.rows):
+        return NotChecked(NotCheckedCode.FIN_BOLT_PATTERN, {"lines": n2, "rows": n1})
+    e2 = -p.along_min - lines[-1]
+    e2_beam = lines[0] - joint.gap
+    if e2 <= 0 or e2_beam <= 0:
+        return NotChecked(NotCheckedCode.FIN_BOLT_PATTERN, {"lines": n2, "rows": n1})
+    try:
+        base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    rows = [r.from_beam_top for r in b.rows]
+    throats = [w.throat for w in a.welds if w.throat is not None and w.throat > 0]
+    weld = min(throats) if throats else _throat(p.tp, base, s.fy, s.fu, st)
+    return FinPlateJointInput(
+        column=col,
+        beam=beam,
+        welds=WeldsInput(top_flange_throat=0.0, bottom_flange_throat=0.0, web_throat=weld,
+                         assumed=not throats, modelled=("fin_plate",) if throats else ()),
+        params=st.params,
+        braced=st.braced,
+        fin=FinPlateInput(
+            tp=p.tp, hp=p.hp, fy=s.fy, fu=s.fu, grade=base, strength_source=s.source,
+            e1_top=rows[0] - p.top_from_beam_top, e1_bottom=p.bottom_from_beam_top - rows[-1],
+            e2=e2, z=sum(lines) / n2, e2_beam=e2_beam,
+        ),
+        bolts=FinBoltsInput(
+            d=b.d, grade=b.bolt_class, fub=BOLT_CLASSES[b.bolt_class][1],
+            As=TENSILE_STRESS_AREA[int(round(b.d))], d0=b.d0, n1=n1, n2=n2,
+            p1=min(b.pitches) if b.pitches else 0.0,
+            gauge=lines[1] - lines[0] if n2 == 2 else 0.0,
+            rows_from_beam_top=tuple(rows),
+        ),
+        support="web" if joint.axis != Axis.MAJOR else "flange",
+    )

@@ -482,6 +482,9 @@ def description_from_joint(joint: dict) -> dict:
     if not inputs:
         raise DescriptionError("inputs", "this joint has no engine input (it was not checked: "
                                          f"{c.get('status_reason') or c.get('status')})")
+    if "fin" in inputs:
+        raise DescriptionError("inputs", "fin plate joints cannot be written as a description "
+                               "yet (descriptions hold end-plate and welded joints)")
     keep_demand = _DEMAND_KEYS - {"source", "other_side_source"}
     out: dict = {
         "label": joint.get("label", ""),

@@ -26,6 +26,17 @@ class Component(StrEnum):
     BEAM_FLANGE_COMPRESSION = "beam_flange_web_compression"
     BEAM_WEB_TENSION = "beam_web_tension"
     BEAM_FLANGE_WELD = "beam_flange_weld"
+    # nominally pinned joints (fin plates): shear components
+    BOLT_GROUP_SHEAR = "bolt_group_shear"
+    PLATE_BEARING = "fin_plate_bearing"
+    BEAM_WEB_BEARING = "beam_web_bearing"
+    PLATE_GROSS_SHEAR = "fin_plate_gross_shear"
+    PLATE_NET_SHEAR = "fin_plate_net_shear"
+    PLATE_BLOCK_TEARING = "fin_plate_block_tearing"
+    PLATE_BENDING = "fin_plate_bending"
+    BEAM_WEB_GROSS_SHEAR = "beam_web_gross_shear"
+    BEAM_WEB_NET_SHEAR = "beam_web_net_shear"
+    PLATE_WELD = "fin_plate_weld"
 
 
 class Zone(StrEnum):
@@ -110,6 +121,42 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         name="beam flange weld",
         formula="F_w,Rd = 2 a b_b f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
     ),
+    Component.BOLT_GROUP_SHEAR: ComponentInfo(
+        name="bolt group in shear (eccentric)",
+        formula="V_Rd = n F_v,Rd / sqrt((1 + alpha n)^2 + (beta n)^2)", zone=Zone.SHEAR),
+    Component.PLATE_BEARING: ComponentInfo(
+        name="bolts in bearing on the fin plate",
+        formula="V_Rd = n / sqrt(((1 + alpha n) / F_b,ver,Rd)^2 + (beta n / F_b,hor,Rd)^2), "
+        "F_b,Rd = k1 alpha_b f_u d t / gamma_M2", zone=Zone.SHEAR),
+    Component.BEAM_WEB_BEARING: ComponentInfo(
+        name="bolts in bearing on the beam web",
+        formula="as for the fin plate, with t_w and the beam web's edge distances",
+        zone=Zone.SHEAR),
+    Component.PLATE_GROSS_SHEAR: ComponentInfo(
+        name="fin plate, gross section in shear",
+        formula="V_Rd = h_p t_p f_y / (1.27 sqrt(3) gamma_M0)", zone=Zone.SHEAR),
+    Component.PLATE_NET_SHEAR: ComponentInfo(
+        name="fin plate, net section in shear",
+        formula="V_Rd = A_v,net f_u / (sqrt(3) gamma_M2), A_v,net = t_p (h_p - n1 d0)",
+        zone=Zone.SHEAR),
+    Component.PLATE_BLOCK_TEARING: ComponentInfo(
+        name="fin plate, block tearing",
+        formula="V_eff,2,Rd = 0.5 f_u A_nt / gamma_M2 + f_y A_nv / (sqrt(3) gamma_M0)",
+        zone=Zone.SHEAR),
+    Component.PLATE_BENDING: ComponentInfo(
+        name="fin plate in bending",
+        formula="V_Rd = (t_p h_p^2 / 6) f_y / (z gamma_M0); none when h_p >= 2.73 z",
+        zone=Zone.SHEAR),
+    Component.BEAM_WEB_GROSS_SHEAR: ComponentInfo(
+        name="beam web, gross section in shear",
+        formula="V_pl,Rd = A_v f_y / (sqrt(3) gamma_M0) (EN 1993-1-1 6.2.6)", zone=Zone.SHEAR),
+    Component.BEAM_WEB_NET_SHEAR: ComponentInfo(
+        name="beam web, net section in shear",
+        formula="V_Rd = (A_v - n1 d0 t_w) f_u / (sqrt(3) gamma_M2)", zone=Zone.SHEAR),
+    Component.PLATE_WELD: ComponentInfo(
+        name="fin plate to support welds",
+        formula="F_w,Rd = 2 a h_p f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
+        zone=Zone.SHEAR),
 }
 
 #: Symbols of the joint properties, as EN 1993-1-8 prints them.

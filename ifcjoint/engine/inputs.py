@@ -175,13 +175,68 @@ class WeldedJointInput(_JointInputBase):
     """A beam welded to a column flange (N, mm, MPa)."""
 
 
+@dataclass(frozen=True, slots=True, kw_only=True)
+class FinPlateInput:
+    """A fin plate welded to the support, bolted to the beam web (mm, MPa).
+
+    Attributes:
+        tp, hp: thickness and depth of the plate; fy, fu, grade its steel.
+        e1_top, e1_bottom: from the top and the bottom row to the plate's top and bottom edges.
+        e2: from the bolt line farthest from the support to the plate's free end.
+        z: lever arm, from the support face to the centre of the bolt group.
+        e2_beam: from the bolt line nearest the beam end to the beam end.
+    """
+
+    tp: float
+    hp: float
+    fy: float
+    fu: float
+    grade: str
+    e1_top: float
+    e1_bottom: float
+    e2: float
+    z: float
+    e2_beam: float
+    strength_source: str = ""
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class FinBoltsInput:
+    """The fin plate's bolts in single shear: n1 rows of n2 lines (mm, MPa)."""
+
+    d: float
+    grade: str
+    fub: float
+    As: float
+    d0: float
+    n1: int
+    n2: int
+    p1: float  # vertical pitch (0 for one row)
+    gauge: float  # p2, between the lines (0 for one line)
+    rows_from_beam_top: tuple[float, ...] = ()
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class FinPlateJointInput(_JointInputBase):
+    """A beam bolted to a fin plate welded to a column (N, mm, MPa).
+
+    ``welds.web_throat`` is the throat of the fin plate's welds to the support.
+    ``support`` says which face of the column carries the plate: ``flange`` or ``web`` (the
+    column web as a support is not a component of EN 1993-1-8).
+    """
+
+    fin: FinPlateInput
+    bolts: FinBoltsInput
+    support: str = "flange"
+
+
 #: Any input of the beam-to-column engines.
-JointInput = EndPlateJointInput | WeldedJointInput
+JointInput = EndPlateJointInput | WeldedJointInput | FinPlateJointInput
 
 
 #: The order of the input's fields in the outputs (the order a calculation sheet reads).
 _RECORD_ORDER = (
-    "column", "beam", "plate", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
+    "column", "beam", "plate", "fin", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
     "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
     "sigma_com_Ed",
 )

@@ -120,6 +120,8 @@ class CheckResult:
     notes: tuple[Note, ...] = ()
     input: JointInput | None = None
     joint_kind: str = "bolted_end_plate"
+    #: what a checked result still leaves unchecked: the joint cannot pass while any remains
+    gaps: tuple[NotChecked, ...] = ()
 
     @property
     def checked(self) -> bool:

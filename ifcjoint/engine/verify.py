@@ -240,6 +240,8 @@ def verify_combination(
     r = run_engine(engine, this, _cache)
     if not r.checked:
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
+    if r.joint_kind == "fin_plate":
+        return verify_pinned(demand, r, beta)
     notes = [beta_note]
     c = demand.combination
     sign = "hogging" if demand.M_Ed < 0 else "sagging"
@@ -282,6 +284,31 @@ def verify_combination(
         demand=demand, beta=beta, result=r, utilisations=tuple(us), notes=tuple(notes),
         gaps=tuple(gaps),
     )
+
+
+def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationResult:
+    """A nominally pinned joint (fin plate) for one load combination.
+
+    EN 1993-1-8:2005, 5.2.2.2: the joint carries the shear (against Vj,Rd, its least shear
+    component) and no moment: a moment in the demands is checked against a resistance of
+    zero, so any moment fails it. An axial force (tying) and what the engine left unchecked
+    (``CheckResult.gaps``) keep it from passing.
+    """
+    c = demand.combination
+    side = r.hogging
+    gov = min(side.components, key=lambda x: x.F_Rd)
+    us = [
+        _moment(demand, side, c),
+        Utilisation(verification=Verification.SHEAR, clause=gov.clause,
+                    demand=abs(demand.V_Ed), resistance=r.V_j_Rd,
+                    utilisation=_ratio(abs(demand.V_Ed), r.V_j_Rd), combination=c,
+                    detail={"component": gov.component}),
+    ]
+    gaps = list(r.gaps)
+    if demand.N_Ed:
+        gaps.append(NotChecked(NotCheckedCode.TYING_NOT_CHECKED, {"N": demand.N_Ed}))
+    return CombinationResult(demand=demand, beta=beta, result=r, utilisations=tuple(us),
+                             gaps=tuple(gaps))
 
 
 def _moment(demand: Demand, side, c: str) -> Utilisation:

@@ -207,6 +207,12 @@ class NotCheckedCode(StrEnum):
     CLASS_4_BEAM = "class_4_beam"  # M_c,Rd needs the effective section (EN 1993-1-5)
     VALUE_NOT_USABLE = "unusable_value"  # a dimension read that cannot be right
     PARTS_MISSING = "parts_missing"  # incomplete: the model lacks parts the joint needs
+    PINNED_NO_MOMENT = "pinned_no_moment"  # a nominally pinned joint has no moment resistance
+    SUPPORT_WEB_NOT_COVERED = "support_web_not_covered"  # column web carrying a fin plate
+    TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
+    FIN_PLATE_LTB = "fin_plate_ltb"  # a long fin plate: lateral torsional buckling
+    NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
+    FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
 
     @property
     def status(self) -> Status:
@@ -255,6 +261,9 @@ class NoteCode(StrEnum):
     """What the engine or the verification says about how a result was obtained."""
 
     WELDS_ASSUMED = "welds_assumed"
+    BEAM_WEB_UNNOTCHED = "beam_web_unnotched"
+    FIN_PLATE_PINNED = "fin_plate_pinned"
+    BOLT_SHEAR_GOVERNS = "bolt_shear_governs"
     WELDS_MODELLED = "welds_modelled"
     WELDS_PARTLY_MODELLED = "welds_partly_modelled"
     ALPHA_CHART = "alpha_chart"

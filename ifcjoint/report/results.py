@@ -13,6 +13,7 @@ import csv
 import io
 import json
 import math
+import re
 from collections import Counter
 from pathlib import Path
 from typing import TextIO
@@ -119,8 +120,9 @@ def classification_dict(c: Classification | None) -> dict:
     if c.stiffness is not None:
         out["stiffness"] = c.stiffness
         out["kb"] = c.kb
-        out["rigid_from_kNm_per_rad"] = round(c.rigid_from / 1e6, 1)
-        out["pinned_up_to_kNm_per_rad"] = round(c.pinned_up_to / 1e6, 1)
+        # a joint classed by its detailing (a fin plate) has no stiffness boundaries
+        out["rigid_from_kNm_per_rad"] = _k(c.rigid_from, 1e6, 1)
+        out["pinned_up_to_kNm_per_rad"] = _k(c.pinned_up_to, 1e6, 1)
     else:
         out["stiffness"] = coded(c.stiffness_gap)
     if c.strength is not None:
@@ -391,8 +393,8 @@ def cite(results: dict, clause: str) -> str:
     (``Eurocode3.ref``); a bare one gets the run's design code.
     """
     name = results.get("check", {}).get("design_code") or "EN 1993-1-8"
-    if clause.startswith(("EN ", "common practice")):
-        return clause
+    if not re.match(r"(\d|Table|Figure|Annex|Eq)", clause):
+        return clause  # already names its source (another code, a design guide, practice)
     return f"{name} {clause}"
 
 

@@ -100,6 +100,33 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "fin plate, nominally pinned: no moment resistance to check; the fin plate shear "
         "check is not implemented yet"
     ),
+    NotCheckedCode.PINNED_NO_MOMENT: lambda v: (
+        "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
+        "analysis must give it no moment"
+    ),
+    NotCheckedCode.SUPPORT_WEB_NOT_COVERED: lambda v: (
+        "the column web carrying the fin plate is not a component of EN 1993-1-8 (no "
+        "resistance given for a web loaded out of its plane): not checked; the plate, bolts, "
+        "beam web and welds are"
+    ),
+    NotCheckedCode.TYING_NOT_CHECKED: lambda v: (
+        f"an axial force of {v['N'] / 1e3:.1f} kN: the fin plate's tying resistance is not "
+        "checked"
+    ),
+    NotCheckedCode.FIN_PLATE_LTB: lambda v: (
+        f"fin plate lever arm z = {v['z']:.0f} mm exceeds t_p / 0.15 = {v['limit']:.0f} mm: "
+        "its lateral torsional buckling is not checked"
+    ),
+    NotCheckedCode.FIN_BOLT_PATTERN: lambda v: (
+        f"fin plate bolts in {v['lines']} line(s) of {v['rows']} row(s): the check takes one "
+        "or two vertical lines with the same bolts in every row, inside the plate and the "
+        "beam web"
+    ),
+    NotCheckedCode.NOT_DUCTILE: lambda v: (
+        f"fin plate t_p = {v['tp']:g} mm against bolt d = {v['d']:g} mm: thicker than "
+        f"{v['ratio']:g} d, so not shown to rotate as a nominally pinned joint (design guide "
+        "for pinned joints; common practice)"
+    ),
     NotCheckedCode.PARTS_MISSING: lambda v: (
         f"{coded(v['reason'])}: nothing to check until the model holds the joint's parts"
     ),
@@ -232,6 +259,18 @@ NOTES: dict[NoteCode, Words] = {
         f"min((1 - 1/1.4) Fv,Rd, Fb,Rd) (Table 3.4 interaction, common practice); bearing "
         f"(Table 3.4) on the plate {v['fb_plate'] / 1e3:.0f} kN and on the column flange "
         f"{v['fb_col'] / 1e3:.0f} kN per bolt"
+    ),
+    NoteCode.BEAM_WEB_UNNOTCHED: lambda v: (
+        "beam web taken as unnotched: bearing and shear on it with no edge above or below "
+        "the bolts"
+    ),
+    NoteCode.BOLT_SHEAR_GOVERNS: lambda v: (
+        "warning: the bolts' shear governs the fin plate; for a ductile pinned joint bearing "
+        "or the plate should govern (design guide for pinned joints; common practice)"
+    ),
+    NoteCode.FIN_PLATE_PINNED: lambda v: (
+        f"fin plate with its bolt group at z = {v['z']:.0f} mm from the support "
+        f"(alpha = {v['alpha']:.3f}, beta = {v['beta']:.3f}); nominally pinned: shear only"
     ),
     NoteCode.SHEAR_FROM_WELDS: lambda v: (
         "Vj,Rd: double fillet web welds over h - 2 tf (4.5.3.3 simplified method)"

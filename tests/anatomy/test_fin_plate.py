@@ -18,6 +18,7 @@ from ifcjoint.model.elements import Fastener, Member, ModelContents, Plate
 
 TOP = 4000.0
 FACE = 130.0
+MEMBERS: dict = {}  # the members of the last model built, by GlobalId
 
 
 def build(*, lines=(40.0, 100.0), rows=(90.0, 160.0, 230.0), length=150.0, tp=10.0,
@@ -47,6 +48,7 @@ def build(*, lines=(40.0, 100.0), rows=(90.0, 160.0, 230.0), length=150.0, tp=10
                       axis=(0, 1.0, 0), length=50.0, diameter=20.0, nominal_diameter=None,
                       nominal_length=None, texts=("BOLT M20x50 8.8",))
              for i, r in enumerate(rows) for k, a in enumerate(lines)]
+    MEMBERS.update({"COL": col, "BEAM": beam})
     m = ModelContents(path="mem", schema="TEST", length_unit_to_mm=1.0, members=(col, beam),
                       plates=(plate,), fasteners=tuple(bolts))
     (j,) = [j for j in find_joints(m).joints if j.beam == "BEAM"]
@@ -86,3 +88,25 @@ def test_a_fin_plate_off_the_face_is_a_fin_plate_with_a_gap():
     assert archetype == "fin_plate"
     (g,) = [f for f in a.findings if f.code == "gap_to_column"]
     assert g.measured == pytest.approx(12.0) and g.detail["part"] == "fin plate"
+
+
+
+def test_fin_plate_engine_input_from_the_anatomy():
+    # the geometry the engine gets, measured from the column face (see the module docstring):
+    # lines 40 and 100 mm from the face -> z 70; e2 150 - 100 = 50; the beam stops 10 mm off
+    # the face -> beam web e2 40 - 10 = 30; e1 90 - 50 = 40 at the top, 330 - 230 = 100 below
+    from ifcjoint.archetypes import joint_type
+    from ifcjoint.archetypes.builders import fin_plate_input
+    from ifcjoint.model.codes import NotCheckedCode
+
+    j, a, (archetype, _) = build(tp=12.0)
+    inp = fin_plate_input(j, a, MEMBERS)
+    assert inp.support == "flange" and inp.bolts.n1 == 3 and inp.bolts.n2 == 2
+    f = inp.fin
+    assert (f.z, f.e2, f.e2_beam, f.e1_top, f.e1_bottom) == pytest.approx(
+        (70.0, 50.0, 30.0, 40.0, 100.0))
+    assert inp.bolts.gauge == pytest.approx(60.0) and inp.bolts.p1 == pytest.approx(70.0)
+    r = joint_type(archetype).engine(inp)
+    assert r.checked and r.V_j_Rd > 0 and r.hogging.M_j_Rd == 0.0
+    # on a column flange with z = 70 <= 12 / 0.15 = 80: nothing left unchecked
+    assert not r.gaps and NotCheckedCode.SUPPORT_WEB_NOT_COVERED not in {g.code for g in r.gaps}

@@ -119,6 +119,10 @@ def test_scanned_joints_export_and_rerun_to_the_same_numbers(tmp_path, demo_chec
         c = j["check"]
         if c["engine_status"] != "checked":
             continue
+        if j["archetype"] == "fin_plate":  # not describable yet: said so, exit 3
+            r = run("calc", "--from", results, "--joint", j["id"], "-q")
+            assert r.exit_code == 3 and "fin plate" in r.output
+            continue
         ext = ".toml" if done % 2 == 0 else ".json"
         desc = tmp_path / f"{j['id']}{ext}"
         r = run("calc", "--from", results, "--joint", j["id"], "--out", desc, "-q")

@@ -52,12 +52,16 @@ def test_round_trip_valid_typed_and_input_untouched(tmp_path, model):
         if c["utilisation"] is not None:
             assert ps["MaxUtilisation"] == pytest.approx(c["utilisation"], abs=1e-3)
             clause = c["governing"]["clause"]
-            cited = clause if clause.startswith(("EN ", "common practice")) else (
-                "EN 1993-1-8 " + clause)
+            bare = clause[:1].isdigit() or clause.startswith("Table")  # the run's own code
+            cited = "EN 1993-1-8 " + clause if bare else clause
             assert ps["GoverningClause"] == cited
         if c["resistance"]:
             assert ps["MjRdHogging"] == pytest.approx(c["resistance"]["Mj_Rd_hogging_kNm"])
-            assert ps["SjIni"] == pytest.approx(c["resistance"]["Sj_ini_kNm_per_rad"])
+            s_j = c["resistance"]["Sj_ini_kNm_per_rad"]
+            if s_j is None:  # a pinned fin plate has no stiffness: nothing is written
+                assert "SjIni" not in ps
+            else:
+                assert ps["SjIni"] == pytest.approx(s_j)
     # typed values with their unit on the property
     pset = next(p for p in f.by_type("IfcPropertySet") if p.Name == "ifcjoint_JointAtStart")
     types = {p.Name: (p.NominalValue.is_a(), p.Unit) for p in pset.HasProperties}

@@ -1,0 +1,139 @@
+"""Shear resistances of nominally pinned joints: fin plates (N, mm, MPa).
+
+EN 1993-1-8 gives the resistances of the parts (bolts in shear and bearing, Table 3.4; block
+tearing, 3.10.2); how a bolt group carries a shear force applied at a lever arm, and the
+plate checks that go with it, follow the public design guide *Steel Buildings in Europe,
+Multi-Storey Steel Buildings, Part 5: Joint Design* (2009/2010), section 3 (fin plates),
+named ``GUIDE`` in the clauses. Each function names its source on its docstring's second
+paragraph.
+"""
+
+from __future__ import annotations
+
+import math
+
+from ifcjoint.ec3.params import RECOMMENDED, Parameters
+
+#: The design guide for pinned joints that the eccentric bolt-group and plate checks follow.
+GUIDE = "Multi-Storey Steel Buildings Part 5 (joint design guide)"
+#: Factor on the fin plate's gross shear resistance, allowing for the bending present at the
+#: bolt line (the guide's 1.27; GUIDE section 3).
+GROSS_SHEAR_FACTOR = 1.27
+#: A fin plate at least this many lever arms deep needs no bending check (GUIDE section 3).
+NO_BENDING_DEPTH_RATIO = 2.73
+#: Lateral torsional buckling of the fin plate is not relevant for z <= tp / 0.15 (GUIDE
+#: section 3).
+SHORT_PLATE_RATIO = 0.15
+
+
+def bolt_group_factors(n1: int, n2: int, p1: float, p2: float, z: float) -> tuple[float, float]:
+    """Factors alpha and beta of a bolt group carrying a shear at lever arm z (elastic).
+
+    Design guide for pinned joints (``GUIDE``), section 3 (fin plates): with the polar moment of
+    the group I = n1 n2 [p2^2 (n2^2 - 1) + p1^2 (n1^2 - 1)] / 12 (here written for one or two
+    vertical lines as n1 p2^2 / 2 + n1 (n1^2 - 1) p1^2 / 6 when n2 = 2, and n1 (n1^2 - 1) p1^2 /
+    12 when n2 = 1), alpha = z p2 / (2 I) and beta = z p1 (n1 - 1) / (2 I).
+
+    Args:
+        n1: bolt rows (vertical).
+        n2: bolt lines (horizontal, 1 or 2).
+        p1: vertical pitch, mm.
+        p2: horizontal gauge between lines (0 for one line), mm.
+        z: lever arm: from the support face to the centre of the bolt group, mm.
+
+    Example:
+        >>> a, b = bolt_group_factors(5, 2, 70.0, 60.0, 80.25)
+        >>> round(a, 4), round(b, 3)
+        (0.0225, 0.105)
+    """
+    i_p = n1 * n2 * (p2 * p2 * (n2 * n2 - 1) + p1 * p1 * (n1 * n1 - 1)) / 12.0
+    if i_p <= 0:  # a single bolt: no moment arm within the group
+        return 0.0, 0.0
+    return z * p2 / (2 * i_p), z * p1 * (n1 - 1) / (2 * i_p)
+
+
+def V_Rd_bolt_group_shear(n: int, F_v_Rd: float, alpha: float, beta: float) -> float:
+    """Shear resistance of an eccentrically loaded bolt group from the bolts' shear (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3:
+    V_Rd = n F_v,Rd / sqrt((1 + alpha n)^2 + (beta n)^2), with F_v,Rd of EN 1993-1-8 Table 3.4.
+    """
+    return n * F_v_Rd / math.hypot(1 + alpha * n, beta * n)
+
+
+def V_Rd_bolt_group_bearing(n: int, alpha: float, beta: float, F_b_ver: float,
+                            F_b_hor: float) -> float:
+    """Shear resistance of an eccentrically loaded bolt group from bearing (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3:
+    V_Rd = n / sqrt(((1 + alpha n) / F_b,ver,Rd)^2 + (beta n / F_b,hor,Rd)^2) with the bearing
+    resistances of one bolt (EN 1993-1-8 Table 3.4) in the vertical and horizontal direction.
+    """
+    return n / math.hypot((1 + alpha * n) / F_b_ver, beta * n / F_b_hor)
+
+
+def V_Rd_plate_gross_shear(hp: float, tp: float, fy: float,
+                           params: Parameters = RECOMMENDED) -> float:
+    """Gross shear resistance of the fin plate (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3:
+    V_Rd = hp tp fy / (1.27 sqrt(3) gamma_M0) (the 1.27 allows for bending).
+    """
+    return hp * tp * fy / (GROSS_SHEAR_FACTOR * math.sqrt(3) * params.gamma_M0)
+
+
+def V_Rd_net_shear(A_v_net: float, fu: float, params: Parameters = RECOMMENDED) -> float:
+    """Net shear resistance of a plate or web through the bolt holes (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3, on the principle of EN 1993-1-8
+    3.10.2: V_Rd = A_v,net fu / (sqrt(3) gamma_M2).
+    """
+    return A_v_net * fu / (math.sqrt(3) * params.gamma_M2)
+
+
+def V_Rd_block_tearing_eccentric(A_nt: float, A_nv: float, fu: float, fy: float,
+                                 params: Parameters = RECOMMENDED) -> float:
+    """Block tearing of a bolt group under eccentric shear (N).
+
+    EN 1993-1-8:2005, 3.10.2(3), Eq. (3.10): 0.5 fu A_nt / gamma_M2 + fy A_nv / (sqrt(3)
+    gamma_M0).
+    """
+    return 0.5 * fu * A_nt / params.gamma_M2 + fy * A_nv / (math.sqrt(3) * params.gamma_M0)
+
+
+def V_Rd_plate_bending(tp: float, hp: float, fy: float, z: float,
+                       params: Parameters = RECOMMENDED) -> float:
+    """Shear resistance of the fin plate from its bending at the bolt line (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3:
+    V_Rd = W_el fy / (z gamma_M0) with W_el = tp hp^2 / 6; not a limit (infinite) when
+    hp >= 2.73 z.
+    """
+    if hp >= NO_BENDING_DEPTH_RATIO * z:
+        return math.inf
+    return tp * hp * hp / 6.0 * fy / (z * params.gamma_M0)
+
+
+def A_v_rolled_i(A: float, b: float, tf: float, tw: float, r: float, hw: float,
+                 eta: float = 1.0) -> float:
+    """Shear area of a rolled I section, load parallel to the web (mm2).
+
+    EN 1993-1-1:2005, 6.2.6(3)a: A_v = A - 2 b tf + (tw + 2 r) tf, at least eta hw tw.
+    """
+    return max(A - 2 * b * tf + (tw + 2 * r) * tf, eta * hw * tw)
+
+
+def V_pl_Rd(A_v: float, fy: float, params: Parameters = RECOMMENDED) -> float:
+    """Plastic shear resistance V_pl,Rd = A_v fy / (sqrt(3) gamma_M0) (N).
+
+    EN 1993-1-1:2005, 6.2.6(2), Eq. (6.18).
+    """
+    return A_v * fy / (math.sqrt(3) * params.gamma_M0)
+
+
+def V_Rd_fillet_welds(a: float, length: float, f_vw_d: float) -> float:
+    """Shear resistance of two fillet welds of throat a along a length, simplified method (N).
+
+    EN 1993-1-8:2005, 4.5.3.3: F_w,Rd = f_vw,d a per unit length, two welds.
+    """
+    return 2 * a * length * f_vw_d
