@@ -70,6 +70,7 @@ TEMPLATE_HEADER = """\
 # Vc_above_kN / Vc_below_kN: column shears above and below (EN 1993-1-8 5.3(3)); leave empty
 # if unknown (taken as 0, reported). frame: braced|unbraced. assumed_joint: what the analysis
 # model assumed, rigid|semi-rigid|pinned (compared with the joint's stiffness class).
+# fin_plate rows: nominally pinned, shear only: M_Ed_kNm stays 0 (any moment fails them).
 # Several combinations per joint: add one row each. Lines starting with # are ignored.
 """
 
@@ -471,7 +472,7 @@ def write_template(joints, path: str | Path) -> int:
                 safe_cell(j.label),
                 j.archetype,
                 "",
-                "",
+                "0" if j.archetype == "fin_plate" else "",  # pinned: it carries no moment
                 "",
                 "",
                 "",

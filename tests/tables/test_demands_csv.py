@@ -165,3 +165,15 @@ def test_empty_spreadsheet_rows_are_not_counted(tmp_path, ids):
     t = read_demands(p, ids)
     assert t.rows_read == 2 and t.rows_rejected == 1  # ';;;' is one cell of text
     assert t.rows_used == 1
+
+
+def test_template_gives_pinned_joints_no_moment(tmp_path, demo_check):
+    # a fin plate is nominally pinned (EN 1993-1-8 5.2.2.2): its row starts at M_Ed = 0
+    import pandas as pd
+
+    out = tmp_path / "t.csv"
+    write_template(demo_check.scan.joints, out)
+    df = pd.read_csv(out, comment="#")
+    fins = df[df["archetype"] == "fin_plate"]
+    assert len(fins) and (fins["M_Ed_kNm"] == 0).all()
+    assert df[df["archetype"] != "fin_plate"]["M_Ed_kNm"].isna().all()
