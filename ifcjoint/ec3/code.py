@@ -37,6 +37,12 @@ class Component(StrEnum):
     BEAM_WEB_GROSS_SHEAR = "beam_web_gross_shear"
     BEAM_WEB_NET_SHEAR = "beam_web_net_shear"
     PLATE_WELD = "fin_plate_weld"
+    TIE_BOLT_SHEAR = "tie_bolt_shear"
+    TIE_PLATE_BEARING = "tie_fin_plate_bearing"
+    TIE_BEAM_WEB_BEARING = "tie_beam_web_bearing"
+    TIE_PLATE_TENSION = "tie_fin_plate_net_tension"
+    TIE_PLATE_BLOCK_TEARING = "tie_fin_plate_block_tearing"
+    TIE_BEAM_WEB_TENSION = "tie_beam_web_net_tension"
 
 
 class Zone(StrEnum):
@@ -45,6 +51,7 @@ class Zone(StrEnum):
     TENSION = "tension zone"
     COMPRESSION = "compression zone"
     SHEAR = "shear zone"
+    TYING = "tying (axial tension)"
 
 
 @dataclass(frozen=True, slots=True)
@@ -157,6 +164,24 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         name="fin plate to support welds",
         formula="F_w,Rd = 2 a h_p f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
         zone=Zone.SHEAR),
+    Component.TIE_BOLT_SHEAR: ComponentInfo(
+        name="tying: bolts in shear", formula="N_Rd = n F_v,Rd (with gamma_Mu)",
+        zone=Zone.TYING),
+    Component.TIE_PLATE_BEARING: ComponentInfo(
+        name="tying: bolts in bearing on the fin plate",
+        formula="N_Rd = n k1 alpha_b f_u d t_p / gamma_Mu (horizontal)", zone=Zone.TYING),
+    Component.TIE_BEAM_WEB_BEARING: ComponentInfo(
+        name="tying: bolts in bearing on the beam web",
+        formula="N_Rd = n k1 alpha_b f_u d t_w / gamma_Mu (horizontal)", zone=Zone.TYING),
+    Component.TIE_PLATE_TENSION: ComponentInfo(
+        name="tying: fin plate net section in tension",
+        formula="N_Rd = 0.9 A_net f_u / gamma_Mu, A_net = t_p (h_p - n1 d0)", zone=Zone.TYING),
+    Component.TIE_PLATE_BLOCK_TEARING: ComponentInfo(
+        name="tying: fin plate block tearing",
+        formula="N_Rd = f_u A_nt / gamma_Mu + f_y A_nv / (sqrt(3) gamma_M0)", zone=Zone.TYING),
+    Component.TIE_BEAM_WEB_TENSION: ComponentInfo(
+        name="tying: beam web net section in tension",
+        formula="N_Rd = 0.9 A_net f_u / gamma_Mu, A_net = t_w (h_p - n1 d0)", zone=Zone.TYING),
 }
 
 #: Symbols of the joint properties, as EN 1993-1-8 prints them.

@@ -22,6 +22,9 @@ class Parameters:
         kb_braced: rigid-joint boundary factor for frames whose bracing reduces horizontal
             displacement by at least 80 %, EN 1993-1-8 5.2.2.5(1).
         kb_unbraced: the same for other frames.
+        gamma_Mu: resistance to tying forces of nominally pinned joints (an accidental
+            design situation; 1.1 in the design guide for pinned joints and in some National
+            Annexes; not a factor of EN 1993-1-8 itself).
     """
 
     gamma_M0: float = 1.0  # the code's symbol
@@ -31,6 +34,7 @@ class Parameters:
     k2: float = 0.9
     kb_braced: float = 8.0
     kb_unbraced: float = 25.0
+    gamma_Mu: float = 1.1
 
     def as_dict(self) -> dict:
         """The values, for reports."""

@@ -137,3 +137,22 @@ def V_Rd_fillet_welds(a: float, length: float, f_vw_d: float) -> float:
     EN 1993-1-8:2005, 4.5.3.3: F_w,Rd = f_vw,d a per unit length, two welds.
     """
     return 2 * a * length * f_vw_d
+
+
+def N_Rd_net_tension_tie(A_net: float, fu: float, params: Parameters = RECOMMENDED) -> float:
+    """Tying resistance of a plate's or web's net section (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3 (tying): 0.9 A_net f_u / gamma_Mu,
+    with gamma_Mu of the parameters (an accidental design situation).
+    """
+    return 0.9 * A_net * fu / params.gamma_Mu
+
+
+def N_Rd_block_tearing_tie(A_nt: float, A_nv: float, fu: float, fy: float,
+                           params: Parameters = RECOMMENDED) -> float:
+    """Tying resistance of a bolt group's block in tension (concentric, case 1) (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3 (tying), after EN 1993-1-8 3.10.2(2):
+    f_u A_nt / gamma_Mu + f_y A_nv / (sqrt(3) gamma_M0).
+    """
+    return fu * A_nt / params.gamma_Mu + fy * A_nv / (math.sqrt(3) * params.gamma_M0)

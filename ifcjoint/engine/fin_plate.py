@@ -9,6 +9,8 @@ shear) and the welds to the support. Vj,Rd is the least of them. The joint carri
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from ifcjoint.ec3 import bolts as blt
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import pinned as pin
@@ -110,6 +112,49 @@ def fin_plate_components(inp: FinPlateJointInput) -> tuple[list[ComponentResult]
     return comps, group
 
 
+#: The tying components (an axial tension on the joint), apart from the shear ones.
+TYING = frozenset({Component.TIE_BOLT_SHEAR, Component.TIE_PLATE_BEARING,
+                   Component.TIE_BEAM_WEB_BEARING, Component.TIE_PLATE_TENSION,
+                   Component.TIE_PLATE_BLOCK_TEARING, Component.TIE_BEAM_WEB_TENSION})
+
+
+def tying_components(inp: FinPlateJointInput) -> list[ComponentResult]:
+    """The joint's resistances to an axial tension (tying), with gamma_Mu for gamma_M2.
+
+    Design guide for pinned joints, section 3 (tying): bolts in shear, bearing on the plate
+    and on the beam web in the direction of the beam (Table 3.4), the plate's net section
+    (0.9 A_net f_u / gamma_Mu) and block tearing (the block inside the outer bolts pulled
+    out: tension across the rows, shear along the lines), the beam web's net section.
+    """
+    f, b, beam, p = inp.fin, inp.bolts, inp.beam, inp.params
+    pu = replace(p, gamma_M2=p.gamma_Mu)
+    n = b.n1 * b.n2
+    tie = replace(inp, params=pu)
+    _, bh, plate_b = _bearing(tie, f.tp, f.fu, vertical_end=f.e1_bottom, horizontal_end=f.e2)
+    _, wh, web_b = _bearing(tie, beam.tw, beam.fu, vertical_end=None, horizontal_end=f.e2_beam)
+    a_nt = f.tp * (b.n1 - 1) * (b.p1 - b.d0)
+    a_nv = 2 * f.tp * (f.e2 + (b.n2 - 1) * b.gauge - (b.n2 - 0.5) * b.d0)
+    gu = {"gamma_Mu": p.gamma_Mu}
+    parts = [
+        (Component.TIE_BOLT_SHEAR, n * blt.F_v_Rd(b.grade, b.fub, b.As, pu), {"n": n, **gu}),
+        (Component.TIE_PLATE_BEARING, n * bh,
+         {"n": n, "k1": plate_b["k1_hor"], "alpha_b": plate_b["alpha_b_hor"], **gu}),
+        (Component.TIE_BEAM_WEB_BEARING, n * wh,
+         {"n": n, "k1": web_b["k1_hor"], "alpha_b": web_b["alpha_b_hor"], **gu}),
+        (Component.TIE_PLATE_TENSION,
+         pin.N_Rd_net_tension_tie(f.tp * (f.hp - b.n1 * b.d0), f.fu, p),
+         {"A_net": round(f.tp * (f.hp - b.n1 * b.d0), 1), **gu}),
+        (Component.TIE_PLATE_BLOCK_TEARING,
+         pin.N_Rd_block_tearing_tie(a_nt, a_nv, f.fu, f.fy, p),
+         {"A_nt": round(a_nt, 1), "A_nv": round(a_nv, 1), **gu}),
+        (Component.TIE_BEAM_WEB_TENSION,
+         pin.N_Rd_net_tension_tie(beam.tw * (f.hp - b.n1 * b.d0), beam.fu, p),
+         {"A_net": round(beam.tw * (f.hp - b.n1 * b.d0), 1), **gu}),
+    ]
+    return [ComponentResult(clause=_guide("3 (tying)"), component=c, F_Rd=v, inputs=x)
+            for c, v, x in parts]
+
+
 def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
     """Shear resistance Vj,Rd of a fin plate joint, its components and its classification.
 
@@ -128,6 +173,8 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
         gaps.append(NotChecked(NotCheckedCode.SUPPORT_WEB_NOT_COVERED))
     comps, group = fin_plate_components(inp)
     gov = min(comps, key=lambda c: c.F_Rd)
+    ties = tying_components(inp)
+    comps = comps + ties
     notes = [Note(NoteCode.FIN_PLATE_PINNED, {"z": f.z, "alpha": group["alpha"],
                                               "beta": group["beta"]}),
              Note(NoteCode.BEAM_WEB_UNNOTCHED)]
@@ -149,4 +196,5 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
              for sign in ("hogging", "sagging")]
     return CheckResult(hogging=sides[0], sagging=sides[1], V_j_Rd=gov.F_Rd, V_wp_Rd=None,
                        classification=cls, notes=tuple(notes), input=inp,
-                       joint_kind="fin_plate", gaps=tuple(gaps))
+                       joint_kind="fin_plate", gaps=tuple(gaps),
+                       N_j_Rd_tie=min(t.F_Rd for t in ties))

@@ -122,6 +122,8 @@ class CheckResult:
     joint_kind: str = "bolted_end_plate"
     #: what a checked result still leaves unchecked: the joint cannot pass while any remains
     gaps: tuple[NotChecked, ...] = ()
+    #: tying resistance of a nominally pinned joint (axial tension, gamma_Mu), N
+    N_j_Rd_tie: float | None = None
 
     @property
     def checked(self) -> bool:

@@ -15,7 +15,7 @@ from typing import Any
 
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
-from ifcjoint.ec3.code import Clause
+from ifcjoint.ec3.code import Clause, Zone
 from ifcjoint.ec3.moment_resistance import M_N_interaction
 from ifcjoint.engine.inputs import JointInput
 from ifcjoint.engine.results import CheckResult, Classification
@@ -292,11 +292,14 @@ def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationRes
     EN 1993-1-8:2005, 5.2.2.2: the joint carries the shear (against Vj,Rd, its least shear
     component) and no moment: a moment in the demands is checked against a resistance of
     zero, so any moment fails it. An axial force (tying) and what the engine left unchecked
-    (``CheckResult.gaps``) keep it from passing.
+    (``CheckResult.gaps``) keep it from passing. An axial tension is checked against the
+    tying resistance (gamma_Mu, an accidental design situation); a compression is not checked.
     """
     c = demand.combination
     side = r.hogging
-    gov = min(side.components, key=lambda x: x.F_Rd)
+    shear = [x for x in side.components
+             if EC3.components[x.component].zone == Zone.SHEAR]  # not the tying ones
+    gov = min(shear, key=lambda x: x.F_Rd)
     us = [
         _moment(demand, side, c),
         Utilisation(verification=Verification.SHEAR, clause=gov.clause,
@@ -305,7 +308,12 @@ def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationRes
                     detail={"component": gov.component}),
     ]
     gaps = list(r.gaps)
-    if demand.N_Ed:
+    if demand.N_Ed > 0 and r.N_j_Rd_tie is not None:
+        us.append(Utilisation(verification=Verification.TYING, clause=Clause(
+            "design guide for pinned joints", "3 (tying)"), demand=demand.N_Ed,
+            resistance=r.N_j_Rd_tie, utilisation=_ratio(demand.N_Ed, r.N_j_Rd_tie),
+            combination=c, sense="tension"))
+    elif demand.N_Ed:
         gaps.append(NotChecked(NotCheckedCode.TYING_NOT_CHECKED, {"N": demand.N_Ed}))
     return CombinationResult(demand=demand, beta=beta, result=r, utilisations=tuple(us),
                              gaps=tuple(gaps))

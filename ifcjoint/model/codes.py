@@ -299,6 +299,7 @@ class Verification(StrEnum):
     WEB_PANEL_SHEAR = "web_panel_shear"
     BENDING_AND_AXIAL = "bending_and_axial"
     DETAILING = "detailing"  # a rule the resistance depends on, broken (limit over measured)
+    TYING = "tying"  # an axial tension on a pinned joint against its tying resistance
 
 
 class StiffnessClass(StrEnum):

@@ -110,8 +110,8 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "beam web and welds are"
     ),
     NotCheckedCode.TYING_NOT_CHECKED: lambda v: (
-        f"an axial force of {v['N'] / 1e3:.1f} kN: the fin plate's tying resistance is not "
-        "checked"
+        f"an axial compression of {-v['N'] / 1e3:.1f} kN on a nominally pinned joint: not "
+        "checked (its bearing into the support is not a component here)"
     ),
     NotCheckedCode.FIN_PLATE_LTB: lambda v: (
         f"fin plate lever arm z = {v['z']:.0f} mm exceeds t_p / 0.15 = {v['limit']:.0f} mm: "
@@ -413,6 +413,7 @@ UNITS = {
     Verification.WEB_PANEL_SHEAR: ("kN", 1e3),
     Verification.BENDING_AND_AXIAL: ("-", 1e3),
     Verification.DETAILING: ("mm", 1.0),
+    Verification.TYING: ("kN", 1e3),
 }
 
 
@@ -472,6 +473,8 @@ def verification_name(
         return f"shear resistance {code.symbol('V_j_Rd')}"
     if kind == Verification.WEB_PANEL_SHEAR:
         return code.component_name(Component.WEB_PANEL_SHEAR)
+    if kind == Verification.TYING:
+        return "tying resistance (axial tension, gamma_Mu)"
     return f"bending and axial {sense} (Eq. 6.24)"
 
 

@@ -114,3 +114,34 @@ def test_invariants_thicker_plate_never_weaker_in_the_plate():
                  Component.PLATE_NET_SHEAR, Component.PLATE_BLOCK_TEARING):
         assert _comp(thick, comp).F_Rd >= _comp(thin, comp).F_Rd
     assert thick.classification.stiffness is None  # 12 mm > 0.5 x 20 mm: not shown ductile
+
+
+@pytest.mark.parametrize("component, printed_kN", [
+    # the guide's tying checks with its own gamma_Mu = 1.1 (an accidental design situation):
+    # bearing 129 kN a bolt, 1290 kN for the group; net tension 880 kN; block tearing case 1
+    # 995 kN
+    (Component.TIE_PLATE_BEARING, 1290.0),
+    (Component.TIE_PLATE_TENSION, 880.0),
+    (Component.TIE_PLATE_BLOCK_TEARING, 995.0),
+])
+def test_printed_tying_resistances(result, component, printed_kN):
+    assert _comp(result, component).F_Rd / 1e3 == pytest.approx(printed_kN, rel=0.01)
+
+
+def test_tying_is_a_verification_of_its_own():
+    from ifcjoint.engine.verify import verify_joint
+    from ifcjoint.model.codes import Status, Verification
+    from ifcjoint.model.demands import Demand
+
+    inp = example(z=60.0)  # a short plate: nothing left unchecked
+    tie = Demand(combination="tie", M_Ed=0.0, V_Ed=100e3, N_Ed=350e3)
+    v = verify_joint(inp, [tie], engine=check_fin_plate_joint, double_sided=False)
+    u = next(u for u in v.combinations[0].utilisations if u.verification == Verification.TYING)
+    assert u.resistance == pytest.approx(check_fin_plate_joint(inp).N_j_Rd_tie)
+    assert v.status == Status.PASS and u.utilisation < 1
+    squeeze = Demand(combination="c", M_Ed=0.0, V_Ed=100e3, N_Ed=-50e3)
+    v = verify_joint(inp, [squeeze], engine=check_fin_plate_joint, double_sided=False)
+    assert v.status != Status.PASS  # compression into the support is not checked: said
+    moment = Demand(combination="m", M_Ed=-5e6, V_Ed=100e3, N_Ed=0.0)
+    v = verify_joint(inp, [moment], engine=check_fin_plate_joint, double_sided=False)
+    assert v.status == Status.FAIL  # a nominally pinned joint has no moment resistance
