@@ -140,7 +140,8 @@ def welded(**kw) -> JointSpec:
 
 
 def fin(h: float) -> JointSpec:
-    return JointSpec(kind="fin_plate", first_guess="fin_plate", tp=10.0, bp=0.0,
+    # 8 mm with M20: thin enough to rotate as a pinned joint (t_p <= 0.42 d in S355)
+    return JointSpec(kind="fin_plate", first_guess="fin_plate", tp=8.0, bp=0.0,
                      plate_top=60.0, plate_bottom=h - 60.0,
                      rows=tuple(float(x) for x in np.linspace(90.0, h - 90.0, 3)),
                      bolt_d=20.0, bolt_len=50.0)

@@ -15,6 +15,7 @@ from ifcjoint.catalogue.plates import nearest_stock_thickness
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import detailing as dt
 from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
+from ifcjoint.ec3.pinned import ductile_fin_plate_ratio
 from ifcjoint.model.codes import Axis, PartRole
 from ifcjoint.model.elements import Fastener
 from ifcjoint.model.joints import Finding, Joint
@@ -63,6 +64,9 @@ def detailing(
     _spacings(c)
     _hole_clearance(c)
     _stock_thickness(c)
+    if p.role == PartRole.FIN_PLATE and b.d:
+        c.check("fin_plate_ductility", p.tp, ductile_fin_plate_ratio(p.grade or "") * b.d,
+                (p.guid,), d=b.d)
     if p.role != PartRole.END_PLATE:
         return
     _symmetry(c)  # about the beam web: an end plate's rows

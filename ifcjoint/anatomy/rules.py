@@ -189,6 +189,15 @@ RULES: dict[str, Rule] = {
         basis="common practice rule of thumb: 0.5 d <= tp <= 1.5 d",
         bound="range",
     ),
+    "fin_plate_ductility": Rule(
+        code=FindingCode.FIN_PLATE_NOT_DUCTILE,
+        severity=_W,
+        basis="design guide for pinned joints (Multi-Storey Steel Buildings Part 5), fin "
+        "plates: t_p <= 0.5 d (S235, S275) or 0.42 d (S355 and above) so the plate yields "
+        "before the bolts shear (from memory)",
+        bound="max",
+        tolerance=0.05,
+    ),
     "plate_thickness_stock": Rule(
         code=FindingCode.PLATE_THICKNESS_NOT_STOCK,
         severity=_W,

@@ -21,6 +21,22 @@ GUIDE = "Multi-Storey Steel Buildings Part 5 (joint design guide)"
 GROSS_SHEAR_FACTOR = 1.27
 #: A fin plate at least this many lever arms deep needs no bending check (GUIDE section 3).
 NO_BENDING_DEPTH_RATIO = 2.73
+#: A fin plate rotates as a nominally pinned joint (plate and bolt holes yield before the bolts
+#: shear) when t_p <= this fraction of the bolt diameter: design guide for pinned joints
+#: (``GUIDE``), fin plates; from memory: 0.5 d for S235 and S275, 0.42 d for S355 and above.
+DUCTILE_TP_OVER_D = {"S235": 0.5, "S275": 0.5}
+DUCTILE_TP_OVER_D_DEFAULT = 0.42
+
+
+def ductile_fin_plate_ratio(grade: str) -> float:
+    """Largest t_p / d of a fin plate that rotates as nominally pinned, by its steel grade.
+
+    Design guide for pinned joints (``GUIDE``), fin plates (values from memory, see
+    ``DUCTILE_TP_OVER_D``); an unknown grade takes the stricter value.
+    """
+    return DUCTILE_TP_OVER_D.get((grade or "")[:4].upper(), DUCTILE_TP_OVER_D_DEFAULT)
+
+
 #: Lateral torsional buckling of the fin plate is not relevant for z <= tp / 0.15 (GUIDE
 #: section 3).
 SHORT_PLATE_RATIO = 0.15

@@ -32,12 +32,6 @@ from ifcjoint.model.codes import (
     StiffnessClass,
 )
 
-#: A fin plate rotates as a pinned joint when t_p <= this fraction of the bolt diameter
-#: (design guide for pinned joints; from memory: 0.5 d for S235/S275, 0.42 d for S355 and
-#: above).
-DUCTILE_TP_OVER_D = {"S235": 0.5, "S275": 0.5}
-DUCTILE_TP_OVER_D_DEFAULT = 0.42
-
 
 def _guide(ref: str = "3") -> Clause:
     return Clause(pin.GUIDE, ref)
@@ -183,7 +177,7 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
         notes.append(Note(NoteCode.WELDS_ASSUMED, {"a_top": 0.0, "a_bottom": 0.0, "a_web": a}))
     if gov.component == Component.BOLT_GROUP_SHEAR:
         notes.append(Note(NoteCode.BOLT_SHEAR_GOVERNS))
-    ratio = DUCTILE_TP_OVER_D.get(f.grade[:4], DUCTILE_TP_OVER_D_DEFAULT)
+    ratio = pin.ductile_fin_plate_ratio(f.grade)
     if f.tp <= ratio * b.d:
         cls = Classification(stiffness=StiffnessClass.PINNED)
     else:

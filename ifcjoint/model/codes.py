@@ -156,6 +156,7 @@ class FindingCode(StrEnum):
     BOLT_PATTERN_ASYMMETRIC = "bolt_pattern_asymmetric"
     PLATE_THICKNESS_IMPLAUSIBLE = "plate_thickness_implausible"
     PLATE_THICKNESS_NOT_STOCK = "plate_thickness_not_stock"
+    FIN_PLATE_NOT_DUCTILE = "fin_plate_not_ductile"
     PLATE_WIDER_THAN_COLUMN_FLANGE = "plate_wider_than_column_flange"
     COLUMN_EDGE_DISTANCE_MIN = "column_edge_distance_min"
     HOLE_ON_ROOT_RADIUS = "hole_on_root_radius"

@@ -371,6 +371,10 @@ FINDINGS: dict[FindingCode, FindingWords] = {
     FindingCode.PLATE_THICKNESS_IMPLAUSIBLE: lambda v, m, lim: (
         f"{m:.0f} mm end plate with M{v['d']:.0f} bolts"
     ),
+    FindingCode.FIN_PLATE_NOT_DUCTILE: lambda v, m, lim: (
+        f"fin plate {m:g} mm thick with M{v['d']:g} bolts: thicker than {lim:.1f} mm, so not "
+        "shown to rotate as a pinned joint"
+    ),
     FindingCode.PLATE_THICKNESS_NOT_STOCK: lambda v, m, lim: (
         f"plate {v['tp']:g} mm thick: not a stock thickness (nearest {v['nearest']:g} mm)"
     ),
