@@ -12,7 +12,12 @@ from dataclasses import replace
 
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.base import JointType
-from ifcjoint.archetypes.end_plate import EndPlateUnjudged, ExtendedEndPlate, FlushEndPlate
+from ifcjoint.archetypes.end_plate import (
+    EndPlateUnjudged,
+    ExtendedEndPlate,
+    FlushEndPlate,
+    PartialDepthEndPlate,
+)
 from ifcjoint.archetypes.fin_plate import FinPlate
 from ifcjoint.archetypes.incomplete import Incomplete, Undetailed
 from ifcjoint.archetypes.unsupported import Unrecognised, Unsupported
@@ -34,6 +39,7 @@ from ifcjoint.model.joints import Joint
 #: Every archetype, in the order recognition tries them (the first that recognises wins).
 REGISTRY: tuple[JointType, ...] = (
     Incomplete(),
+    PartialDepthEndPlate(),
     ExtendedEndPlate(),
     FlushEndPlate(),
     EndPlateUnjudged(),

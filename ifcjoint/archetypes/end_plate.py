@@ -9,7 +9,15 @@ from ifcjoint.engine.end_plate import check_end_plate_joint
 from ifcjoint.engine.inputs import EndPlateJointInput
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
-from ifcjoint.model.codes import Archetype, Note, NoteCode, Reason, ReasonCode
+from ifcjoint.model.codes import (
+    Archetype,
+    NotChecked,
+    NotCheckedCode,
+    Note,
+    NoteCode,
+    Reason,
+    ReasonCode,
+)
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
 
@@ -38,6 +46,41 @@ class _CheckedEndPlate(JointType):
         if joint.partner is None:
             return (Note(NoteCode.BETA_ONE_SINGLE_SIDED),)
         return (Note(NoteCode.BETA_ONE_UNTIL_DEMANDS),)
+
+
+#: A plate edge this far inside a flange's outer face leaves that flange off the plate
+#: (common practice, no source: a plate welded to a flange covers it).
+FLANGE_COVER_TOLERANCE = 2.0
+
+
+class PartialDepthEndPlate(JointType):
+    """An end plate that does not reach a beam flange: a header plate, nominally pinned.
+
+    Tried before the moment end plates: its flanges are not welded to the plate, so the
+    component method of a moment end plate does not apply. Its shear check is not built yet
+    (said); it is never checked as a moment joint.
+    """
+
+    archetype = Archetype.PARTIAL_DEPTH_END_PLATE
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """An end plate that leaves a flange off.
+
+        Its top edge below the top flange, or its bottom edge above the bottom flange
+        (beyond ``FLANGE_COVER_TOLERANCE``).
+        """
+        if not end_plate_ready(a) or a.beam_section is None or a.plate is None:
+            return None
+        sec, p = a.beam_section, a.plate
+        top = p.top_from_beam_top
+        bottom = sec.h - p.bottom_from_beam_top
+        if top <= sec.tf - FLANGE_COVER_TOLERANCE and bottom <= sec.tf - FLANGE_COVER_TOLERANCE:
+            return None
+        return Reason(ReasonCode.PLATE_SHORT_OF_FLANGE, {"top": top, "bottom": bottom})
+
+    def engine_input(self, joint, a, members, st):
+        """Not checked: the header plate's shear check is not implemented yet."""
+        return NotChecked(NotCheckedCode.PARTIAL_DEPTH)
 
 
 class ExtendedEndPlate(_CheckedEndPlate):

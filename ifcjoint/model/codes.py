@@ -40,6 +40,7 @@ class Archetype(StrEnum):
 
     EXTENDED_END_PLATE = "extended_end_plate"
     FLUSH_END_PLATE = "flush_end_plate"
+    PARTIAL_DEPTH_END_PLATE = "partial_depth_end_plate"  # a header plate short of a flange
     END_PLATE = "end_plate"  # an end plate whose extent could not be judged (no beam depth)
     WELDED = "welded"
     FIN_PLATE = "fin_plate"
@@ -213,6 +214,7 @@ class NotCheckedCode(StrEnum):
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     FIN_PLATE_LTB = "fin_plate_ltb"  # a long fin plate: lateral torsional buckling
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
+    PARTIAL_DEPTH = "partial_depth"  # a partial-depth end plate: shear check not built yet
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
 
     @property
@@ -237,6 +239,7 @@ class ReasonCode(StrEnum):
     """Why a joint was given its archetype."""
 
     END_PLATE_NO_BOLTS = "end_plate_no_bolts"
+    PLATE_SHORT_OF_FLANGE = "plate_short_of_flange"
     FIN_PLATE_NO_BOLTS = "fin_plate_no_bolts"
     BOLTS_NO_PLATE = "bolts_no_plate"
     SHORT_OF_FACE = "short_of_face"  # a bare beam end stopping short: welded, with a gap

@@ -65,6 +65,11 @@ REASONS: dict[ReasonCode, Words] = {
         f"{v['n']} bolt row(s) {' and '.join(v['where'])} the beam depth"
     ),
     ReasonCode.ROWS_WITHIN: lambda v: f"all {v['n']} bolt row(s) within the beam depth",
+    ReasonCode.PLATE_SHORT_OF_FLANGE: lambda v: (
+        f"end plate {v['top']:.0f} mm below the beam top and {v['bottom']:.0f} mm above its "
+        "bottom: it does not reach a flange, so it is a partial-depth (header) plate, "
+        "nominally pinned"
+    ),
     ReasonCode.FIN_PLATE_BOLTS: lambda v: (
         f"plate beside the beam web with {v['n']} bolt(s): nominally pinned"
     ),
@@ -116,6 +121,10 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.FIN_PLATE_LTB: lambda v: (
         f"fin plate lever arm z = {v['z']:.0f} mm exceeds t_p / 0.15 = {v['limit']:.0f} mm: "
         "its lateral torsional buckling is not checked"
+    ),
+    NotCheckedCode.PARTIAL_DEPTH: lambda v: (
+        "partial-depth end plate (nominally pinned, shear only): its shear check is not "
+        "implemented yet; it is never checked as a moment joint"
     ),
     NotCheckedCode.FIN_BOLT_PATTERN: lambda v: (
         f"fin plate bolts in {v['lines']} line(s) of {v['rows']} row(s): the check takes one "

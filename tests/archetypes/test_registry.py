@@ -55,3 +55,27 @@ def test_the_registry_order_decides_overlaps(scan_cached):
     # Incomplete is tried first: a plate without bolts is incomplete even though an end-plate
     # type would also look at it.
     assert type(REGISTRY[0]).__name__ == "Incomplete"
+
+
+def test_a_plate_short_of_a_flange_is_never_checked_as_a_moment_joint(scan_cached):
+    # A header plate (partial depth): its flanges are not on the plate, so the moment
+    # components of an end plate do not apply. Built from a demo flush plate, lowered.
+    from dataclasses import replace
+
+    from ifcjoint.archetypes import check_joint
+    from ifcjoint.model.codes import NotCheckedCode
+
+    r = scan_cached(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    members = {m.guid: m for m in r.model.members}
+    plates = [j for j in r.joints if j.archetype in (Archetype.FLUSH_END_PLATE,
+                                                     Archetype.EXTENDED_END_PLATE)]
+    assert plates  # none of the demo's full plates is taken for a header plate
+    j = next(x for x in plates if x.archetype == Archetype.FLUSH_END_PLATE)
+    a = r.anatomy[j.id]
+    h = a.beam_section.h
+    header = replace(a, plate=replace(a.plate, top_from_beam_top=40.0,
+                                      bottom_from_beam_top=h - 40.0))
+    arche, reason = decide(j, header)
+    assert arche == Archetype.PARTIAL_DEPTH_END_PLATE and reason.values["top"] == 40.0
+    res = check_joint(replace(j, archetype=arche), header, members)
+    assert not res.checked and res.not_checked.code == NotCheckedCode.PARTIAL_DEPTH
