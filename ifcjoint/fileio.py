@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import contextlib
 import contextvars
+import glob
 import os
 from collections.abc import Iterator, Mapping
 from pathlib import Path
@@ -56,7 +57,7 @@ def remove_stale_temporaries(target: str | Path) -> int:
     target = Path(target)
     n = 0
     try:
-        siblings = list(target.parent.glob(f".{target.name}.*{TEMP_SUFFIX}"))
+        siblings = list(target.parent.glob(f".{glob.escape(target.name)}.*{TEMP_SUFFIX}"))
     except OSError:
         return 0
     for tmp in siblings:
