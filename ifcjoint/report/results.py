@@ -231,7 +231,10 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
             [f"Joint {name}: {coded(j.archetype_reason)}.", f"Not checked: {coded(p.reason)}."]
         )
     if p.kind == ProblemKind.UNCHECKED:
-        return f"{name}: not checked, {UNCHECKED_WHAT[p.status]}", "\n".join(
+        what = UNCHECKED_WHAT[p.status]
+        if p.status != Status.NO_DEMANDS and p.reason is not None:
+            what = _short(coded(p.reason))  # the real cause, in words
+        return f"{name}: not checked, {what}", "\n".join(
             [
                 f"Joint {name}, archetype {j.archetype}: not checked ({p.status}).",
                 f"Reason: {coded(p.reason)}.",
@@ -320,6 +323,13 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
         "fingerprint": jc.fingerprint,
         "problems": problems,
     }
+
+
+def _short(text: str, most: int = 120) -> str:
+    """A sentence cut at a word to at most ``most`` characters (a topic title's length)."""
+    if len(text) <= most:
+        return text
+    return text[: text.rfind(" ", 0, most - 3)].rstrip(",;:") + "..."
 
 
 def finite_json(obj):

@@ -148,3 +148,13 @@ def test_the_direct_bcf3_writer_gives_what_the_library_writes(demo_check, tmp_pa
         return out, list(ext.topic_types.topic_type), list(ext.topic_labels.topic_label)
 
     assert content(fast) == content(lib)
+
+
+def test_an_unchecked_topic_title_names_its_cause(demo_check):
+    # a coordinator reads the cause in the list, not "outside what ifcjoint checks"
+    from ifcjoint.report.bcf import _topics
+
+    titles = {p["title"] for _, p, _ in _topics(demo_check.results)}
+    fin = [t for t in titles if "fin plate" in t and "not checked" in t]
+    assert fin and all(len(t.split(": ", 1)[1]) <= 140 for t in fin)
+    assert not any("outside what ifcjoint checks" in t for t in titles)
