@@ -22,6 +22,8 @@ from ifcjoint.engine.inputs import (
     FinBoltsInput,
     FinPlateInput,
     FinPlateJointInput,
+    HeaderPlateInput,
+    HeaderPlateJointInput,
     MemberInput,
     PlateInput,
     StiffenerInput,
@@ -343,6 +345,56 @@ def fin_plate_input(
             As=TENSILE_STRESS_AREA[int(round(b.d))], d0=b.d0, n1=n1, n2=n2,
             p1=min(b.pitches) if b.pitches else 0.0,
             gauge=lines[1] - lines[0] if n2 == 2 else 0.0,
+            rows_from_beam_top=tuple(rows),
+        ),
+        support="web" if joint.axis != Axis.MAJOR else "flange",
+    )
+
+
+def header_plate_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> HeaderPlateJointInput | NotChecked:
+    """The engine input for a partial-depth end plate, or the reason it cannot be checked.
+
+    Two bolt lines (one bolt each side of the web in every row); distances from the plate's
+    edges as read; pitches that differ take the least (on the safe side).
+    """
+    st = settings or CheckSettings()
+    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)),
+                                 minor_axis=True)
+    if isinstance(members_in, NotChecked):
+        return members_in
+    beam, col = members_in
+    b, p = a.bolts, a.plate
+    if b.d is None or b.bolt_class is None or b.d0 is None or b.gauge is None:
+        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
+    if int(round(b.d)) not in TENSILE_STRESS_AREA:
+        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
+    if any(len(r.bolts) != 2 for r in b.rows):
+        return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
+    try:
+        base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    rows = [r.from_beam_top for r in b.rows]
+    throats = [w.throat for w in a.welds if w.throat is not None and w.throat > 0]
+    weld = min(throats) if throats else _throat(beam.tw, beam.grade, beam.fy, beam.fu, st)
+    return HeaderPlateJointInput(
+        column=col,
+        beam=beam,
+        welds=WeldsInput(top_flange_throat=0.0, bottom_flange_throat=0.0, web_throat=weld,
+                         assumed=not throats, modelled=("web",) if throats else ()),
+        params=st.params,
+        braced=st.braced,
+        header=HeaderPlateInput(
+            tp=p.tp, hp=p.hp, bp=p.bp, fy=s.fy, fu=s.fu, grade=base, strength_source=s.source,
+            e1_top=rows[0] - p.top_from_beam_top, e1_bottom=p.bottom_from_beam_top - rows[-1],
+            e2=(p.bp - b.gauge) / 2,
+        ),
+        bolts=FinBoltsInput(
+            d=b.d, grade=b.bolt_class, fub=BOLT_CLASSES[b.bolt_class][1],
+            As=TENSILE_STRESS_AREA[int(round(b.d))], d0=b.d0, n1=len(rows), n2=2,
+            p1=min(b.pitches) if b.pitches else 0.0, gauge=b.gauge,
             rows_from_beam_top=tuple(rows),
         ),
         support="web" if joint.axis != Axis.MAJOR else "flange",

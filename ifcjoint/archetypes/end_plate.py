@@ -4,15 +4,14 @@ from __future__ import annotations
 
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.base import JointType, end_plate_ready
-from ifcjoint.archetypes.builders import end_plate_input
+from ifcjoint.archetypes.builders import end_plate_input, header_plate_input
 from ifcjoint.engine.end_plate import check_end_plate_joint
-from ifcjoint.engine.inputs import EndPlateJointInput
+from ifcjoint.engine.header_plate import check_header_plate_joint
+from ifcjoint.engine.inputs import EndPlateJointInput, HeaderPlateJointInput
 from ifcjoint.engine.results import CheckResult
 from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.model.codes import (
     Archetype,
-    NotChecked,
-    NotCheckedCode,
     Note,
     NoteCode,
     Reason,
@@ -57,8 +56,8 @@ class PartialDepthEndPlate(JointType):
     """An end plate that does not reach a beam flange: a header plate, nominally pinned.
 
     Tried before the moment end plates: its flanges are not welded to the plate, so the
-    component method of a moment end plate does not apply. Its shear check is not built yet
-    (said); it is never checked as a moment joint.
+    component method of a moment end plate does not apply: it is checked in shear only
+    (``engine.header_plate``), never as a moment joint.
     """
 
     archetype = Archetype.PARTIAL_DEPTH_END_PLATE
@@ -79,8 +78,12 @@ class PartialDepthEndPlate(JointType):
         return Reason(ReasonCode.PLATE_SHORT_OF_FLANGE, {"top": top, "bottom": bottom})
 
     def engine_input(self, joint, a, members, st):
-        """Not checked: the header plate's shear check is not implemented yet."""
-        return NotChecked(NotCheckedCode.PARTIAL_DEPTH)
+        """The header plate input (``builders.header_plate_input``)."""
+        return header_plate_input(joint, a, members, st)
+
+    def engine(self, inp: HeaderPlateJointInput) -> CheckResult:
+        """``engine.header_plate.check_header_plate_joint``."""
+        return check_header_plate_joint(inp)
 
 
 class ExtendedEndPlate(_CheckedEndPlate):

@@ -37,6 +37,14 @@ class Component(StrEnum):
     BEAM_WEB_GROSS_SHEAR = "beam_web_gross_shear"
     BEAM_WEB_NET_SHEAR = "beam_web_net_shear"
     PLATE_WELD = "fin_plate_weld"
+    HEADER_BOLT_SHEAR = "header_bolt_shear"
+    HEADER_PLATE_BEARING = "header_plate_bearing"
+    HEADER_SUPPORT_BEARING = "header_support_bearing"
+    HEADER_PLATE_GROSS_SHEAR = "header_plate_gross_shear"
+    HEADER_PLATE_NET_SHEAR = "header_plate_net_shear"
+    HEADER_PLATE_BLOCK_TEARING = "header_plate_block_tearing"
+    HEADER_BEAM_WEB_SHEAR = "header_beam_web_shear"
+    HEADER_WELD = "header_plate_weld"
     TIE_BOLT_SHEAR = "tie_bolt_shear"
     TIE_PLATE_BEARING = "tie_fin_plate_bearing"
     TIE_BEAM_WEB_BEARING = "tie_beam_web_bearing"
@@ -162,6 +170,33 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         formula="V_Rd = (A_v - n1 d0 t_w) f_u / (sqrt(3) gamma_M2)", zone=Zone.SHEAR),
     Component.PLATE_WELD: ComponentInfo(
         name="fin plate to support welds",
+        formula="F_w,Rd = 2 a h_p f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
+        zone=Zone.SHEAR),
+    Component.HEADER_BOLT_SHEAR: ComponentInfo(
+        name="bolts in shear (partial-depth end plate)",
+        formula="V_Rd = 0.8 n F_v,Rd (0.8: tension in the bolts, design guide)",
+        zone=Zone.SHEAR),
+    Component.HEADER_PLATE_BEARING: ComponentInfo(
+        name="bolts in bearing on the end plate",
+        formula="V_Rd = n min F_b,Rd, F_b,Rd = k1 alpha_b f_u d t_p / gamma_M2", zone=Zone.SHEAR),
+    Component.HEADER_SUPPORT_BEARING: ComponentInfo(
+        name="bolts in bearing on the column",
+        formula="V_Rd = n F_b,Rd with t and f_u of the column (inner bolts)", zone=Zone.SHEAR),
+    Component.HEADER_PLATE_GROSS_SHEAR: ComponentInfo(
+        name="end plate, gross section in shear",
+        formula="V_Rd = 2 h_p t_p f_y / (1.27 sqrt(3) gamma_M0)", zone=Zone.SHEAR),
+    Component.HEADER_PLATE_NET_SHEAR: ComponentInfo(
+        name="end plate, net section in shear",
+        formula="V_Rd = 2 t_p (h_p - n1 d0) f_u / (sqrt(3) gamma_M2)", zone=Zone.SHEAR),
+    Component.HEADER_PLATE_BLOCK_TEARING: ComponentInfo(
+        name="end plate, block tearing",
+        formula="V_Rd = 2 (f_u A_nt / gamma_M2 + f_y A_nv / (sqrt(3) gamma_M0))",
+        zone=Zone.SHEAR),
+    Component.HEADER_BEAM_WEB_SHEAR: ComponentInfo(
+        name="beam web in shear at the end plate",
+        formula="V_Rd = h_p t_w f_y / (sqrt(3) gamma_M0)", zone=Zone.SHEAR),
+    Component.HEADER_WELD: ComponentInfo(
+        name="end plate to beam web welds",
         formula="F_w,Rd = 2 a h_p f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
         zone=Zone.SHEAR),
     Component.TIE_BOLT_SHEAR: ComponentInfo(

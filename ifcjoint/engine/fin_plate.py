@@ -72,7 +72,8 @@ def fin_plate_components(inp: FinPlateJointInput) -> tuple[list[ComponentResult]
                              horizontal_end=f.e2_beam)
     a_v_net = f.tp * (f.hp - b.n1 * b.d0)
     a_nt = f.tp * (f.e2 + (b.n2 - 1) * b.gauge - (b.n2 - 0.5) * b.d0)
-    a_nv = f.tp * (f.hp - f.e1_bottom - (b.n1 - 0.5) * b.d0)
+    # the shear planes run to the farther plate edge: the smaller area, on the safe side
+    a_nv = f.tp * (f.hp - max(f.e1_top, f.e1_bottom) - (b.n1 - 0.5) * b.d0)
     hw = beam.h - 2 * beam.tf
     area = 2 * beam.b * beam.tf + hw * beam.tw + (4 - 3.141592653589793) * beam.r ** 2
     a_v = pin.A_v_rolled_i(area, beam.b, beam.tf, beam.tw, beam.r, hw)

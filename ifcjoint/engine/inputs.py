@@ -230,13 +230,49 @@ class FinPlateJointInput(_JointInputBase):
     support: str = "flange"
 
 
+@dataclass(frozen=True, slots=True, kw_only=True)
+class HeaderPlateInput:
+    """A partial-depth end plate welded to the beam web only (mm, MPa).
+
+    Attributes:
+        e1_top, e1_bottom: from the top and the bottom row to the plate's edges.
+        e2: from a bolt line to the plate's side edge.
+    """
+
+    tp: float
+    hp: float
+    bp: float
+    fy: float
+    fu: float
+    grade: str
+    e1_top: float
+    e1_bottom: float
+    e2: float
+    strength_source: str = ""
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class HeaderPlateJointInput(_JointInputBase):
+    """A beam with a partial-depth end plate bolted to a column (N, mm, MPa).
+
+    ``welds.web_throat`` is the throat of the plate's welds to the beam web; ``support``:
+    the column ``flange`` or ``web`` it is bolted to.
+    """
+
+    header: HeaderPlateInput
+    bolts: FinBoltsInput
+    support: str = "flange"
+
+
 #: Any input of the beam-to-column engines.
-JointInput = EndPlateJointInput | WeldedJointInput | FinPlateJointInput
+JointInput = (EndPlateJointInput | WeldedJointInput | FinPlateJointInput
+              | HeaderPlateJointInput)
 
 
 #: The order of the input's fields in the outputs (the order a calculation sheet reads).
 _RECORD_ORDER = (
-    "column", "beam", "plate", "fin", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
+    "column", "beam", "plate", "fin", "header", "bolts", "welds", "params", "beta", "alpha",
+    "alpha_method",
     "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
     "sigma_com_Ed",
 )

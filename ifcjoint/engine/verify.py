@@ -240,7 +240,7 @@ def verify_combination(
     r = run_engine(engine, this, _cache)
     if not r.checked:
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
-    if r.joint_kind == "fin_plate":
+    if r.joint_kind in PINNED_KINDS:
         return verify_pinned(demand, r, beta)
     notes = [beta_note]
     c = demand.combination
@@ -286,8 +286,12 @@ def verify_combination(
     )
 
 
+#: Joint kinds that are nominally pinned: shear only, no moment (``verify_pinned``).
+PINNED_KINDS = frozenset({"fin_plate", "header_plate"})
+
+
 def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationResult:
-    """A nominally pinned joint (fin plate) for one load combination.
+    """A nominally pinned joint (fin plate, partial-depth end plate) for one combination.
 
     EN 1993-1-8:2005, 5.2.2.2: the joint carries the shear (against Vj,Rd, its least shear
     component) and no moment: a moment in the demands is checked against a resistance of

@@ -214,7 +214,6 @@ class NotCheckedCode(StrEnum):
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     FIN_PLATE_LTB = "fin_plate_ltb"  # a long fin plate: lateral torsional buckling
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
-    PARTIAL_DEPTH = "partial_depth"  # a partial-depth end plate: shear check not built yet
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
 
     @property

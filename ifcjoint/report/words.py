@@ -68,7 +68,7 @@ REASONS: dict[ReasonCode, Words] = {
     ReasonCode.PLATE_SHORT_OF_FLANGE: lambda v: (
         f"end plate {v['top']:.0f} mm below the beam top and {v['bottom']:.0f} mm above its "
         "bottom: it does not reach a flange, so it is a partial-depth (header) plate, "
-        "nominally pinned"
+        "nominally pinned: shear only"
     ),
     ReasonCode.FIN_PLATE_BOLTS: lambda v: (
         f"plate beside the beam web with {v['n']} bolt(s): nominally pinned"
@@ -115,16 +115,12 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "beam web and welds are"
     ),
     NotCheckedCode.TYING_NOT_CHECKED: lambda v: (
-        f"an axial compression of {-v['N'] / 1e3:.1f} kN on a nominally pinned joint: not "
-        "checked (its bearing into the support is not a component here)"
+        f"an axial {'tension' if v['N'] > 0 else 'compression'} of {abs(v['N']) / 1e3:.1f} "
+        "kN on a nominally pinned joint: not checked for this joint type"
     ),
     NotCheckedCode.FIN_PLATE_LTB: lambda v: (
         f"fin plate lever arm z = {v['z']:.0f} mm exceeds t_p / 0.15 = {v['limit']:.0f} mm: "
         "its lateral torsional buckling is not checked"
-    ),
-    NotCheckedCode.PARTIAL_DEPTH: lambda v: (
-        "partial-depth end plate (nominally pinned, shear only): its shear check is not "
-        "implemented yet; it is never checked as a moment joint"
     ),
     NotCheckedCode.FIN_BOLT_PATTERN: lambda v: (
         f"fin plate bolts in {v['lines']} line(s) of {v['rows']} row(s): the check takes one "
