@@ -220,26 +220,49 @@ def _shared_fields(
     }
 
 
-def end_plate_input(
-    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
-) -> EndPlateJointInput | NotChecked:
-    """The engine input for a bolted end-plate joint, or the reason it cannot be checked."""
-    st = settings or CheckSettings()
-    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)))
+def _bolted_plate(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], st: CheckSettings, *,
+    minor_axis: bool, two_lines: bool,
+) -> tuple[MemberInput, MemberInput, str, Strength] | NotChecked:
+    """What every bolted plate's input needs: beam, column, the plate's grade and strength.
+
+    Or the first reason it cannot be had: sections or grades not read, bolt data missing
+    (with ``two_lines``: a gauge and two bolts in every row), no tensile area for the size,
+    a plate strength the tables do not hold.
+    """
+    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)),
+                                 minor_axis=minor_axis)
     if isinstance(members_in, NotChecked):
         return members_in
-    beam, col = members_in
     b, p = a.bolts, a.plate
-    if b.d is None or b.bolt_class is None or b.d0 is None or b.gauge is None:
+    if b.d is None or b.bolt_class is None or b.d0 is None or (two_lines and b.gauge is None):
         return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
     if int(round(b.d)) not in TENSILE_STRESS_AREA:
         return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
-    if any(len(r.bolts) != 2 for r in b.rows):
+    if two_lines and any(len(r.bolts) != 2 for r in b.rows):
         return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
     try:
         base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
     except ValueError as exc:
         return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    return (*members_in, base, s)
+
+
+def _modelled_throats(a: JointAnatomy) -> list[float]:
+    """The weld throats the model gives at the joint (mm; empty when none has a size)."""
+    return [w.throat for w in a.welds if w.throat is not None and w.throat > 0]
+
+
+def end_plate_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> EndPlateJointInput | NotChecked:
+    """The engine input for a bolted end-plate joint, or the reason it cannot be checked."""
+    st = settings or CheckSettings()
+    got = _bolted_plate(joint, a, members, st, minor_axis=False, two_lines=True)
+    if isinstance(got, NotChecked):
+        return got
+    beam, col, base, s = got
+    b, p = a.bolts, a.plate
     fy_p, fu_p = s.fy, s.fu
     fub = BOLT_CLASSES[b.bolt_class][1]
     return EndPlateJointInput(
@@ -300,16 +323,11 @@ def fin_plate_input(
     group's eccentricity factors: on the safe side).
     """
     st = settings or CheckSettings()
-    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)),
-                                 minor_axis=True)
-    if isinstance(members_in, NotChecked):
-        return members_in
-    beam, col = members_in
+    got = _bolted_plate(joint, a, members, st, minor_axis=True, two_lines=False)
+    if isinstance(got, NotChecked):
+        return got
+    beam, col, base, s = got
     b, p = a.bolts, a.plate
-    if b.d is None or b.bolt_class is None or b.d0 is None:
-        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
-    if int(round(b.d)) not in TENSILE_STRESS_AREA:
-        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
     lines: list[float] = []
     for x in sorted(-v for r in b.rows for v in r.along):
         if not lines or x - lines[-1] > LINE_TOLERANCE:
@@ -321,12 +339,8 @@ def fin_plate_input(
     e2_beam = lines[0] - joint.gap
     if e2 <= 0 or e2_beam <= 0:
         return NotChecked(NotCheckedCode.FIN_BOLT_PATTERN, {"lines": n2, "rows": n1})
-    try:
-        base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
-    except ValueError as exc:
-        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
     rows = [r.from_beam_top for r in b.rows]
-    throats = [w.throat for w in a.welds if w.throat is not None and w.throat > 0]
+    throats = _modelled_throats(a)
     weld = min(throats) if throats else _throat(p.tp, base, s.fy, s.fu, st)
     return FinPlateJointInput(
         column=col,
@@ -360,24 +374,13 @@ def header_plate_input(
     edges as read; pitches that differ take the least (on the safe side).
     """
     st = settings or CheckSettings()
-    members_in = beam_and_column(joint, a, members, st, (("plate", a.plate), ("bolts", a.bolts)),
-                                 minor_axis=True)
-    if isinstance(members_in, NotChecked):
-        return members_in
-    beam, col = members_in
+    got = _bolted_plate(joint, a, members, st, minor_axis=True, two_lines=True)
+    if isinstance(got, NotChecked):
+        return got
+    beam, col, base, s = got
     b, p = a.bolts, a.plate
-    if b.d is None or b.bolt_class is None or b.d0 is None or b.gauge is None:
-        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
-    if int(round(b.d)) not in TENSILE_STRESS_AREA:
-        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
-    if any(len(r.bolts) != 2 for r in b.rows):
-        return NotChecked(NotCheckedCode.ROW_NOT_TWO_BOLTS)
-    try:
-        base, s = grade_strength(p.grade or a.beam_grade, p.tp, st.strength_basis)
-    except ValueError as exc:
-        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
     rows = [r.from_beam_top for r in b.rows]
-    throats = [w.throat for w in a.welds if w.throat is not None and w.throat > 0]
+    throats = _modelled_throats(a)
     weld = min(throats) if throats else _throat(beam.tw, beam.grade, beam.fy, beam.fu, st)
     return HeaderPlateJointInput(
         column=col,
