@@ -8,9 +8,12 @@ from dataclasses import dataclass, field
 
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import components as cmp
+from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3 import sections as sec
 from ifcjoint.ec3 import stiffeners as sti
 from ifcjoint.ec3 import stiffness as stf
+from ifcjoint.ec3.code import EN_1993_1_8, Zone
+from ifcjoint.ec3.moment_resistance import Limit, LimitScope
 from ifcjoint.engine.inputs import JointInput, MemberInput, StiffenerInput, WeldsInput
 from ifcjoint.engine.results import CheckResult, Classification, SideResult
 from ifcjoint.model.codes import (
@@ -301,3 +304,44 @@ def unique_notes(notes: list[Note]) -> tuple[Note, ...]:
             seen.add(key)
             out.append(n)
     return tuple(out)
+
+
+def pinned_result(
+    inp: JointInput,
+    comps: list,
+    *,
+    kind: str,
+    tp: float,
+    grade: str,
+    z: float,
+    gaps: list[NotChecked],
+    notes: list[Note],
+    N_j_Rd_tie: float | None = None,
+) -> CheckResult:
+    """The result of a nominally pinned joint from its components (shear only, no moment).
+
+    EN 1993-1-8:2005 5.2.2.2: Mj,Rd = 0 on both signs; Vj,Rd is the least of the shear
+    components (``Zone.SHEAR``; tying components are kept beside them). Classified
+    nominally pinned when the plate is thin enough to rotate (``ec3.pinned``: design guide
+    for pinned joints), otherwise not classified, with the reason. Assumed welds are said.
+    """
+    shear = [c for c in comps if EN_1993_1_8.components[c.component].zone == Zone.SHEAR]
+    gov = min(shear, key=lambda c: c.F_Rd)
+    d = inp.bolts.d
+    if inp.welds.assumed:
+        notes = [*notes, Note(NoteCode.WELDS_ASSUMED, {"a_top": 0.0, "a_bottom": 0.0,
+                                                       "a_web": inp.welds.web_throat})]
+    ratio = pin.ductile_fin_plate_ratio(grade)
+    if tp <= ratio * d:
+        cls = Classification(stiffness=StiffnessClass.PINNED)
+    else:
+        cls = Classification(stiffness_gap=NotChecked(NotCheckedCode.NOT_DUCTILE, {
+            "tp": tp, "d": d, "ratio": ratio}))
+    limit = Limit(gov.component, LimitScope.COMPONENT)
+    no_moment = NotChecked(NotCheckedCode.PINNED_NO_MOMENT)
+    sides = [SideResult(sign=sign, M_j_Rd=0.0, z=z, rows=(), components=tuple(comps),
+                        S_j_ini=None, governing=limit, V_j_Rd=gov.F_Rd, no_tension=no_moment)
+             for sign in ("hogging", "sagging")]
+    return CheckResult(hogging=sides[0], sagging=sides[1], V_j_Rd=gov.F_Rd, V_wp_Rd=None,
+                       classification=cls, notes=tuple(notes), input=inp, joint_kind=kind,
+                       gaps=tuple(gaps), N_j_Rd_tie=N_j_Rd_tie)

@@ -16,20 +16,17 @@ from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Clause, Component
-from ifcjoint.ec3.moment_resistance import Limit, LimitScope
+from ifcjoint.engine.common import pinned_result
 from ifcjoint.engine.inputs import FinPlateJointInput
 from ifcjoint.engine.results import (
     CheckResult,
-    Classification,
     ComponentResult,
-    SideResult,
 )
 from ifcjoint.model.codes import (
     NotChecked,
     NotCheckedCode,
     Note,
     NoteCode,
-    StiffnessClass,
 )
 
 
@@ -159,7 +156,7 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
     ``gaps`` (a long fin plate's lateral torsional buckling, a column web as the support):
     the joint cannot pass while any remains, though its utilisations are reported.
     """
-    f, b = inp.fin, inp.bolts
+    f = inp.fin
     gaps = []
     if f.z > f.tp / pin.SHORT_PLATE_RATIO:
         gaps.append(NotChecked(NotCheckedCode.FIN_PLATE_LTB, {
@@ -167,29 +164,11 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
     if inp.support == "web":
         gaps.append(NotChecked(NotCheckedCode.SUPPORT_WEB_NOT_COVERED))
     comps, group = fin_plate_components(inp)
-    gov = min(comps, key=lambda c: c.F_Rd)
     ties = tying_components(inp)
-    comps = comps + ties
     notes = [Note(NoteCode.FIN_PLATE_PINNED, {"z": f.z, "alpha": group["alpha"],
                                               "beta": group["beta"]}),
              Note(NoteCode.BEAM_WEB_UNNOTCHED)]
-    if inp.welds.assumed:
-        a = inp.welds.web_throat
-        notes.append(Note(NoteCode.WELDS_ASSUMED, {"a_top": 0.0, "a_bottom": 0.0, "a_web": a}))
-    if gov.component == Component.BOLT_GROUP_SHEAR:
+    if min(comps, key=lambda c: c.F_Rd).component == Component.BOLT_GROUP_SHEAR:
         notes.append(Note(NoteCode.BOLT_SHEAR_GOVERNS))
-    ratio = pin.ductile_fin_plate_ratio(f.grade)
-    if f.tp <= ratio * b.d:
-        cls = Classification(stiffness=StiffnessClass.PINNED)
-    else:
-        cls = Classification(stiffness_gap=NotChecked(NotCheckedCode.NOT_DUCTILE, {
-            "tp": f.tp, "d": b.d, "ratio": ratio}))
-    no_moment = NotChecked(NotCheckedCode.PINNED_NO_MOMENT)
-    limit = Limit(gov.component, LimitScope.COMPONENT)
-    sides = [SideResult(sign=sign, M_j_Rd=0.0, z=f.z, rows=(), components=tuple(comps),
-                        S_j_ini=None, governing=limit, V_j_Rd=gov.F_Rd, no_tension=no_moment)
-             for sign in ("hogging", "sagging")]
-    return CheckResult(hogging=sides[0], sagging=sides[1], V_j_Rd=gov.F_Rd, V_wp_Rd=None,
-                       classification=cls, notes=tuple(notes), input=inp,
-                       joint_kind="fin_plate", gaps=tuple(gaps),
-                       N_j_Rd_tie=min(t.F_Rd for t in ties))
+    return pinned_result(inp, comps + ties, kind="fin_plate", tp=f.tp, grade=f.grade, z=f.z,
+                         gaps=gaps, notes=notes, N_j_Rd_tie=min(t.F_Rd for t in ties))

@@ -17,10 +17,10 @@ from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Clause, Component
-from ifcjoint.ec3.moment_resistance import Limit, LimitScope
+from ifcjoint.engine.common import pinned_result
 from ifcjoint.engine.inputs import HeaderPlateJointInput
-from ifcjoint.engine.results import CheckResult, Classification, ComponentResult, SideResult
-from ifcjoint.model.codes import NotChecked, NotCheckedCode, Note, NoteCode, StiffnessClass
+from ifcjoint.engine.results import CheckResult, ComponentResult
+from ifcjoint.model.codes import NotChecked, NotCheckedCode
 
 #: Share of the bolts' shear resistance a header plate's bolt group may use, allowing for the
 #: tension the plate's rotation puts in them: design guide for pinned joints (partial-depth
@@ -85,24 +85,7 @@ def check_header_plate_joint(inp: HeaderPlateJointInput) -> CheckResult:
     net shear and the bolts' 0.8 as in the design guide for pinned joints (partial-depth end
     plates; the 0.8 from memory). On a column web, the web as a support is a gap.
     """
-    comps = header_plate_components(inp)
-    gov = min(comps, key=lambda c: c.F_Rd)
     gaps = [NotChecked(NotCheckedCode.SUPPORT_WEB_NOT_COVERED)] if inp.support == "web" else []
-    notes = []
-    if inp.welds.assumed:
-        notes.append(Note(NoteCode.WELDS_ASSUMED, {"a_top": 0.0, "a_bottom": 0.0,
-                                                   "a_web": inp.welds.web_throat}))
-    ratio = pin.ductile_fin_plate_ratio(inp.header.grade)
-    if inp.header.tp <= ratio * inp.bolts.d:
-        cls = Classification(stiffness=StiffnessClass.PINNED)
-    else:
-        cls = Classification(stiffness_gap=NotChecked(NotCheckedCode.NOT_DUCTILE, {
-            "tp": inp.header.tp, "d": inp.bolts.d, "ratio": ratio}))
-    limit = Limit(gov.component, LimitScope.COMPONENT)
-    no_moment = NotChecked(NotCheckedCode.PINNED_NO_MOMENT)
-    sides = [SideResult(sign=s, M_j_Rd=0.0, z=0.0, rows=(), components=tuple(comps),
-                        S_j_ini=None, governing=limit, V_j_Rd=gov.F_Rd, no_tension=no_moment)
-             for s in ("hogging", "sagging")]
-    return CheckResult(hogging=sides[0], sagging=sides[1], V_j_Rd=gov.F_Rd, V_wp_Rd=None,
-                       classification=cls, notes=tuple(notes), input=inp,
-                       joint_kind="header_plate", gaps=tuple(gaps))
+    h = inp.header
+    return pinned_result(inp, header_plate_components(inp), kind="header_plate", tp=h.tp,
+                         grade=h.grade, z=0.0, gaps=gaps, notes=[])
