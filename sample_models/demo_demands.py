@@ -11,7 +11,8 @@ demo, not from any project): first floor 30 kN/m on the edge lines A and C, 62 k
 
 Beams along Y (5 m, fin plates on the column webs) are secondary beams analysed as pinned:
 shear only, 10 kN/m on the first floor and 6 kN/m on the roof (invented), V = w L / 2 in
-ULS-1 and 80 % of it in ULS-2, no moment.
+ULS-1 and 80 % of it in ULS-2, no moment. The secondary beam between lines A and B (fin
+plates on the main beams' webs) carries 14 kN/m over its 5 m the same way (invented).
 
 The analysis assumed rigid joints on line A of the first floor (to show the assumption check)
 and semi-rigid elsewhere; roof line C and the cantilever are left out ("analysis pending"), so
@@ -36,6 +37,7 @@ LOADS = {  # (level, line) -> factored line load, kN/m (invented)
 SWAY = {0: 60.0, 1: 35.0}
 SPAN_Y_M = 5.0
 LOADS_Y = {0: 10.0, 1: 6.0}  # kN/m on the pinned secondary beams along Y (invented)
+LOAD_SECONDARY = 14.0  # kN/m on the secondary beam framing into the main beams (invented)
 PENDING = {(1, 2)}  # roof line C: no forces yet
 HEADER = (
     "# Kestrel Lane cycle workshop (invented demo): design forces from an invented analysis.\n"
@@ -49,8 +51,9 @@ def rows(truth: dict) -> list[list[str]]:
     out = []
     for j in truth["joints"]:
         parts = j["key"].split("/")
-        if parts[0] == "Y":
-            v = LOADS_Y[int(parts[1])] * SPAN_Y_M / 2.0
+        if parts[0] in ("Y", "secondary"):
+            load = LOADS_Y[int(parts[1])] if parts[0] == "Y" else LOAD_SECONDARY
+            v = load * SPAN_Y_M / 2.0
             for comb, f in (("ULS-1 gravity", 1.0), ("ULS-2 sway", 0.8)):
                 out.append(["", j["beam"], j["beam_end"], comb, "0.0", f"{f * v:.1f}", "0", "",
                             "braced", "pinned"])

@@ -997,8 +997,10 @@ class Frame:
         f = self.w.f
         a_el = f.by_guid(main_a["beam"])
         b_el = f.by_guid(main_b["beam"])
-        self.other_end(sec, "start", "beam_to_beam", a_el)
-        self.other_end(sec, "end", "beam_to_beam", b_el)
+        # fin plates on the main beams' webs: beam-to-beam joints (also beam_to_beam ends)
+        for end, main, main_el in (("start", main_a, a_el), ("end", main_b, b_el)):
+            self.secondary_joint(sec, end, main_el, main["level_z"], f"secondary/{end}")
+            self.other_end(sec, end, "beam_to_beam", a_el if end == "start" else b_el)
         del hA
         # Cantilever canopy beam IPE 200 off column C4 (last line, last column), along +X.
         i, j = self.opt.bays_x, self.opt.bays_y
@@ -1018,6 +1020,48 @@ class Frame:
                         (self.dx - hc / 2, 0.0, 200.0), name="Ground tie A/1-2")
         self.other_end(tie, "start", "column_base", cols[(0, 0)][0])
         self.other_end(tie, "end", "column_base", cols[(1, 0)][0])
+
+    def secondary_joint(self, sec_info, end: str, main_el, main_top: float, key: str):
+        """A fin plate welded to a main beam's web, the secondary beam's web bolted to it.
+
+        Secondary IPE 200 (top 50 mm below the main beam's), 10 mm off the main web; plate
+        8 x 130 x 90 from 35 to 165 mm below the secondary's top, two M20 8.8 bolts 70 and
+        130 mm down, one line 50 mm from the main web (40 from the beam end).
+        """
+        beam, bworld, blen = sec_info
+        h, b, tw, tf, r = SECTIONS["IPE 200"]
+        x_axis = bworld[:3, 0]
+        t = x_axis if end == "end" else -x_axis  # into the main beam
+        lat = np.cross((0, 0, 1.0), t)
+        end_pt = bworld[:3, 3] + (x_axis * blen if end == "end" else 0)
+        top_z = float(end_pt[2])
+        tp, lp, hp, rows = 8.0, 90.0, 130.0, (70.0, 130.0)
+        web_face = end_pt + t * 10.0
+        c = web_face - t * lp / 2 + lat * (tw / 2 + tp / 2)
+        zc = top_z - (35.0 + 165.0) / 2
+        m = frame_matrix(np.array([c[0], c[1], zc]), t, lat)
+        holes = [((lp / 2 - 50.0, (top_z - row) - zc), 11.0) for row in rows]
+        pl = self.plate(key + "/fin", self.name("FP"), lp, hp, tp, m, (None, None), holes=holes)
+        mats = []
+        for row in rows:
+            p = end_pt - t * 40.0 + lat * (tw / 2 + tp + 5)
+            mats.append((f"{key}/{row}", frame_matrix(np.array([p[0], p[1], top_z - row]), t,
+                                                      -lat)))
+        bolts = self.bolts_at(mats, 20.0, 45.0, (beam, bworld))
+        style = self.style_for(len(self.truth.joints))
+        if style == "assembly":  # the fin plate joins the main beam's own assembly
+            self.parts_by_beam.setdefault(main_el.GlobalId, [main_el]).append(pl)
+        else:
+            self.relate(style, beam, main_el, list(bolts), [pl])
+        self.truth.joints.append({
+            "beam": beam.GlobalId, "beam_end": end, "end_point_mm": [float(v) for v in end_pt],
+            "column": main_el.GlobalId, "support": "beam", "axis": "minor", "kind": "fin_plate",
+            "first_guess": "beam_to_beam_fin_plate", "archetype": "beam_to_beam_fin_plate",
+            "plates": [pl.GlobalId], "bolts": sorted(x.GlobalId for x in bolts), "welds": [],
+            "relations": style, "defects": [], "plate": None, "rows_from_beam_top": [],
+            "bolt_d": 20.0, "key": key, "level_z": float(main_top), "approach": [float(v) for v in t],
+            "partner": None,
+        })
 
     def column_bases(self, cols):
         for (i, j), (col, p0, _p1) in cols.items():

@@ -12,6 +12,7 @@ from dataclasses import replace
 
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.archetypes.base import JointType
+from ifcjoint.archetypes.beam_to_beam import BeamFinPlate, BeamHeaderPlate
 from ifcjoint.archetypes.end_plate import (
     EndPlateUnjudged,
     ExtendedEndPlate,
@@ -39,6 +40,8 @@ from ifcjoint.model.joints import Joint
 #: Every archetype, in the order recognition tries them (the first that recognises wins).
 REGISTRY: tuple[JointType, ...] = (
     Incomplete(),
+    BeamHeaderPlate(),
+    BeamFinPlate(),
     PartialDepthEndPlate(),
     ExtendedEndPlate(),
     FlushEndPlate(),

@@ -37,6 +37,13 @@ from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
 
 
+def support_face(joint: Joint) -> str:
+    """What carries a pinned joint's plate: a column ``flange`` or ``web``, or a ``beam_web``."""
+    if joint.beam_to_beam:
+        return "beam_web"
+    return "web" if joint.axis != Axis.MAJOR else "flange"
+
+
 def require_major_axis(joint: Joint) -> NotChecked | None:
     """Why a joint on a column web cannot be checked (EN 1993-1-8 covers flange joints here)."""
     if joint.axis != Axis.MAJOR:
@@ -361,7 +368,7 @@ def fin_plate_input(
             gauge=lines[1] - lines[0] if n2 == 2 else 0.0,
             rows_from_beam_top=tuple(rows),
         ),
-        support="web" if joint.axis != Axis.MAJOR else "flange",
+        support=support_face(joint),
     )
 
 
@@ -400,5 +407,5 @@ def header_plate_input(
             p1=min(b.pitches) if b.pitches else 0.0, gauge=b.gauge,
             rows_from_beam_top=tuple(rows),
         ),
-        support="web" if joint.axis != Axis.MAJOR else "flange",
+        support=support_face(joint),
     )

@@ -45,6 +45,8 @@ class Component(StrEnum):
     HEADER_PLATE_BLOCK_TEARING = "header_plate_block_tearing"
     HEADER_BEAM_WEB_SHEAR = "header_beam_web_shear"
     HEADER_WELD = "header_plate_weld"
+    PLATE_LTB = "fin_plate_lateral_torsional_buckling"
+    SUPPORT_WEB_SHEAR = "supporting_web_local_shear"
     TIE_BOLT_SHEAR = "tie_bolt_shear"
     TIE_PLATE_BEARING = "tie_fin_plate_bearing"
     TIE_BEAM_WEB_BEARING = "tie_beam_web_bearing"
@@ -60,6 +62,7 @@ class Zone(StrEnum):
     COMPRESSION = "compression zone"
     SHEAR = "shear zone"
     TYING = "tying (axial tension)"
+    SUPPORT = "supporting member"
 
 
 @dataclass(frozen=True, slots=True)
@@ -199,6 +202,14 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         name="end plate to beam web welds",
         formula="F_w,Rd = 2 a h_p f_vw,d, f_vw,d = f_u / (sqrt(3) beta_w gamma_M2)",
         zone=Zone.SHEAR),
+    Component.PLATE_LTB: ComponentInfo(
+        name="fin plate, lateral torsional buckling (long plate)",
+        formula="V_Rd = min(W_el f_p,LT / (0.6 z gamma_M1), W_el f_y / (z gamma_M0)), "
+        "lambda_LT = 2.8 (z_p h_p / (1.5 t_p^2))^0.5", zone=Zone.SHEAR),
+    Component.SUPPORT_WEB_SHEAR: ComponentInfo(
+        name="supporting web, local shear",
+        formula="V_Rd = 2 h_p t_w f_y / (sqrt(3) gamma_M0), against the reactions of both sides",
+        zone=Zone.SUPPORT),
     Component.TIE_BOLT_SHEAR: ComponentInfo(
         name="tying: bolts in shear", formula="N_Rd = n F_v,Rd (with gamma_Mu)",
         zone=Zone.TYING),

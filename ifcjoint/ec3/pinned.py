@@ -172,3 +172,78 @@ def N_Rd_block_tearing_tie(A_nt: float, A_nv: float, fu: float, fy: float,
     f_u A_nt / gamma_Mu + f_y A_nv / (sqrt(3) gamma_M0).
     """
     return fu * A_nt / params.gamma_Mu + fy * A_nv / (math.sqrt(3) * params.gamma_M0)
+
+
+#: Modulus of elasticity of the plate buckling curve below, MPa: the value of the British
+#: standard the design guide takes the curve from (from memory).
+LTB_CURVE_E = 205_000.0
+#: Robertson constant of that curve for rolled sections (from memory).
+LTB_CURVE_ALPHA = 7.0
+
+
+def fin_plate_slenderness(z_p: float, hp: float, tp: float) -> float:
+    """Slenderness lambda_LT of a long fin plate.
+
+    Design guide for pinned joints (``GUIDE``), section 3.2.4:
+    lambda_LT = 2.8 (z_p h_p / (1.5 t_p^2))^0.5, z_p from the support face to the first bolt
+    line.
+    """
+    return 2.8 * math.sqrt(z_p * hp / (1.5 * tp * tp))
+
+
+def f_p_LT(lambda_lt: float, fy: float) -> float:
+    """Lateral torsional buckling strength of a fin plate, MPa.
+
+    Design guide for pinned joints (``GUIDE``), section 3.2.4, takes it from BS 5950-1
+    Table 17; that table is the Perry-Robertson curve of BS 5950-1 Annex B.2.1 (formula from
+    memory): p_E = pi^2 E / lambda^2, lambda_L0 = 0.4 (pi^2 E / p_y)^0.5,
+    eta = 7.0 (lambda - lambda_L0) / 1000 >= 0, phi = (p_y + (eta + 1) p_E) / 2,
+    p_b = p_E p_y / (phi + (phi^2 - p_E p_y)^0.5), with E = 205 000 MPa.
+
+    Example:
+        >>> round(f_p_LT(100.0, 275.0), 1)
+        124.9
+    """
+    if lambda_lt <= 0:
+        return fy
+    p_e = math.pi ** 2 * LTB_CURVE_E / lambda_lt ** 2
+    lim = 0.4 * math.sqrt(math.pi ** 2 * LTB_CURVE_E / fy)
+    eta = max(LTB_CURVE_ALPHA * (lambda_lt - lim) / 1000.0, 0.0)
+    phi = (fy + (eta + 1.0) * p_e) / 2.0
+    return p_e * fy / (phi + math.sqrt(max(phi * phi - p_e * fy, 0.0)))
+
+
+def V_Rd_fin_plate_ltb(tp: float, hp: float, fy: float, z: float, z_p: float,
+                       params: Parameters = RECOMMENDED) -> float:
+    """Shear resistance of a long fin plate (z > t_p / 0.15) from its buckling (N).
+
+    Design guide for pinned joints (``GUIDE``), section 3.2.4:
+    V_Rd = min(W_el f_p,LT / (0.6 z gamma_M1), W_el f_y / (z gamma_M0)), W_el = t_p h_p^2 / 6
+    (``f_p_LT`` for the buckling strength).
+    """
+    w_el = tp * hp * hp / 6.0
+    f_lt = f_p_LT(fin_plate_slenderness(z_p, hp, tp), fy)
+    return min(w_el * f_lt / (0.6 * z * params.gamma_M1), w_el * fy / (z * params.gamma_M0))
+
+
+def V_Rd_supporting_web_local_shear(hp: float, tw: float, fy: float,
+                                    params: Parameters = RECOMMENDED) -> float:
+    """Local shear resistance of the supporting web (column or primary beam) at a plate (N).
+
+    Design guides for pinned joints, supporting web of a fin plate or end plate (the UK
+    edition of the same checks; from memory): the reaction spreads into the web on two
+    vertical planes of length h_p, so V_Rd = 2 h_p t_w f_y / (sqrt(3) gamma_M0), against the
+    reactions of the beams on both sides of the web together.
+    """
+    return 2.0 * hp * tw * fy / (math.sqrt(3) * params.gamma_M0)
+
+
+def punching_thickness_limit(tw: float, fu_w: float, fy_p: float,
+                             params: Parameters = RECOMMENDED) -> float:
+    """Thickest fin plate a supporting web takes without punching shear (mm).
+
+    Design guides for pinned joints, supporting web of a fin plate (common practice, from
+    memory; the same rule in the older British guide): t_p <= t_w f_u,w / (f_y,p gamma_M2),
+    so the web does not punch before the plate yields. Not a check for a column flange.
+    """
+    return tw * fu_w / (fy_p * params.gamma_M2)

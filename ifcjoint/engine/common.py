@@ -12,10 +12,16 @@ from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3 import sections as sec
 from ifcjoint.ec3 import stiffeners as sti
 from ifcjoint.ec3 import stiffness as stf
-from ifcjoint.ec3.code import EN_1993_1_8, Zone
+from ifcjoint.ec3.code import EN_1993_1_8, Clause, Component, Zone
 from ifcjoint.ec3.moment_resistance import Limit, LimitScope
 from ifcjoint.engine.inputs import JointInput, MemberInput, StiffenerInput, WeldsInput
-from ifcjoint.engine.results import CheckResult, Classification, SideResult
+from ifcjoint.engine.results import (
+    CheckResult,
+    Classification,
+    ComponentResult,
+    Condition,
+    SideResult,
+)
 from ifcjoint.model.codes import (
     NotChecked,
     NotCheckedCode,
@@ -317,11 +323,13 @@ def pinned_result(
     gaps: list[NotChecked],
     notes: list[Note],
     N_j_Rd_tie: float | None = None,
+    conditions: tuple = (),
 ) -> CheckResult:
     """The result of a nominally pinned joint from its components (shear only, no moment).
 
     EN 1993-1-8:2005 5.2.2.2: Mj,Rd = 0 on both signs; Vj,Rd is the least of the shear
-    components (``Zone.SHEAR``; tying components are kept beside them). Classified
+    components (``Zone.SHEAR``; tying components, and the supporting web that also takes the
+    other side's reaction, are kept beside them). Classified
     nominally pinned when the plate is thin enough to rotate (``ec3.pinned``: design guide
     for pinned joints), otherwise not classified, with the reason. Assumed welds are said.
     """
@@ -344,4 +352,37 @@ def pinned_result(
              for sign in ("hogging", "sagging")]
     return CheckResult(hogging=sides[0], sagging=sides[1], V_j_Rd=gov.F_Rd, V_wp_Rd=None,
                        classification=cls, notes=tuple(notes), input=inp, joint_kind=kind,
-                       gaps=tuple(gaps), N_j_Rd_tie=N_j_Rd_tie)
+                       gaps=tuple(gaps), N_j_Rd_tie=N_j_Rd_tie, conditions=tuple(conditions))
+
+
+#: Supports that are a web (of a column, or of a primary beam for a beam-to-beam joint).
+WEB_SUPPORTS = frozenset({"web", "beam_web"})
+
+
+def supporting_web(inp: JointInput, hp: float, plate: tuple[float, float] | None = None):
+    """The supporting web's local shear, and (for a welded plate) its punching rule.
+
+    ``inp.column`` is the supporting member (a column, or the primary beam of a beam-to-beam
+    joint), ``hp`` the depth of the plate on its web; ``plate`` gives (t_p, f_y,p) of a plate
+    welded to the web (fin plate), None for a bolted one. Returns ([component], [condition]);
+    both empty when the support is a flange (the design guides check a flange support for
+    neither). Local shear and punching: ``ec3.pinned`` (design guides for pinned joints).
+    """
+    if getattr(inp, "support", "flange") not in WEB_SUPPORTS:
+        return [], []
+    sup, p = inp.column, inp.params
+    comps = [ComponentResult(
+        clause=Clause(pin.GUIDE, "supporting web (from memory)"),
+        component=Component.SUPPORT_WEB_SHEAR,
+        F_Rd=pin.V_Rd_supporting_web_local_shear(hp, sup.tw, sup.fy, p),
+        inputs={"h_p": hp, "t_w": sup.tw, "f_y": sup.fy, "support": sup.name})]
+    conds = []
+    if plate is not None:
+        tp, fy_p = plate
+        conds.append(Condition(
+            clause=Clause(pin.GUIDE, "supporting web, punching "
+                          "(common practice, from memory)"),
+            name="punching", measured=tp,
+            limit=pin.punching_thickness_limit(sup.tw, sup.fu, fy_p, p),
+            inputs={"t_w": sup.tw, "f_u_w": sup.fu, "f_y_p": fy_p, "gamma_M2": p.gamma_M2}))
+    return comps, conds

@@ -16,7 +16,7 @@ from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Clause, Component
-from ifcjoint.engine.common import pinned_result
+from ifcjoint.engine.common import pinned_result, supporting_web
 from ifcjoint.engine.inputs import FinPlateJointInput
 from ifcjoint.engine.results import (
     CheckResult,
@@ -24,7 +24,6 @@ from ifcjoint.engine.results import (
 )
 from ifcjoint.model.codes import (
     NotChecked,
-    NotCheckedCode,
     Note,
     NoteCode,
 )
@@ -76,6 +75,8 @@ def fin_plate_components(inp: FinPlateJointInput) -> tuple[list[ComponentResult]
     a_v = pin.A_v_rolled_i(area, beam.b, beam.tf, beam.tw, beam.r, hw)
     fvw = cmp.f_vw_d(min(f.fu, inp.column.fu), cmp.BETA_W.get(f.grade[:4], 1.0), p)
     a_w = inp.welds.web_throat
+    z_p = f.z - (b.n2 - 1) * b.gauge / 2  # to the bolt line nearest the support
+    lam = pin.fin_plate_slenderness(z_p, f.hp, f.tp)
     parts = [
         (_guide(), Component.BOLT_GROUP_SHEAR, pin.V_Rd_bolt_group_shear(n, fv, alpha, beta),
          {**group, "F_v_Rd_kN": round(fv / 1e3, 1)}),
@@ -92,6 +93,11 @@ def fin_plate_components(inp: FinPlateJointInput) -> tuple[list[ComponentResult]
          {"A_nt": round(a_nt, 1), "A_nv": round(a_nv, 1)}),
         (_guide(), Component.PLATE_BENDING, pin.V_Rd_plate_bending(f.tp, f.hp, f.fy, f.z, p),
          {"z": f.z, "h_p": f.hp, "limit_2.73z": round(pin.NO_BENDING_DEPTH_RATIO * f.z, 1)}),
+        *([(_guide("3.2.4"), Component.PLATE_LTB,
+             pin.V_Rd_fin_plate_ltb(f.tp, f.hp, f.fy, f.z, z_p, p),
+             {"z": f.z, "z_p": z_p, "lambda_LT": round(lam, 1),
+              "f_p_LT": round(pin.f_p_LT(lam, f.fy), 1), "gamma_M1": p.gamma_M1})]
+          if f.z > f.tp / pin.SHORT_PLATE_RATIO else []),
         (Clause("EN 1993-1-1", "6.2.6"), Component.BEAM_WEB_GROSS_SHEAR,
          pin.V_pl_Rd(a_v, beam.fy, p), {"A_v": round(a_v, 1), "f_y": beam.fy}),
         (_guide(), Component.BEAM_WEB_NET_SHEAR,
@@ -153,17 +159,15 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
     EN 1993-1-8:2005 Table 3.4 (bolts), 3.10.2 (block tearing), 4.5.3.3 (welds) and
     5.2.2.2 (nominally pinned: no moment); the eccentric bolt group and the plate checks as
     in the design guide for pinned joints (``ec3.pinned``). What is not checked is listed in
-    ``gaps`` (a long fin plate's lateral torsional buckling, a column web as the support):
-    the joint cannot pass while any remains, though its utilisations are reported.
+    ``gaps``: the joint cannot pass while any remains, though its utilisations are reported.
+    A long fin plate (z > t_p / 0.15) adds its lateral torsional buckling; a plate on a web
+    (of a column or a primary beam) adds the web's local shear and its punching rule.
     """
     f = inp.fin
-    gaps = []
-    if f.z > f.tp / pin.SHORT_PLATE_RATIO:
-        gaps.append(NotChecked(NotCheckedCode.FIN_PLATE_LTB, {
-            "z": f.z, "limit": f.tp / pin.SHORT_PLATE_RATIO}))
-    if inp.support == "web":
-        gaps.append(NotChecked(NotCheckedCode.SUPPORT_WEB_NOT_COVERED))
+    gaps: list[NotChecked] = []
     comps, group = fin_plate_components(inp)
+    web, conditions = supporting_web(inp, f.hp, plate=(f.tp, f.fy))
+    comps += web
     ties = tying_components(inp)
     notes = [Note(NoteCode.FIN_PLATE_PINNED, {"z": f.z, "alpha": group["alpha"],
                                               "beta": group["beta"]}),
@@ -171,4 +175,5 @@ def check_fin_plate_joint(inp: FinPlateJointInput) -> CheckResult:
     if min(comps, key=lambda c: c.F_Rd).component == Component.BOLT_GROUP_SHEAR:
         notes.append(Note(NoteCode.BOLT_SHEAR_GOVERNS))
     return pinned_result(inp, comps + ties, kind="fin_plate", tp=f.tp, grade=f.grade, z=f.z,
-                         gaps=gaps, notes=notes, N_j_Rd_tie=min(t.F_Rd for t in ties))
+                         gaps=gaps, notes=notes, N_j_Rd_tie=min(t.F_Rd for t in ties),
+                         conditions=conditions)

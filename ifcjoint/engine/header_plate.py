@@ -17,10 +17,9 @@ from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import pinned as pin
 from ifcjoint.ec3.code import EN_1993_1_8 as EC3
 from ifcjoint.ec3.code import Clause, Component
-from ifcjoint.engine.common import pinned_result
+from ifcjoint.engine.common import pinned_result, supporting_web
 from ifcjoint.engine.inputs import HeaderPlateJointInput
 from ifcjoint.engine.results import CheckResult, ComponentResult
-from ifcjoint.model.codes import NotChecked, NotCheckedCode
 
 #: Share of the bolts' shear resistance a header plate's bolt group may use, allowing for the
 #: tension the plate's rotation puts in them: design guide for pinned joints (partial-depth
@@ -83,9 +82,10 @@ def check_header_plate_joint(inp: HeaderPlateJointInput) -> CheckResult:
     EN 1993-1-8:2005 Table 3.4 (bolts), 3.10.2(2) (block tearing, concentric), 4.5.3.3
     (welds), 5.2.2.2 (nominally pinned); EN 1993-1-1 6.2.6 (beam web); the plate's gross and
     net shear and the bolts' 0.8 as in the design guide for pinned joints (partial-depth end
-    plates; the 0.8 from memory). On a column web, the web as a support is a gap.
+    plates; the 0.8 from memory). On a web (of a column or a primary beam), the web's local
+    shear is added (``engine.common.supporting_web``).
     """
-    gaps = [NotChecked(NotCheckedCode.SUPPORT_WEB_NOT_COVERED)] if inp.support == "web" else []
     h = inp.header
-    return pinned_result(inp, header_plate_components(inp), kind="header_plate", tp=h.tp,
-                         grade=h.grade, z=0.0, gaps=gaps, notes=[])
+    web, _ = supporting_web(inp, h.hp)
+    return pinned_result(inp, header_plate_components(inp) + web, kind="header_plate",
+                         tp=h.tp, grade=h.grade, z=0.0, gaps=[], notes=[])

@@ -221,8 +221,8 @@ class FinPlateJointInput(_JointInputBase):
     """A beam bolted to a fin plate welded to a column (N, mm, MPa).
 
     ``welds.web_throat`` is the throat of the fin plate's welds to the support.
-    ``support`` says which face of the column carries the plate: ``flange`` or ``web`` (the
-    column web as a support is not a component of EN 1993-1-8).
+    ``support`` says what carries the plate: a column ``flange`` or ``web``, or a primary
+    beam's web (``beam_web``); a web adds its local shear and punching rule.
     """
 
     fin: FinPlateInput
@@ -256,7 +256,8 @@ class HeaderPlateJointInput(_JointInputBase):
     """A beam with a partial-depth end plate bolted to a column (N, mm, MPa).
 
     ``welds.web_throat`` is the throat of the plate's welds to the beam web; ``support``:
-    the column ``flange`` or ``web`` it is bolted to.
+    the column ``flange`` or ``web``, or the primary beam's web (``beam_web``), it is bolted
+    to.
     """
 
     header: HeaderPlateInput

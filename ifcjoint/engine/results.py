@@ -44,6 +44,31 @@ class ComponentResult:
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
+class Condition:
+    """A rule of a design method that holds or not, whatever the load (measured <= limit).
+
+    Attributes:
+        clause: where the rule comes from.
+        name: what it limits (a code the renderers put in words, e.g. ``punching``).
+        measured: the value of the joint (mm, MPa: ``unit`` says which).
+        limit: the largest value the rule allows.
+        inputs: the values the limit was computed with.
+    """
+
+    clause: Clause
+    name: str
+    measured: float
+    limit: float
+    unit: str = "mm"
+    inputs: dict[str, Any] = field(default_factory=dict)
+
+    @property
+    def holds(self) -> bool:
+        """True when the measured value is within the limit."""
+        return self.measured <= self.limit + 1e-9
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
 class SideResult:
     """Resistance and stiffness for one moment sign.
 
@@ -124,6 +149,8 @@ class CheckResult:
     gaps: tuple[NotChecked, ...] = ()
     #: tying resistance of a nominally pinned joint (axial tension, gamma_Mu), N
     N_j_Rd_tie: float | None = None
+    #: rules of the method that hold whatever the load (a broken one fails the joint)
+    conditions: tuple[Condition, ...] = ()
 
     @property
     def checked(self) -> bool:

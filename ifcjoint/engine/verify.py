@@ -241,7 +241,7 @@ def verify_combination(
     if not r.checked:
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
     if r.joint_kind in PINNED_KINDS:
-        return verify_pinned(demand, r, beta)
+        return verify_pinned(demand, r, beta, double_sided=double_sided)
     notes = [beta_note]
     c = demand.combination
     sign = "hogging" if demand.M_Ed < 0 else "sagging"
@@ -290,7 +290,8 @@ def verify_combination(
 PINNED_KINDS = frozenset({"fin_plate", "header_plate"})
 
 
-def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationResult:
+def verify_pinned(demand: Demand, r: CheckResult, beta: float, *,
+                  double_sided: bool = False) -> CombinationResult:
     """A nominally pinned joint (fin plate, partial-depth end plate) for one combination.
 
     EN 1993-1-8:2005, 5.2.2.2: the joint carries the shear (against Vj,Rd, its least shear
@@ -298,6 +299,9 @@ def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationRes
     zero, so any moment fails it. An axial force (tying) and what the engine left unchecked
     (``CheckResult.gaps``) keep it from passing. An axial tension is checked against the
     tying resistance (gamma_Mu, an accidental design situation); a compression is not checked.
+    A supporting web's local shear takes the reactions of both sides together (the other
+    side's from its own row; missing, a gap); the method's conditions (``r.conditions``, e.g.
+    punching) are utilisations of their own, measured over limit.
     """
     c = demand.combination
     side = r.hogging
@@ -312,6 +316,22 @@ def verify_pinned(demand: Demand, r: CheckResult, beta: float) -> CombinationRes
                     detail={"component": gov.component}),
     ]
     gaps = list(r.gaps)
+    for x in side.components:
+        if EC3.components[x.component].zone != Zone.SUPPORT:
+            continue
+        if double_sided and demand.V_other is None:
+            gaps.append(NotChecked(NotCheckedCode.SUPPORT_WEB_OTHER_SIDE_MISSING))
+        both = abs(demand.V_Ed) + abs(demand.V_other or 0.0)
+        us.append(Utilisation(verification=Verification.SUPPORT_WEB_SHEAR, clause=x.clause,
+                              demand=both, resistance=x.F_Rd,
+                              utilisation=_ratio(both, x.F_Rd), combination=c,
+                              detail={"component": x.component,
+                                      "V_other": demand.V_other}))
+    for k in r.conditions:
+        us.append(Utilisation(verification=Verification.CONDITION, clause=k.clause,
+                              demand=k.measured, resistance=k.limit,
+                              utilisation=_ratio(k.measured, k.limit), combination=c,
+                              detail={"condition": k.name, "unit": k.unit}))
     if demand.N_Ed > 0 and r.N_j_Rd_tie is not None:
         us.append(Utilisation(verification=Verification.TYING, clause=Clause(
             "design guide for pinned joints", "3 (tying)"), demand=demand.N_Ed,

@@ -14,7 +14,7 @@ from __future__ import annotations
 import math
 from collections import defaultdict
 from collections.abc import Sequence
-from dataclasses import asdict, dataclass
+from dataclasses import asdict, dataclass, replace
 
 import numpy as np
 import shapely
@@ -23,7 +23,7 @@ from ifcjoint.find.frames import Frames, plan_boxes, unit
 from ifcjoint.find.labels import GridLabeller
 from ifcjoint.find.parts import attach_parts
 from ifcjoint.find.settings import FinderSettings
-from ifcjoint.model.codes import Axis, EndKind, Face, MemberKind, SteelState
+from ifcjoint.model.codes import Axis, EndKind, Face, MemberKind, SteelState, Support
 from ifcjoint.model.elements import Member, ModelContents, Progress
 from ifcjoint.model.identity import joint_id
 from ifcjoint.model.joints import Joint, OtherBeamEnd, ScanResult
@@ -122,9 +122,14 @@ def find_joints(
                              top["beam"].guid, ends.points[k]))
         haunch_of[top["k"]].append(raw_by_k[k]["beam"].guid)
     raw = [j for j in raw if j["k"] not in haunches]
+    on_webs = _beam_web_hits(ends, unresolved, len(columns), st)
+    raw.extend(on_webs)
     others.extend(_classify_free_ends(ends, unresolved, st))
     grid = GridLabeller(model)
-    joints = _make_joints(raw, model, cf, st, grid, haunch_of)
+    # the supports' frames: the columns, then the beams (a beam-to-beam joint's col_idx)
+    joints = _make_joints(raw, model, Frames.of([*columns, *beams]), st, grid, haunch_of)
+    by_end = {(j.beam, j.beam_end): j.id for j in joints if j.beam_to_beam}
+    others = [replace(o, joint=by_end.get((o.beam, o.beam_end))) for o in others]
     others = _label_others(others, beams, grid)
     if progress:
         progress("joints", len(beams), len(beams))
@@ -258,7 +263,7 @@ def _make_joints(
     labels = grid.labels(
         [j["beam"].storey for j in raw],
         np.array([j["point"] for j in raw]).reshape(-1, 3),
-        [j["column"] for j in raw],
+        [None if j.get("support") == Support.BEAM else j["column"] for j in raw],
     )
     joints = []
     for j, label in zip(raw, labels, strict=True):
@@ -280,6 +285,7 @@ def _make_joints(
                 plates=plates,
                 fasteners=fasteners,
                 storey=j["beam"].storey,
+                support=j.get("support", Support.COLUMN),
             )
         )
     joints.sort(key=lambda j: (j.label, j.id))
@@ -296,12 +302,7 @@ def _label_others(
         np.array([o.point for o in others]).reshape(-1, 3),
         [None] * len(others),
     )
-    out = [
-        OtherBeamEnd(
-            beam=o.beam, beam_end=o.beam_end, kind=o.kind, other=o.other, point=o.point, label=lab
-        )
-        for o, lab in zip(others, labels, strict=True)
-    ]
+    out = [replace(o, label=lab) for o, lab in zip(others, labels, strict=True)]
     out.sort(key=lambda o: (o.beam, o.beam_end))
     return out
 
@@ -360,6 +361,63 @@ def _classify_free_ends(
     return out
 
 
+def _beam_web_hits(
+    ends: _Ends, unresolved: list[int], n_columns: int, st: FinderSettings
+) -> list[dict]:
+    """Beam ends framing square into another beam's web: beam-to-beam joints (raw records).
+
+    Tested in each candidate beam's frame (candidates from an STRtree of plan boxes, all
+    pairs at once): the end's beam runs square to the other beam (within ``max_slope_deg``)
+    and level with it, its end lies within the other's depth and length, beside its web with
+    a gap no larger than the reach of a plate. The nearest web wins. The end stays in
+    ``unresolved`` too: it is also a ``beam_to_beam`` other end, linked to its joint.
+    ``col_idx`` counts the beams after the columns (the finder's support frames).
+    """
+    if not unresolved:
+        return []
+    reach = st.tolerance + st.end_plate_allowance
+    beams = ends.beams
+    bf = Frames.of(beams)
+    tree = shapely.STRtree(plan_boxes(beams, reach))
+    idx = np.array(unresolved)
+    ei, bi = tree.query(shapely.points(ends.points[idx, 0], ends.points[idx, 1]))
+    ei = idx[ei]
+    keep = ends.beam_of[ei] != bi
+    ei, bi = ei[keep], bi[keep]
+    if not len(ei):
+        return []
+    loc = bf.local(bi, ends.points[ei])
+    a = bf.local_dir(bi, ends.approach[ei])
+    tilt = math.sin(math.radians(st.max_slope_deg))
+    square = (np.abs(a[:, 2]) <= tilt) & (np.abs(a[:, 1]) <= tilt)
+    side_u = np.where(a[:, 0] > 0, -1.0, 1.0)
+    hb, hh, htw, length = bf.half_b[bi], bf.half_h[bi], bf.half_tw[bi], bf.length[bi]
+    gap = (loc[:, 0] - side_u * htw) * side_u
+    ok = (
+        square
+        & (np.abs(loc[:, 1]) <= hh + st.tolerance)
+        & (loc[:, 2] >= -st.tolerance)
+        & (loc[:, 2] <= length + st.tolerance)
+        & (gap <= hb - htw + reach)
+        & (gap >= -hb)
+    )
+    sel = np.flatnonzero(ok)
+    if not len(sel):
+        return []
+    sel = sel[np.lexsort((np.abs(gap)[sel], ei[sel]))]
+    pick = sel[np.r_[True, ei[sel][1:] != ei[sel][:-1]]]
+    out = []
+    for q in pick:
+        k, b = int(ei[q]), int(bi[q])
+        out.append(dict(
+            k=k, beam=ends.beam(k), beam_end=ends.name(k), column=beams[b],
+            col_idx=n_columns + b, axis=Axis.MINOR, side=float(side_u[q]),
+            gap=float(gap[q]), point=ends.points[k] + ends.approach[k] * gap[q],
+            support=Support.BEAM,
+        ))
+    return out
+
+
 def _haunches(joints: list[dict], st: FinderSettings) -> dict[int, dict]:
     """Short members that meet a column face right under another beam's end: haunches.
 
@@ -388,6 +446,13 @@ def _haunches(joints: list[dict], st: FinderSettings) -> dict[int, dict]:
     return out
 
 
+def _facing(a: dict, b: dict, st: FinderSettings) -> bool:
+    """Two beams on opposite faces of a primary beam's web meet it at the same place along it."""
+    w = unit(np.subtract(a["column"].end, a["column"].start, dtype=float)[None, :])[0]
+    along = abs(float(np.dot(np.subtract(a["point"], b["point"]), w)))
+    return along <= st.tolerance + max(a["beam"].width, b["beam"].width) / 2
+
+
 def _pair_double_sided(joints: list[dict], st: FinderSettings) -> dict[int, str]:
     """Pair joints of two beams meeting opposite faces of one column at the same level."""
     by_col: dict[tuple[int, str], list[dict]] = defaultdict(list)
@@ -403,6 +468,8 @@ def _pair_double_sided(joints: list[dict], st: FinderSettings) -> dict[int, str]
                 if a["side"] == b["side"]:
                     continue
                 dz = abs(a["point"][2] - b["point"][2])
+                if a.get("support") == Support.BEAM and not _facing(a, b, st):
+                    continue
                 depth = min(a["beam"].depth, b["beam"].depth)
                 tol = (
                     st.pair_level_tolerance * depth

@@ -40,10 +40,12 @@ class GridLabeller:
             rel = p[:, None, :2] - self.p0[None, :, :]
             dist = np.abs(rel[..., 0] * self.d[None, :, 1] - rel[..., 1] * self.d[None, :, 0])
             fam_tags = []
+            fams = []
             for fam in ("U", "V", "W"):
                 cols = np.flatnonzero(self.fam == fam)
                 if not len(cols):
                     continue
+                fams.append(fam)
                 dd = dist[:, cols]
                 best = dd.argmin(1)
                 ok = dd[np.arange(len(p)), best] <= self.snap
@@ -52,8 +54,30 @@ class GridLabeller:
                 parts = [self.tags[idx[i]] for idx, ok in fam_tags if ok[i]]
                 if len(parts) >= 2:
                     wheres[i] = "/".join(parts)
+                elif len(parts) == 1 and len(fam_tags) >= 2:
+                    # on one grid line between two of the other family (a secondary beam's
+                    # end on a main beam): that line and the bay, e.g. "A/1-2"
+                    on = next(f for f, (idx, ok) in zip(fams, fam_tags, strict=True) if ok[i])
+                    bay = self._bay(rel[i],
+                                    family=next(f for f in fams if f != on))
+                    if bay:
+                        wheres[i] = f"{parts[0]}/{bay}"
         out = []
         for i, st in enumerate(storeys):
             where = wheres[i] or f"({p[i, 0]:.0f}, {p[i, 1]:.0f}, {p[i, 2]:.0f})"
             out.append(f"{st} {where}".strip() if st else where)
         return out
+
+    def _bay(self, rel: np.ndarray, family: str) -> str | None:
+        """The two lines of a family on either side of a point (``1-2``), or None."""
+        cols = np.flatnonzero(self.fam == family)
+        d = self.d[cols]
+        d = d * np.sign(d @ d[0])[:, None]  # one sense for the family's parallel lines
+        signed = rel[cols, 0] * d[:, 1] - rel[cols, 1] * d[:, 0]
+        below, above = signed < 0, signed > 0
+        if not below.any() or not above.any():
+            return None
+        a = cols[below][np.argmax(signed[below])]
+        b = cols[above][np.argmin(signed[above])]
+        ta, tb = sorted((self.tags[a], self.tags[b]))
+        return f"{ta}-{tb}"

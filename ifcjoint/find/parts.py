@@ -15,7 +15,7 @@ import shapely
 
 from ifcjoint.find.frames import Frames, unit
 from ifcjoint.find.settings import FinderSettings
-from ifcjoint.model.codes import FastenerKind, LinkSource, PartRole
+from ifcjoint.model.codes import FastenerKind, LinkSource, PartRole, Support
 from ifcjoint.model.elements import Member, ModelContents, Plate
 from ifcjoint.model.joints import PartLink
 
@@ -39,6 +39,7 @@ class _Zone:
     face_reach: float  # the distance segment stops this far past the column face
     col_point: np.ndarray  # a point on the column's axis
     col_half_web: float  # half the column web's thickness (the plane's neutral band)
+    on_beam: bool = False  # the support is a primary beam (a beam-to-beam joint)
 
 
 def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
@@ -77,6 +78,7 @@ def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
                 face_reach=st.tolerance,
                 col_point=np.array(col.start, dtype=float),
                 col_half_web=(col.web_thickness or 0.0) / 2,
+                on_beam=j.get("support") == Support.BEAM,
             )
         )
     return zones
@@ -125,6 +127,9 @@ def _plate_role(z: _Zone, p: Plate, col_frames: Frames, ci: int, reach: float) -
     idx = np.array([ci])
     loc = col_frames.local(idx, c[None, :])[0]
     inside = (abs(loc[0]) < col_frames.half_b[ci] - 1) and (abs(loc[1]) < col_frames.half_h[ci] - 1)
+    # a primary beam's web stiffener and a secondary's fin plate share a plane: on a beam,
+    # a plate is the joint's own (no support plates are read there)
+    inside = inside and not z.on_beam
     along_col = abs(nrm.dot(col_frames.w[ci])) > 0.9
     if inside and along_col:
         return PartRole.COLUMN_PLATE

@@ -44,6 +44,8 @@ class Archetype(StrEnum):
     END_PLATE = "end_plate"  # an end plate whose extent could not be judged (no beam depth)
     WELDED = "welded"
     FIN_PLATE = "fin_plate"
+    BEAM_FIN_PLATE = "beam_to_beam_fin_plate"  # on a primary beam's web
+    BEAM_HEADER_PLATE = "beam_to_beam_end_plate"  # partial depth, on a primary beam's web
     INCOMPLETE = "incomplete"
     UNDETAILED = "undetailed"
     UNSUPPORTED = "unsupported"
@@ -53,6 +55,12 @@ class Archetype(StrEnum):
     def incomplete(self) -> bool:
         """True when the model does not hold the joint's parts (it cannot be checked)."""
         return self in (Archetype.INCOMPLETE, Archetype.UNDETAILED)
+
+    @property
+    def pinned(self) -> bool:
+        """True for the nominally pinned kinds (checked in shear; no moment)."""
+        return self in (Archetype.FIN_PLATE, Archetype.PARTIAL_DEPTH_END_PLATE,
+                        Archetype.BEAM_FIN_PLATE, Archetype.BEAM_HEADER_PLATE)
 
 
 class Axis(StrEnum):
@@ -115,6 +123,13 @@ class PartRole(StrEnum):
     BOLT = "bolt"
     WELD = "weld"
     OTHER_FASTENER = "other_fastener"
+
+
+class Support(StrEnum):
+    """The member a joint's beam frames into."""
+
+    COLUMN = "column"
+    BEAM = "beam"  # a primary beam's web: a beam-to-beam joint
 
 
 class EndKind(StrEnum):
@@ -210,9 +225,8 @@ class NotCheckedCode(StrEnum):
     VALUE_NOT_USABLE = "unusable_value"  # a dimension read that cannot be right
     PARTS_MISSING = "parts_missing"  # incomplete: the model lacks parts the joint needs
     PINNED_NO_MOMENT = "pinned_no_moment"  # a nominally pinned joint has no moment resistance
-    SUPPORT_WEB_NOT_COVERED = "support_web_not_covered"  # column web carrying a fin plate
+    SUPPORT_WEB_OTHER_SIDE_MISSING = "support_web_other_side_missing"  # no partner reaction
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
-    FIN_PLATE_LTB = "fin_plate_ltb"  # a long fin plate: lateral torsional buckling
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
 
@@ -230,6 +244,7 @@ _NOT_CHECKED_STATUS = {
     NotCheckedCode.NO_TENSILE_AREA: Status.UNREADABLE,
     NotCheckedCode.SECTION_DIMENSIONS_MISSING: Status.UNREADABLE,
     NotCheckedCode.NO_DEMANDS: Status.NO_DEMANDS,
+    NotCheckedCode.SUPPORT_WEB_OTHER_SIDE_MISSING: Status.NO_DEMANDS,
     NotCheckedCode.VALUE_NOT_USABLE: Status.UNREADABLE,
 }
 
@@ -303,6 +318,8 @@ class Verification(StrEnum):
     BENDING_AND_AXIAL = "bending_and_axial"
     DETAILING = "detailing"  # a rule the resistance depends on, broken (limit over measured)
     TYING = "tying"  # an axial tension on a pinned joint against its tying resistance
+    SUPPORT_WEB_SHEAR = "support_web_shear"  # the reactions of both sides on a supporting web
+    CONDITION = "condition"  # a rule of the method that holds whatever the load
 
 
 class StiffnessClass(StrEnum):

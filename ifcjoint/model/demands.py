@@ -31,6 +31,8 @@ class Demand:
         assumed_joint: what the analysis model assumed, or None.
         source: where the row came from, e.g. ``demands.csv:12``.
         other_source: where M_other came from when taken from the partner's row.
+        V_other: shear of the beam on the other side of the support's web, N, from the
+            partner's row of the same combination (None: single-sided, or no such row).
     """
 
     combination: str
@@ -44,3 +46,4 @@ class Demand:
     assumed_joint: JointModel | None = None
     source: str = ""
     other_source: str = ""
+    V_other: float | None = None

@@ -17,6 +17,7 @@ from ifcjoint.model.codes import (
     Reason,
     ReasonCode,
     Severity,
+    Support,
 )
 from ifcjoint.model.elements import ModelContents, Unreadable, Vec3
 
@@ -94,6 +95,8 @@ class Joint:
         findings: detailing findings (filled by the anatomy step).
         storey: the storey of the beam.
         haunch_members: short members under the beam end read as a haunch.
+        support: what ``column`` is: a column, or the primary beam of a beam-to-beam joint
+            (the secondary beam framing square into its web; axis minor, face web).
     """
 
     id: str
@@ -114,6 +117,12 @@ class Joint:
     findings: tuple[Finding, ...] = ()
     storey: str = ""
     haunch_members: tuple[str, ...] = ()
+    support: Support = Support.COLUMN
+
+    @property
+    def beam_to_beam(self) -> bool:
+        """True for a secondary beam on a primary beam's web."""
+        return self.support == Support.BEAM
 
     def parts(self, role: PartRole) -> tuple[str, ...]:
         """GlobalIds of the attached parts of one role."""
@@ -135,6 +144,7 @@ class OtherBeamEnd:
     other: str | None
     point: Vec3
     label: str = ""
+    joint: str | None = None  # the joint that checks this end (a beam-to-beam joint), if any
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

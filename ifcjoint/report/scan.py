@@ -147,10 +147,11 @@ def joint_dict(j: Joint, a: JointAnatomy | None, column=None) -> dict:
         "face": j.face,
         "side": j.side,
         "point_mm": _pt(j.point),
-        "column_axis_mm": _axis_xy(column, j.point[2]),
+        "column_axis_mm": None if j.beam_to_beam else _axis_xy(column, j.point[2]),
         "gap_mm": round(j.gap, 3),
         "partner": j.partner,
         "haunch_members": list(j.haunch_members),
+        "support": j.support,
         "archetype": j.archetype,
         "archetype_reason": coded(j.archetype_reason),
         "plates": [p.guid for p in j.plates],
@@ -192,6 +193,7 @@ def build_scan(result: ScanResult) -> dict:
                 "point_mm": _pt(o.point),
                 "label": o.label,
                 "storey": members[o.beam].storey if o.beam in members else "",
+                "joint": o.joint,
             }
             for o in result.other_beam_ends
         ],
@@ -288,12 +290,18 @@ def write_scan_summary(scan: dict, out: TextIO, *, brief: bool = False) -> None:
     if unreadable:
         w(f"  {len(unreadable)} element(s) unreadable, listed below\n")
     js = scan["joints"]
-    axes = Counter(j["axis"] for j in js)
-    pairs = sum(1 for j in js if j["partner"]) // 2
+    on_cols = [j for j in js if j.get("support", "column") == "column"]
+    axes = Counter(j["axis"] for j in on_cols)
+    pairs = sum(1 for j in on_cols if j["partner"]) // 2
     w(
-        f"\nBeam-to-column joints: {len(js)} (major axis {axes.get(Axis.MAJOR, 0)}, "
+        f"\nBeam-to-column joints: {len(on_cols)} (major axis {axes.get(Axis.MAJOR, 0)}, "
         f"minor axis {axes.get(Axis.MINOR, 0)}; double-sided pairs {pairs})\n"
     )
+    if len(on_cols) < len(js):
+        on_beams = [j for j in js if j not in on_cols]
+        pairs = sum(1 for j in on_beams if j["partner"]) // 2
+        w(f"Beam-to-beam joints: {len(on_beams)} (secondary beams on a primary beam's web; "
+          f"double-sided pairs {pairs})\n")
     arch = Counter(j["archetype"] for j in js)
     if arch:
         w(f"  by archetype: {_counts_line(arch)}\n")

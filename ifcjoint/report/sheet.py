@@ -13,7 +13,7 @@ import math
 from ifcjoint.ec3.code import Component, Zone
 from ifcjoint.report.words import STATUS_WORDS
 
-_ZONE_ORDER = {Zone.TENSION: 0, Zone.COMPRESSION: 1, Zone.SHEAR: 2, Zone.TYING: 3}
+_ZONE_ORDER = {Zone.TENSION: 0, Zone.COMPRESSION: 1, Zone.SHEAR: 2, Zone.SUPPORT: 3, Zone.TYING: 4}
 
 
 def fmt(v, digits: int = 1) -> str:

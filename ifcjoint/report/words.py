@@ -109,18 +109,13 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
     ),
-    NotCheckedCode.SUPPORT_WEB_NOT_COVERED: lambda v: (
-        "the column web carrying the fin plate is not a component of EN 1993-1-8 (no "
-        "resistance given for a web loaded out of its plane): not checked; the plate, bolts, "
-        "beam web and welds are"
+    NotCheckedCode.SUPPORT_WEB_OTHER_SIDE_MISSING: lambda v: (
+        "a beam on the other side of the supporting web has no row for this combination: the "
+        "web's local shear takes both reactions, so it is not checked without it"
     ),
     NotCheckedCode.TYING_NOT_CHECKED: lambda v: (
         f"an axial {'tension' if v['N'] > 0 else 'compression'} of {abs(v['N']) / 1e3:.1f} "
         "kN on a nominally pinned joint: not checked for this joint type"
-    ),
-    NotCheckedCode.FIN_PLATE_LTB: lambda v: (
-        f"fin plate lever arm z = {v['z']:.0f} mm exceeds t_p / 0.15 = {v['limit']:.0f} mm: "
-        "its lateral torsional buckling is not checked"
     ),
     NotCheckedCode.FIN_BOLT_PATTERN: lambda v: (
         f"fin plate bolts in {v['lines']} line(s) of {v['rows']} row(s): the check takes one "
@@ -423,6 +418,14 @@ UNITS = {
     Verification.BENDING_AND_AXIAL: ("-", 1e3),
     Verification.DETAILING: ("mm", 1.0),
     Verification.TYING: ("kN", 1e3),
+    Verification.SUPPORT_WEB_SHEAR: ("kN", 1e3),
+    Verification.CONDITION: ("mm", 1.0),
+}
+
+#: Conditions of a design method (``engine.results.Condition.name``), in words.
+CONDITIONS = {
+    "punching": "fin plate no thicker than the supporting web can take without punching "
+                "(t_p <= t_w f_u,w / (f_y,p gamma_M2))",
 }
 
 
@@ -484,6 +487,11 @@ def verification_name(
         return code.component_name(Component.WEB_PANEL_SHEAR)
     if kind == Verification.TYING:
         return "tying resistance (axial tension, gamma_Mu)"
+    if kind == Verification.SUPPORT_WEB_SHEAR:
+        return "supporting web, local shear (both sides' reactions)"
+    if kind == Verification.CONDITION:
+        name = (detail or {}).get("condition", "")
+        return CONDITIONS.get(name, name)
     return f"bending and axial {sense} (Eq. 6.24)"
 
 
@@ -499,6 +507,12 @@ def verification_detail(u, code: Eurocode3 = EN_1993_1_8) -> str:
         return f"governed by {limit_words(u.detail.get('governing'), code)}"
     if u.verification == Verification.WEB_PANEL_SHEAR:
         return f"{code.symbol('V_wp_Ed')} by Eq. (5.3) with z = {u.detail['z']:.0f} mm"
+    if u.verification == Verification.SUPPORT_WEB_SHEAR:
+        other = u.detail.get("V_other")
+        return ("this beam's reaction only (single-sided)" if other is None else
+                f"with {abs(other) / 1e3:.1f} kN from the beam on the other side")
+    if u.verification == Verification.CONDITION:
+        return f"limit {u.resistance:.1f} mm, measured {u.demand:g} mm"
     if u.verification == Verification.BENDING_AND_AXIAL:
         return (
             f"Mj,Ed/Mj,Rd + Nj,Ed/Nj,Rd with {code.symbol('N_j_Rd')} = "
@@ -515,6 +529,7 @@ __all__ = [
     "STATUS_WORDS",
     "UNCHECKED_WHAT",
     "UNITS",
+    "CONDITIONS",
     "ProblemKind",
     "coded",
     "component_name",

@@ -17,7 +17,7 @@ from pathlib import Path
 
 from ifcjoint.errors import DemandsError
 from ifcjoint.fileio import atomic_write_text, safe_cell
-from ifcjoint.model.codes import JointModel
+from ifcjoint.model.codes import Archetype, JointModel
 from ifcjoint.model.demands import Demand
 from ifcjoint.model.elements import Unreadable
 from ifcjoint.model.identity import joint_id, split_key
@@ -417,12 +417,13 @@ def read_demands(
 
 
 def _pair_partners(table: DemandsTable, by_id: dict[str, Joint]) -> None:
-    """Fill the other side's moment of a double-sided joint from the partner's own row.
+    """Fill the other side's moment (and shear) of a double-sided joint from the partner's row.
 
     When both beams of a double-sided joint have a row for the same combination and the row
     does not give ``M_Ed_other_side_kNm``, the partner's M_Ed is used (EN 1993-1-8 5.3: beta
     and the web panel shear need both moments). A given value that disagrees with the partner's
-    row by more than 1 % (and 1 kNm) is kept and warned about.
+    row by more than 1 % (and 1 kNm) is kept and warned about. The partner's V_Ed is kept as
+    ``V_other`` (a supporting web takes the reactions of both sides).
     """
     from dataclasses import replace
 
@@ -435,6 +436,7 @@ def _pair_partners(table: DemandsTable, by_id: dict[str, Joint]) -> None:
             o = theirs.get(d.combination)
             if o is None:
                 continue
+            rows[k] = d = replace(d, V_other=o.V_Ed)
             if d.M_other is None:
                 rows[k] = replace(d, M_other=o.M_Ed, other_source=o.source)
             elif abs(d.M_other - o.M_Ed) > max(0.01 * abs(o.M_Ed), 1e6):
@@ -472,7 +474,7 @@ def write_template(joints, path: str | Path) -> int:
                 safe_cell(j.label),
                 j.archetype,
                 "",
-                "0" if j.archetype == "fin_plate" else "",  # pinned: it carries no moment
+                "0" if Archetype(j.archetype).pinned else "",  # pinned: it carries no moment
                 "",
                 "",
                 "",

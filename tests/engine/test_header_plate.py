@@ -21,7 +21,6 @@ from ifcjoint.engine.inputs import (
     MemberInput,
     WeldsInput,
 )
-from ifcjoint.model.codes import NotCheckedCode
 
 HAND_KN = {
     # 0.8 x 6 x 0.6 x 800 x 245 / 1.25
@@ -72,9 +71,16 @@ def test_vj_rd_is_the_least_and_no_moment():
     assert r.hogging.M_j_Rd == 0.0 and not r.gaps
 
 
-def test_on_a_column_web_the_web_is_a_gap():
+def test_on_a_web_the_web_local_shear_is_added_beside_vj_rd():
+    # 2 x 250 x 11 x 275 / sqrt 3 = 873.2 kN (column web 11 mm), kept out of Vj,Rd: the
+    # web also takes the other side's reaction (checked per combination)
     r = check_header_plate_joint(joint(support="web"))
-    assert NotCheckedCode.SUPPORT_WEB_NOT_COVERED in {g.code for g in r.gaps}
+    web = next(c for c in r.hogging.components if c.component == Component.SUPPORT_WEB_SHEAR)
+    assert web.F_Rd / 1e3 == pytest.approx(873.2, rel=2e-3)
+    assert r.V_j_Rd / 1e3 == pytest.approx(min(HAND_KN.values()), rel=2e-3)
+    assert not r.gaps and not r.conditions  # a bolted plate: no punching rule
+    flange = check_header_plate_joint(joint())
+    assert Component.SUPPORT_WEB_SHEAR not in {c.component for c in flange.hogging.components}
 
 
 def test_thicker_plate_never_weaker():

@@ -19,6 +19,8 @@ from ifcjoint.model.identity import joint_id
 
 HC, BC, TWC = 260.0, 260.0, 10.0  # HEB 260 (from memory)
 HB, BB = 400.0, 180.0  # IPE 400 (from memory)
+# these beams carry no web thickness: the finder's stand-in is 6 % of the depth
+MAIN_HALF_TW = 0.06 * HB / 2
 
 
 def column(guid, x, y, z0=0.0, z1=8000.0, depth_dir=(1.0, 0, 0), steel="steel"):
@@ -116,10 +118,17 @@ def test_other_beam_ends_are_each_accounted_for():
     assert o[("P2", "start")].kind == "splice"
     assert o[("CAP", "start")].kind == "column_cap" and o[("CAP", "start")].other == "C2"
     assert o[("TIE", "start")].kind == "column_base" and o[("TIE", "start")].other == "C1"
-    # every beam end is either a joint or another kind, never both, never lost
+    # every beam end is a joint or another kind, never lost; the only ends in both are
+    # beam-to-beam ends, each linked to the joint that checks it
     ends = {(m.guid, e) for m in ms if m.kind == "beam" for e in ("start", "end")}
     got = set(by_beam(r)) | set(o)
-    assert got == ends and not (set(by_beam(r)) & set(o))
+    assert got == ends
+    both = set(by_beam(r)) & set(o)
+    assert both == {("SEC", "start")}
+    sec = by_beam(r)[("SEC", "start")]
+    assert o[("SEC", "start")].joint == sec.id and sec.beam_to_beam
+    assert sec.column == "MAIN" and sec.axis == "minor" and sec.face == "web"
+    assert sec.gap == pytest.approx(15 - MAIN_HALF_TW)
 
 
 def test_non_steel_members_and_steep_members_make_no_joints():
