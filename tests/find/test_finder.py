@@ -238,3 +238,32 @@ def test_tolerance_setting_controls_how_far_a_beam_end_may_miss():
     assert not find_joints(model(ms)).joints
     wide = FinderSettings(tolerance=80.0)
     assert find_joints(model(ms), wide).joints
+
+
+def test_secondary_beams_on_both_sides_of_a_web_pair_only_when_facing():
+    # two secondaries meet MAIN's web from either side at x = 3000: a double-sided pair; a
+    # third at x = 4500 on one side only has no partner (same level, another place along it)
+    ms = [
+        column("C1", 0, 0), column("C2", 6000, 0),
+        beam("MAIN", (150, 0, 3800), (5850, 0, 3800)),
+        beam("S1", (3000, 15, 3700), (3000, 5000, 3700), h=200, b=100),
+        beam("S2", (3000, -5000, 3700), (3000, -15, 3700), h=200, b=100),
+        beam("S3", (4500, 15, 3700), (4500, 5000, 3700), h=200, b=100),
+    ]
+    j = by_beam(find_joints(model(ms)))
+    s1, s2, s3 = j[("S1", "start")], j[("S2", "end")], j[("S3", "start")]
+    assert all(x.beam_to_beam and x.column == "MAIN" for x in (s1, s2, s3))
+    assert s1.partner == s2.id and s2.partner == s1.id and s3.partner is None
+    assert s1.side != s2.side
+    # the beam-to-column joints are unchanged by them
+    assert not j[("MAIN", "start")].beam_to_beam and j[("MAIN", "start")].column == "C1"
+
+
+def test_a_skewed_or_sloping_secondary_is_not_a_web_joint():
+    # 30 degrees off square in plan: not framing square into the web (stays an other end)
+    ms = [column("C1", 0, 0), column("C2", 6000, 0),
+          beam("MAIN", (150, 0, 3800), (5850, 0, 3800)),
+          beam("SK", (3000, 15, 3700), (3000 + 2500, 15 + 4330, 3700), h=200, b=100)]
+    r = find_joints(model(ms))
+    assert ("SK", "start") not in by_beam(r)
+    assert others(r)[("SK", "start")].kind == "beam_to_beam"
