@@ -82,6 +82,7 @@ class Options:
     haunch_member: bool = False  # with haunch: the haunch is a short IPE 200 beam, not plates
     detail_parts: bool = True  # model plates and bolts at all
     hole_property: str = ""  # "" holes modelled | "instance" / "type": a HoleDiameter property
+    minor_end_plates: bool = False  # beams along Y get flush end plates on the column webs
 
 
 def gid(name: str) -> str:
@@ -856,9 +857,15 @@ class Frame:
                     key = f"Y/{li}/{i}/{j}"
                     y0 = j * self.dy + bc / 2 + 10.0
                     y1 = (j + 1) * self.dy - bc / 2 - 10.0
+                    spec = fin(h) if opt.detail_parts else welded()
+                    if opt.detail_parts and opt.minor_end_plates:
+                        # flush plates against the column web, between its flanges
+                        spec = flush(h, bp=150.0, gauge=90.0, tp=15.0, bolt_len=45.0)
+                        tw_c = SECTIONS[self.col_section][2]
+                        y0 = j * self.dy + tw_c / 2 + spec.tp
+                        y1 = (j + 1) * self.dy - tw_c / 2 - spec.tp
                     x = i * self.dx
                     info = self.beam(key, section, (x, y0, z), (x, y1, z))
-                    spec = fin(h) if opt.detail_parts else welded()
                     if not opt.detail_parts:
                         spec = JointSpec(kind="none", first_guess="incomplete",
                                          with_plate=False, with_bolts=False)

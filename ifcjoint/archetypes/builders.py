@@ -263,14 +263,20 @@ def _modelled_throats(a: JointAnatomy) -> list[float]:
 def end_plate_input(
     joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
 ) -> EndPlateJointInput | NotChecked:
-    """The engine input for a bolted end-plate joint, or the reason it cannot be checked."""
+    """The engine input for a bolted end-plate joint, or the reason it cannot be checked.
+
+    On a web (minor axis, or a primary beam's web) too: the engine checks what EN 1993-1-8
+    gives there and says the rest is not determined.
+    """
     st = settings or CheckSettings()
-    got = _bolted_plate(joint, a, members, st, minor_axis=False, two_lines=True)
+    got = _bolted_plate(joint, a, members, st, minor_axis=True, two_lines=True)
     if isinstance(got, NotChecked):
         return got
     beam, col, base, s = got
     b, p = a.bolts, a.plate
     fy_p, fu_p = s.fy, s.fu
+    support = support_face(joint)
+    t_support = a.column_section.tf if support == "flange" else a.column_section.tw
     fub = BOLT_CLASSES[b.bolt_class][1]
     return EndPlateJointInput(
         column=col,
@@ -294,9 +300,10 @@ def end_plate_input(
             d0=b.d0,
             gauge=b.gauge,
             rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
-            L_b=bolt_elongation_length(p.tp + a.column_section.tf, b.d),
+            L_b=bolt_elongation_length(p.tp + t_support, b.d),
         ),
         alpha_method=st.alpha_method,
+        support=support,
         **_shared_fields(a, beam, col, st),
     )
 

@@ -64,7 +64,7 @@ _DEMAND_KEYS = frozenset(
 _TOP_KEYS = frozenset(
     {"column", "beam", "plate", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
      "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
-     "sigma_com_Ed", "double_sided", "demands", "strength_basis"}
+     "sigma_com_Ed", "double_sided", "demands", "strength_basis", "support"}
 ) | INFORMATIONAL
 
 
@@ -347,11 +347,15 @@ def input_from_description(d: Any, settings: CheckSettings | None = None) -> Joi
         raise DescriptionError(missing, "missing: an end-plate joint needs both 'plate' and "
                                         "'bolts'; a welded joint has neither")
     if not has_plate:
-        for key in ("alpha", "washer_dia"):
+        for key in ("alpha", "washer_dia", "support"):
             if d.get(key) is not None:
                 raise DescriptionError(key, "applies to an end plate; this joint has none")
         return WeldedJointInput(**shared)
+    support = _text(d, "support", "", "flange")
+    if support not in ("flange", "web", "beam_web"):
+        raise DescriptionError("support", f"{support!r}: expected 'flange', 'web' or 'beam_web'")
     return EndPlateJointInput(
+        support=support,
         plate=plate_from(d["plate"], beam, st, basis),
         bolts=bolts_from(d["bolts"]),
         alpha=_num(d, "alpha", "", None),

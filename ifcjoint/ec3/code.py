@@ -46,6 +46,7 @@ class Component(StrEnum):
     HEADER_BEAM_WEB_SHEAR = "header_beam_web_shear"
     HEADER_WELD = "header_plate_weld"
     PLATE_LTB = "fin_plate_lateral_torsional_buckling"
+    ON_WEB_BOLTS = "end_plate_on_web_bolts"
     SUPPORT_WEB_SHEAR = "supporting_web_local_shear"
     TIE_BOLT_SHEAR = "tie_bolt_shear"
     TIE_PLATE_BEARING = "tie_fin_plate_bearing"
@@ -206,6 +207,10 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         name="fin plate, lateral torsional buckling (long plate)",
         formula="V_Rd = min(W_el f_p,LT / (0.6 z gamma_M1), W_el f_y / (z gamma_M0)), "
         "lambda_LT = 2.8 (z_p h_p / (1.5 t_p^2))^0.5", zone=Zone.SHEAR),
+    Component.ON_WEB_BOLTS: ComponentInfo(
+        name="bolts in shear and bearing (end plate on a web)",
+        formula="V_Rd = 2 n_t min(F_v,Rd / 3.5, F_b,Rd) + 2 (n - n_t) min(F_v,Rd, F_b,Rd), "
+        "F_b,Rd the least on the plate and on the web", zone=Zone.SHEAR),
     Component.SUPPORT_WEB_SHEAR: ComponentInfo(
         name="supporting web, local shear",
         formula="V_Rd = 2 h_p t_w f_y / (sqrt(3) gamma_M0), against the reactions of both sides",

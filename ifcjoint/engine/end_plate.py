@@ -54,6 +54,7 @@ from ifcjoint.engine.common import (
     unique_notes,
     weld_notes,
 )
+from ifcjoint.engine.end_plate_on_web import check_end_plate_on_web
 from ifcjoint.engine.inputs import EndPlateJointInput, StiffenerInput
 from ifcjoint.engine.results import ComponentResult, SideResult, not_checked
 from ifcjoint.model.codes import NotChecked, NotCheckedCode, Note, NoteCode
@@ -97,6 +98,8 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     Table 3.4 (Vj,Rd), 6.3 (Sj,ini), 5.2.2 and 5.2.3 (classification). Out-of-scope layouts
     return a not-checked result with the reason.
     """
+    if inp.support != "flange":  # on a web: the shear path only (no web in bending in 6.2.6)
+        return check_end_plate_on_web(inp)
     why = _out_of_scope(inp)
     if why is not None:
         return not_checked(why, inp)

@@ -161,13 +161,20 @@ class _JointInputBase:
 
 @dataclass(frozen=True, slots=True, kw_only=True)
 class EndPlateJointInput(_JointInputBase):
-    """A beam bolted to a column flange through an end plate (N, mm, MPa)."""
+    """A beam bolted to a column flange through an end plate (N, mm, MPa).
+
+    ``support``: the column ``flange`` (the component method of 6.2.7), or a ``web`` (a
+    column's, minor axis) or ``beam_web`` (a primary beam's): EN 1993-1-8 gives no resistance
+    of a web in bending out of its plane, so on a web only the shear path is checked
+    (``engine.end_plate_on_web``) and the moment is reported as not determined.
+    """
 
     plate: PlateInput
     bolts: BoltsInput
     alpha: float | None = None  # Figure 6.11 for the end plate's first row below the flange
     alpha_method: str = "chart"  # "chart" (Figure 6.11, SCI P398 App. G) | "conservative" (4.45)
     washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
+    support: str = "flange"
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

@@ -240,7 +240,7 @@ def verify_combination(
     r = run_engine(engine, this, _cache)
     if not r.checked:
         return CombinationResult(demand=demand, beta=beta, result=r, utilisations=())
-    if r.joint_kind in PINNED_KINDS:
+    if r.joint_kind in SHEAR_ONLY_KINDS:
         return verify_pinned(demand, r, beta, double_sided=double_sided)
     notes = [beta_note]
     c = demand.combination
@@ -288,6 +288,9 @@ def verify_combination(
 
 #: Joint kinds that are nominally pinned: shear only, no moment (``verify_pinned``).
 PINNED_KINDS = frozenset({"fin_plate", "header_plate"})
+#: Joint kinds verified in shear alone: the pinned ones, and an end plate on a web, whose
+#: moment EN 1993-1-8 does not determine (a gap of its result, never a pass).
+SHEAR_ONLY_KINDS = PINNED_KINDS | {"end_plate_on_web"}
 
 
 def verify_pinned(demand: Demand, r: CheckResult, beta: float, *,
@@ -309,7 +312,7 @@ def verify_pinned(demand: Demand, r: CheckResult, beta: float, *,
              if EC3.components[x.component].zone == Zone.SHEAR]  # not the tying ones
     gov = min(shear, key=lambda x: x.F_Rd)
     us = [
-        _moment(demand, side, c),
+        *([_moment(demand, side, c)] if r.joint_kind in PINNED_KINDS else []),
         Utilisation(verification=Verification.SHEAR, clause=gov.clause,
                     demand=abs(demand.V_Ed), resistance=r.V_j_Rd,
                     utilisation=_ratio(abs(demand.V_Ed), r.V_j_Rd), combination=c,

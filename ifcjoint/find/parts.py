@@ -304,6 +304,11 @@ def _attach_plate(
         k: _plate_role(mt.zone_by_k[k], p, col_frames, mt.joint_by_k[k]["col_idx"], reach)
         for k in ks
     }
+    # A plate square to a beam at its end is that beam's end plate rather than a plate of the
+    # column's, even inside the column section (a beam on the web: its plate lies where a web
+    # plate would).
+    if any(roles[k] == PartRole.END_PLATE for k in ks):
+        ks = [k for k in ks if roles[k] != PartRole.COLUMN_PLATE]
     # A plate inside the column section (stiffener, web plate) serves every joint there.
     shared = [k for k in ks if roles[k] == PartRole.COLUMN_PLATE]
     c = np.array(p.center)

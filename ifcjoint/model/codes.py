@@ -226,6 +226,7 @@ class NotCheckedCode(StrEnum):
     PARTS_MISSING = "parts_missing"  # incomplete: the model lacks parts the joint needs
     PINNED_NO_MOMENT = "pinned_no_moment"  # a nominally pinned joint has no moment resistance
     SUPPORT_WEB_OTHER_SIDE_MISSING = "support_web_other_side_missing"  # no partner reaction
+    WEB_BENDING_NOT_COVERED = "web_bending_not_covered"  # an end plate on a web: no moment
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate

@@ -26,7 +26,7 @@ from ifcjoint.engine.problems import Problem
 from ifcjoint.engine.results import CheckResult, Classification, ComponentResult
 from ifcjoint.engine.verify import Assumption, Utilisation
 from ifcjoint.fileio import atomic_write_text, safe_cell
-from ifcjoint.model.codes import UNCHECKED, ProblemKind, Status
+from ifcjoint.model.codes import UNCHECKED, NotCheckedCode, ProblemKind, Status
 from ifcjoint.report.scan import CAUTION, build_scan
 from ifcjoint.report.words import (
     STATUS_WORDS,
@@ -134,6 +134,14 @@ def classification_dict(c: Classification | None) -> dict:
     return out
 
 
+def _moment_k(side) -> float | None:
+    """Mj,Rd in kNm, or None when the method does not determine it (an end plate on a web)."""
+    gap = side.no_tension
+    if gap is not None and gap.code == NotCheckedCode.WEB_BENDING_NOT_COVERED:
+        return None
+    return round(float(side.M_j_Rd) / 1e6, 2)
+
+
 def result_dict(r: CheckResult, code: Eurocode3) -> dict:
     """An engine result in the output's units (kN, kNm, kNm/rad, mm)."""
     inputs = input_record(r.input) if r.input is not None else {}
@@ -143,8 +151,8 @@ def result_dict(r: CheckResult, code: Eurocode3) -> dict:
     return {
         "status": r.status,
         "resistance": {
-            "Mj_Rd_hogging_kNm": round(float(h.M_j_Rd) / 1e6, 2),
-            "Mj_Rd_sagging_kNm": round(float(s.M_j_Rd) / 1e6, 2) if s else None,
+            "Mj_Rd_hogging_kNm": _moment_k(h),
+            "Mj_Rd_sagging_kNm": _moment_k(s) if s else None,
             "Vj_Rd_kN": _k(r.V_j_Rd, 1e3),
             "Vj_Rd_hogging_kN": _k(h.V_j_Rd, 1e3),
             "Vj_Rd_sagging_kN": _k(s.V_j_Rd, 1e3) if s else None,

@@ -99,7 +99,8 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.NO_TENSILE_AREA: lambda v: f"no tensile stress area for M{v['d']:g}",
     NotCheckedCode.SECTION_DIMENSIONS_MISSING: lambda v: "section dimensions missing",
     NotCheckedCode.MINOR_AXIS: lambda v: (
-        "minor-axis joint (beam on the column web): not handled yet"
+        "a joint of this kind on a web (a column's minor axis, or a primary beam's): not "
+        "checked; EN 1993-1-8 gives no component for a web in bending out of its plane"
     ),
     NotCheckedCode.FIN_PLATE: lambda v: (
         "fin plate, nominally pinned: no moment resistance to check; the fin plate shear "
@@ -108,6 +109,11 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.PINNED_NO_MOMENT: lambda v: (
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
+    ),
+    NotCheckedCode.WEB_BENDING_NOT_COVERED: lambda v: (
+        "end plate on a web: EN 1993-1-8 gives no resistance or stiffness of a web in "
+        "bending out of its plane, so Mj,Rd, Sj,ini and the classification are not "
+        "determined; the bolts, the beam web, the welds and the web's local shear are checked"
     ),
     NotCheckedCode.SUPPORT_WEB_OTHER_SIDE_MISSING: lambda v: (
         "a beam on the other side of the supporting web has no row for this combination: the "

@@ -57,6 +57,10 @@ VARIANTS = [
     dict(schema="IFC2X3", profiles="brep", rotation_deg=-61.0, relations="none", unit="m"),
     dict(schema="IFC4X3", mapped=True, split_columns=True, beams_to_axis=True,
          fastener_class="IfcDiscreteAccessory", rotation_deg=12.5),
+    # flush end plates against the column webs (each web carries one beam)
+    dict(minor_end_plates=True, demo_details=False, bays_y=1, relations="none"),
+    dict(minor_end_plates=True, demo_details=False, bays_y=1, relations="assembly",
+         rotation_deg=33.0),
 ]
 
 
@@ -177,3 +181,19 @@ def test_stiffened_columns_are_read_and_enter_the_resistance(build_variant, scan
             assert len(res.input.stiffeners) == 2
             seen += 1
     assert seen >= 4
+
+
+def test_end_plates_on_column_webs_are_checked_in_shear_never_passed(build_variant):
+    # the web in bending is not a component of EN 1993-1-8: shear path checked, moment not
+    import ifcjoint
+    from ifcjoint.model.codes import NotCheckedCode
+
+    path, _ = build_variant(minor_end_plates=True, demo_details=False, bays_y=1,
+                            relations="none")
+    mc = ifcjoint.check(path)
+    minor = [jc for jc in mc.joints if jc.joint.axis == "minor"]
+    assert minor and all(jc.capacity.status == "checked" for jc in minor)
+    for jc in minor:
+        r = jc.capacity
+        assert r.joint_kind == "end_plate_on_web" and r.V_j_Rd > 0
+        assert NotCheckedCode.WEB_BENDING_NOT_COVERED in {g.code for g in r.gaps}
