@@ -14,6 +14,9 @@ shear only, 10 kN/m on the first floor and 6 kN/m on the roof (invented), V = w 
 ULS-1 and 80 % of it in ULS-2, no moment. The secondary beam between lines A and B (fin
 plates on the main beams' webs) carries 14 kN/m over its 5 m the same way (invented).
 
+The bolted splice at mid-span of the roof beam on line C, bay 3 takes w L^2 / 24 of that
+line's load as a sagging moment (80 % in ULS-2) and no shear; it was assumed rigid.
+
 The analysis assumed rigid joints on line A of the first floor (to show the assumption check)
 and semi-rigid elsewhere; roof line C and the cantilever are left out ("analysis pending"), so
 those joints stay unchecked. Reads the generator's truth file so it does not depend on ifcjoint.
@@ -57,6 +60,13 @@ def rows(truth: dict) -> list[list[str]]:
             for comb, f in (("ULS-1 gravity", 1.0), ("ULS-2 sway", 0.8)):
                 out.append(["", j["beam"], j["beam_end"], comb, "0.0", f"{f * v:.1f}", "0", "",
                             "braced", "pinned"])
+            continue
+        if j["key"].endswith("/splice"):
+            # mid-span of a fixed-end span: w L^2 / 24 sagging, no shear; designed continuous
+            m = LOADS[(int(parts[1]), int(parts[2]))] * SPAN_M**2 / 24.0
+            for comb, f in (("ULS-1 gravity", 1.0), ("ULS-2 sway", 0.8)):
+                out.append(["", j["beam"], j["beam_end"], comb, f"{f * m:.1f}", "0.0", "0", "",
+                            "braced", "rigid"])
             continue
         if parts[0] != "X" or j["axis"] != "major":
             continue

@@ -120,6 +120,10 @@ class JointSpec:
     haunch: bool = False  # plates below the beam at the column: a haunch
 
 
+#: Bolt rows of the demo's beam splice, below the beam's top (mm; two bolts 100 apart each).
+SPLICE_ROWS = (60.0, 150.0, 290.0)
+
+
 def extended(h: float, **kw) -> JointSpec:
     base = dict(kind="extended_end_plate", first_guess="end_plate", tp=20.0, bp=200.0,
                 plate_top=-100.0, plate_bottom=h + 20.0,
@@ -860,7 +864,7 @@ class Frame:
                     spec = fin(h) if opt.detail_parts else welded()
                     if opt.detail_parts and opt.minor_end_plates:
                         # flush plates against the column web, between its flanges
-                        spec = flush(h, bp=150.0, gauge=90.0, tp=15.0, bolt_len=45.0)
+                        spec = flush(h, bp=150.0, gauge=90.0, tp=15.0, bolt_len=55.0)
                         tw_c = SECTIONS[self.col_section][2]
                         y0 = j * self.dy + tw_c / 2 + spec.tp
                         y1 = (j + 1) * self.dy - tw_c / 2 - spec.tp
@@ -977,7 +981,8 @@ class Frame:
         self.other_end(a, "end", "splice", b[0])
         self.other_end(b, "start", "splice", a[0])
         self.joint(ex, b, "end", cols[(i + 1, j)][0], None, "major", section, z, key + "/b/e")
-        # splice plates (one on each piece) and bolts: not part of any beam-to-column joint
+        # splice end plates (one on each piece) bolted together: a joint of its own, a's end
+        plates = []
         for nm, info, end in (("a", a, "end"), ("b", b, "start")):
             beam, bw, bl = info
             xa_ = bw[:3, 0]
@@ -985,8 +990,39 @@ class Frame:
             t = xa_ if end == "end" else -xa_
             c = e + t * 5.0
             m = frame_matrix(np.array([c[0], c[1], z - h / 2]), np.cross((0, 0, 1.0), t), t)
-            self.plate(f"{key}/splice/{nm}", self.name("SP"), 180.0, h + 20, 10.0, m,
-                       (beam, bw))
+            holes = [((o, h / 2 - row), 11.0) for row in SPLICE_ROWS for o in (-50.0, 50.0)]
+            plates.append(self.plate(f"{key}/splice/{nm}", self.name("SP"), 180.0, h + 20,
+                                     10.0, m, (beam, bw), holes=holes))
+        beam, bw, bl = a
+        xa_ = bw[:3, 0]
+        e = bw[:3, 3] + xa_ * bl  # a's end: the bolt heads on a's plate, nuts on b's
+        lat = np.cross((0, 0, 1.0), xa_)
+        mats = [(f"{key}/splice/{row}/{o}",
+                 frame_matrix(np.array([*(e + lat * o)[:2], z - row]), lat, xa_))
+                for row in SPLICE_ROWS for o in (-50.0, 50.0)]
+        bolts = self.bolts_at(mats, 20.0, 55.0, (beam, bw))
+        style = self.style_for(len(self.truth.joints))
+        if style == "assembly":
+            self.parts_by_beam.setdefault(a[0].GlobalId, [a[0]]).append(plates[0])
+            self.parts_by_beam.setdefault(b[0].GlobalId, [b[0]]).append(plates[1])
+        else:
+            self.relate(style, a[0], b[0], [*bolts, plates[0]], [plates[1]])
+        # the joint is the end that comes first by GlobalId and end name (the finder's rule)
+        first, second = sorted([(a[0].GlobalId, "end", a), (b[0].GlobalId, "start", b)],
+                               key=lambda x: x[:2])
+        fb, fw, fl = first[2]
+        e = fw[:3, 3] + (fw[:3, 0] * fl if first[1] == "end" else 0)
+        self.truth.joints.append({
+            "beam": first[0], "beam_end": first[1], "end_point_mm": [float(v) for v in e],
+            "column": second[0], "support": "splice", "axis": "major", "kind": "splice",
+            "first_guess": "end_plate_splice", "archetype": "end_plate_splice",
+            "plates": sorted(p.GlobalId for p in plates),
+            "bolts": sorted(x.GlobalId for x in bolts), "welds": [], "relations": style,
+            "defects": [], "plate": None, "rows_from_beam_top": [], "bolt_d": 20.0,
+            "key": key + "/splice", "level_z": float(z),
+            "approach": [float(v) for v in (fw[:3, 0] if first[1] == "end" else -fw[:3, 0])],
+            "partner": None,
+        })
 
     def extras(self, cols):
         """Secondary beam, cantilever and ground tie."""

@@ -10,6 +10,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass, replace
 
+import numpy as np
+
 from ifcjoint.anatomy.detailing import completeness, detailing, weld_sizes
 from ifcjoint.anatomy.frame import joint_frame
 from ifcjoint.anatomy.read import (
@@ -31,7 +33,7 @@ from ifcjoint.anatomy.read import (
 )
 from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
 from ifcjoint.catalogue.sections import ISection
-from ifcjoint.model.codes import PartRole, UnsupportedPart
+from ifcjoint.model.codes import PartRole, Support, UnsupportedPart
 from ifcjoint.model.elements import Fastener, Member, ModelContents, Plate
 from ifcjoint.model.joints import Finding, Joint
 
@@ -82,6 +84,7 @@ class JointAnatomy:
         findings: detailing and data findings, in report order.
         unread: what could not be read, in words.
         assumed: what was assumed by the user's settings, in words.
+        other_plate: a splice's second end plate (on the other beam), or None.
     """
 
     joint_id: str
@@ -99,6 +102,7 @@ class JointAnatomy:
     findings: tuple[Finding, ...] = ()
     unread: tuple[str, ...] = ()
     assumed: tuple[str, ...] = ()
+    other_plate: PlateReading | None = None
 
 
 def analyse(
@@ -156,12 +160,23 @@ def analyse_joint(
     unusable_values(j, plates, fasteners, findings)
     stiff, web_plates = column_plates(j, fr, plates, col)
     role = _main_role(j)
-    main = None
+    main = other = None
     if role is not None:
         cands = [plates[p.guid] for p in j.plates if p.role == role]
-        main = max(cands, key=lambda p: p.half_u * p.half_v)
+        if j.support == Support.SPLICE and role == PartRole.END_PLATE:
+            # this beam's plate lies on its side of the face, the other beam's beyond it
+            along = {p.guid: float(np.dot(np.subtract(p.center, fr.face), fr.t)) for p in cands}
+            mine = [p for p in cands if along[p.guid] <= 0] or cands
+            main = max(mine, key=lambda p: p.half_u * p.half_v)
+            theirs = [p for p in cands if along[p.guid] > 0 and p is not main]
+            other = max(theirs, key=lambda p: p.half_u * p.half_v) if theirs else None
+        else:
+            main = max(cands, key=lambda p: p.half_u * p.half_v)
     bolt_list = [fasteners[b.guid] for b in j.fasteners if b.role == PartRole.BOLT]
     plate_r = read_plate(main, role, fr) if main is not None else None
+    other_r = read_plate(other, role, fr) if other is not None else None
+    if plate_r is not None and other_r is not None:  # a splice: the plates bear on each other
+        plate_r = replace(plate_r, gap_to_column=other_r.along_min - plate_r.along_max)
     bolt_r = None
     if bolt_list:
         bolt_r = read_bolts(
@@ -170,7 +185,7 @@ def analyse_joint(
     if bolt_r is not None and plate_r is not None and role == PartRole.END_PLATE:
         bolt_r = replace(bolt_r, tstub=tstub_geometry(plate_r, bolt_r, csec))
     if plate_r is not None and bolt_r is not None:
-        detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings)
+        detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings, other=other_r)
     welds = read_welds(j, fr, fasteners, bsec)
     weld_sizes(welds, role, bsec, bgrade, findings)
     completeness(j, plate_r, bolt_r, role, findings)
@@ -190,6 +205,7 @@ def analyse_joint(
         findings=tuple(findings),
         unread=tuple(unread),
         assumed=tuple(assumed),
+        other_plate=other_r,
     )
 
 

@@ -16,7 +16,7 @@ from ifcjoint.catalogue.sections import ISection
 from ifcjoint.ec3 import detailing as dt
 from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
 from ifcjoint.ec3.pinned import ductile_fin_plate_ratio
-from ifcjoint.model.codes import Axis, PartRole
+from ifcjoint.model.codes import Axis, PartRole, Support
 from ifcjoint.model.elements import Fastener
 from ifcjoint.model.joints import Finding, Joint
 
@@ -54,8 +54,12 @@ def detailing(
     fs: list[Fastener],
     csec: ISection | None,
     out: list[Finding],
+    other: PlateReading | None = None,
 ) -> None:
-    """Detailing rules for a bolted plate (end or fin plate); each finding names its basis."""
+    """Detailing rules for a bolted plate (end or fin plate); each finding names its basis.
+
+    ``other``: a splice's second end plate (the bolts' grip runs through both plates).
+    """
     if b.d0 is None:
         return
     c = _Bolted(j=j, fr=fr, p=p, b=b, fs=fs, csec=csec, out=out)
@@ -71,9 +75,14 @@ def detailing(
         return
     _symmetry(c)  # about the beam web: an end plate's rows
     _plate_thickness(c)
-    if csec is None or j.axis != Axis.MAJOR:
+    if other is not None:
+        _bolt_length(c, p.tp + other.tp)
+    if csec is None:
         return
-    _column_flange(c, csec)
+    if j.axis != Axis.MAJOR:  # on a web: the plies are the plate and the web
+        _bolt_length(c, p.tp + csec.tw)
+    elif j.support == Support.COLUMN:
+        _column_flange(c, csec)
 
 
 def _off_hole(c: _Bolted) -> None:
@@ -208,7 +217,14 @@ def _column_flange(c: _Bolted, csec: ISection) -> None:
     clear = min(abs(y) for y in ys_col) - csec.tw / 2 - csec.r
     if not c.check("hole_on_root_radius", clear, d0 / 2, els):
         c.check("no_spanner_room", clear, dt.washer_half_width(d), els)
-    grip = p.tp + csec.tf  # the plies; a gap is a finding of its own
+    _bolt_length(c, p.tp + csec.tf)  # the plies; a gap is a finding of its own
+
+
+def _bolt_length(c: _Bolted, grip: float) -> None:
+    """Bolts too short for the plies they clamp (``bolt_too_short``)."""
+    d = c.b.d
+    if d is None:
+        return
     need = dt.required_bolt_length(grip, d)
     rule = RULES["bolt_too_short"]
     short = [f for f in c.fs if rule.broken(f.nominal_length or f.length, need)]

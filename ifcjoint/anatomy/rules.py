@@ -19,6 +19,10 @@ from ifcjoint.model.joints import Finding
 TOUCH_TOLERANCE = 5.0
 
 
+#: Float round-off allowed on every rule, mm (common practice, no source).
+ROUND_OFF = 1e-3
+
+
 @dataclass(frozen=True, slots=True, kw_only=True)
 class Rule:
     """One rule: its finding code, severity, basis and how values are compared.
@@ -45,16 +49,20 @@ class Rule:
     source: tuple[str, str] | tuple[()] = ()
 
     def broken(self, measured: float, limit: float) -> bool:
-        """Whether a measured value breaks a minimum or maximum rule."""
+        """Whether a measured value breaks a minimum or maximum rule.
+
+        Beside the rule's own tolerance, a micrometre: geometry read through placements and
+        unit conversions carries float round-off (10 mm read as 9.999999999999998).
+        """
         if self.bound == "min":
-            return measured < limit - self.tolerance
+            return measured < limit - self.tolerance - ROUND_OFF
         if self.bound == "max":
-            return measured > limit + self.tolerance
+            return measured > limit + self.tolerance + ROUND_OFF
         raise ValueError(f"rule {self.code} is a {self.bound} rule, not min/max")
 
     def outside(self, measured: float, lo: float, hi: float) -> bool:
         """Whether a measured value lies outside a range rule's [lo, hi]."""
-        return not lo - self.tolerance <= measured <= hi + self.tolerance
+        return not lo - self.tolerance - ROUND_OFF <= measured <= hi + self.tolerance + ROUND_OFF
 
     def finding(
         self,

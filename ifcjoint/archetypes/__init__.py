@@ -21,6 +21,7 @@ from ifcjoint.archetypes.end_plate import (
 )
 from ifcjoint.archetypes.fin_plate import FinPlate
 from ifcjoint.archetypes.incomplete import Incomplete, Undetailed
+from ifcjoint.archetypes.splice import SPLICE_REGISTRY, EndPlateSplice
 from ifcjoint.archetypes.unsupported import Unrecognised, Unsupported
 from ifcjoint.archetypes.welded import Welded
 from ifcjoint.engine.results import CheckResult, not_checked
@@ -33,6 +34,7 @@ from ifcjoint.model.codes import (
     NotCheckedCode,
     Reason,
     ReasonCode,
+    Support,
 )
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
@@ -55,7 +57,7 @@ OVERRIDES: tuple[JointType, ...] = (Unsupported(),)
 
 _LEFT = Unrecognised()
 BY_ARCHETYPE: dict[Archetype, JointType] = {
-    t.archetype: t for t in (*REGISTRY, *OVERRIDES, _LEFT)
+    t.archetype: t for t in (EndPlateSplice(), *REGISTRY, *OVERRIDES, _LEFT)
 }
 
 
@@ -65,8 +67,11 @@ def decide(
     """A joint's archetype and the reason, decided once from its anatomy.
 
     The registry's first match gives the joint's kind; a joint with parts no archetype checks
-    (an override) is reported as such, saying what it is otherwise.
+    (an override) is reported as such, saying what it is otherwise. A splice is tried with
+    the splice types alone (``archetypes.splice``).
     """
+    if joint.support == Support.SPLICE and registry is REGISTRY:
+        registry = SPLICE_REGISTRY
     base = next(
         ((t.archetype, r) for t in registry if (r := t.recognise(joint, a)) is not None),
         (Archetype.UNKNOWN, Reason(ReasonCode.NOT_DECIDED)),

@@ -32,13 +32,19 @@ from ifcjoint.engine.inputs import (
     WeldsInput,
 )
 from ifcjoint.engine.settings import CheckSettings
-from ifcjoint.model.codes import Axis, NotChecked, NotCheckedCode
+from ifcjoint.model.codes import Axis, NotChecked, NotCheckedCode, Reason, ReasonCode, Support
 from ifcjoint.model.elements import Member
 from ifcjoint.model.joints import Joint
 
 
 def support_face(joint: Joint) -> str:
-    """What carries a pinned joint's plate: a column ``flange`` or ``web``, or a ``beam_web``."""
+    """What a joint's plate is bolted or welded to.
+
+    A column ``flange`` or ``web``, a primary beam's web (``beam_web``), or the other beam's
+    end plate (``splice``).
+    """
+    if joint.support == Support.SPLICE:
+        return "splice"
     if joint.beam_to_beam:
         return "beam_web"
     return "web" if joint.axis != Axis.MAJOR else "flange"
@@ -276,6 +282,8 @@ def end_plate_input(
     b, p = a.bolts, a.plate
     fy_p, fu_p = s.fy, s.fu
     support = support_face(joint)
+    if support == "splice":
+        return _splice_input(a, beam, col, base, s, st)
     t_support = a.column_section.tf if support == "flange" else a.column_section.tw
     fub = BOLT_CLASSES[b.bolt_class][1]
     return EndPlateJointInput(
@@ -305,6 +313,60 @@ def end_plate_input(
         alpha_method=st.alpha_method,
         support=support,
         **_shared_fields(a, beam, col, st),
+    )
+
+
+#: Two splice plates this much apart in width, depth or position are not alike (common
+#: practice, no source: modelling round-off).
+SPLICE_PLATE_TOLERANCE = 5.0
+
+
+def _splice_input(
+    a: JointAnatomy, beam: MemberInput, other: MemberInput, base: str, s: Strength,
+    st: CheckSettings,
+) -> EndPlateJointInput | NotChecked:
+    """A beam splice's input: both plates as the weaker one, no column (``support="splice"``).
+
+    The plates must be alike in width, depth and position (``SPLICE_PLATE_TOLERANCE``); their
+    thickness and steel may differ: the thinner plate, and the lower strengths, stand for
+    both (on the safe side). The bolts' grip is both plates.
+    """
+    p, q, b = a.plate, a.other_plate, a.bolts
+    if q is None:
+        return NotChecked(NotCheckedCode.PARTS_MISSING, {"reason": Reason(
+            ReasonCode.SPLICE_PLATE_MISSING)})
+    for what, x, y in (("width", p.bp, q.bp), ("depth", p.hp, q.hp),
+                       ("top edge", p.top_from_beam_top, q.top_from_beam_top)):
+        if abs(x - y) > SPLICE_PLATE_TOLERANCE:
+            return NotChecked(NotCheckedCode.SPLICE_PLATES_DIFFER,
+                              {"what": what, "this": x, "other": y})
+    fy, fu, source = s.fy, s.fu, s.source
+    try:
+        _, s_q = grade_strength(q.grade or a.column_grade, q.tp, st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    if s_q.fy < fy or s_q.fu < fu:
+        fy, fu, source = min(fy, s_q.fy), min(fu, s_q.fu), f"{source}; {s_q.source}"
+    return EndPlateJointInput(
+        column=other,
+        beam=beam,
+        plate=PlateInput(
+            grade=base, tp=min(p.tp, q.tp), bp=p.bp, hp=p.hp, fy=fy, fu=fu,
+            projection_top=p.projection_top,
+            projection_bottom=p.projection_bottom(a.beam_section.h), strength_source=source,
+        ),
+        bolts=BoltsInput(
+            d=b.d, grade=b.bolt_class, fub=BOLT_CLASSES[b.bolt_class][1],
+            As=TENSILE_STRESS_AREA[int(round(b.d))], d0=b.d0, gauge=b.gauge,
+            rows_from_beam_top=tuple(r.from_beam_top for r in b.rows),
+            L_b=bolt_elongation_length(p.tp + q.tp, b.d),
+        ),
+        alpha_method=st.alpha_method,
+        support="splice",
+        welds=joint_welds(a, beam, st),
+        params=st.params,
+        beta=1.0,
+        braced=st.braced,
     )
 
 

@@ -352,8 +352,9 @@ def input_from_description(d: Any, settings: CheckSettings | None = None) -> Joi
                 raise DescriptionError(key, "applies to an end plate; this joint has none")
         return WeldedJointInput(**shared)
     support = _text(d, "support", "", "flange")
-    if support not in ("flange", "web", "beam_web"):
-        raise DescriptionError("support", f"{support!r}: expected 'flange', 'web' or 'beam_web'")
+    if support not in ("flange", "web", "beam_web", "splice"):
+        raise DescriptionError("support", f"{support!r}: expected 'flange', 'web', 'beam_web' "
+                                          "or 'splice'")
     return EndPlateJointInput(
         support=support,
         plate=plate_from(d["plate"], beam, st, basis),

@@ -198,7 +198,7 @@ def resistances_valid(result: CheckResult) -> CheckResult:
     Raises:
         ArithmeticError: a resistance is negative, infinite or not a number.
     """
-    numbers = [result.V_wp_Rd]
+    numbers = [result.V_wp_Rd] if result.V_wp_Rd is not None else []  # none in a splice
     for side in (result.hogging, result.sagging):
         if side is not None:
             numbers += [side.M_j_Rd, *(c.F_Rd for c in side.components),
@@ -207,7 +207,7 @@ def resistances_valid(result: CheckResult) -> CheckResult:
                 numbers.append(side.V_j_Rd)
     if all(v is not None and 0 <= v < math.inf for v in numbers):
         return result  # the usual case; below, the name of the bad value
-    values = [("V_wp_Rd", result.V_wp_Rd)]
+    values = [("V_wp_Rd", result.V_wp_Rd)] if result.V_wp_Rd is not None else []
     for side in (result.hogging, result.sagging):
         if side is None:
             continue

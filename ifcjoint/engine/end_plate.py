@@ -98,7 +98,7 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     Table 3.4 (Vj,Rd), 6.3 (Sj,ini), 5.2.2 and 5.2.3 (classification). Out-of-scope layouts
     return a not-checked result with the reason.
     """
-    if inp.support != "flange":  # on a web: the shear path only (no web in bending in 6.2.6)
+    if inp.support in ("web", "beam_web"):  # the shear path only (no web in bending, 6.2.6)
         return check_end_plate_on_web(inp)
     why = _out_of_scope(inp)
     if why is not None:
@@ -113,8 +113,10 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     if inp.stiffeners or inp.web_plates:
         notes.append(Note(NoteCode.STIFFNESS_UNREINFORCED))
     notes.append(Note(NoteCode.SHEAR_FROM_BOLTS, _shear_summary(shared, sides[0])))
+    if _splice(inp):
+        notes.append(Note(NoteCode.SPLICE_PLATES, {"tp": inp.plate.tp, "fy": inp.plate.fy}))
     r = checked(
-        inp, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=web.v_wp_Rd,
+        inp, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=None if _splice(inp) else web.v_wp_Rd,
         notes=list(unique_notes(notes)), joint_kind="bolted_end_plate",
     )
     return resistances_valid(r)
@@ -151,12 +153,27 @@ def _alpha_note(inp: EndPlateJointInput) -> list[Note]:
     return [Note(NoteCode.ALPHA_CHART)]
 
 
+def _splice(inp: EndPlateJointInput) -> bool:
+    """A beam splice: two end plates bolted together, no column (EN 1993-1-8 6.2.7.2, 6.3).
+
+    ``plate`` stands for both plates (the builder gives the weaker of the two); the column
+    components (web panel, web in compression and tension, column flange) do not exist: the
+    other plate's T-stub takes the column flange's place, the same as this one's.
+    """
+    return inp.support == "splice"
+
+
 def _out_of_scope(inp: EndPlateJointInput) -> NotChecked | None:
     col, beam, b = inp.column, inp.beam, inp.bolts
     if beam.h <= 0 or col.h <= 0:
         return NotChecked(NotCheckedCode.SECTION_DIMENSIONS_MISSING)
     if len(b.rows_from_beam_top) < 2:
         return NotChecked(NotCheckedCode.FEWER_THAN_TWO_ROWS)
+    if _splice(inp):
+        mc_rd, cls = beam_M_c_Rd(beam, inp.params)
+        if mc_rd is None:
+            return NotChecked(NotCheckedCode.CLASS_4_BEAM, {"section": beam.name, "class": cls})
+        return None
     slender = slender_web(col)
     if slender is not None:
         return slender
@@ -224,19 +241,21 @@ class _Shared:
         ft = F_t_Rd(b.fub, b.As, p)
         dm = _dm(inp)
         leg_w = w.web_throat * math.sqrt(2)
-        e_c = (col.b - b.gauge) / 2
         e_p = (pl.bp - b.gauge) / 2
+        splice = _splice(inp)
+        e_c = e_p if splice else (col.b - b.gauge) / 2
+        t_other, fu_other = (pl.tp, pl.fu) if splice else (col.tf, col.fu)
         return cls(
             inp=inp,
             ft=ft,
-            ft_row=2 * min(ft, B_p_Rd(dm, col.tf, col.fu, p), B_p_Rd(dm, pl.tp, pl.fu, p)),
+            ft_row=2 * min(ft, B_p_Rd(dm, t_other, fu_other, p), B_p_Rd(dm, pl.tp, pl.fu, p)),
             ew=_dw(inp) / 4,
             m_c=b.gauge / 2 - col.tw / 2 - 0.8 * col.r,
             e_c=e_c,
             m_p=b.gauge / 2 - beam.tw / 2 - 0.8 * leg_w,
             e_p=e_p,
             e_min=min(e_c, e_p),
-            lb=b.L_b or bolt_elongation_length(pl.tp + col.tf, b.d),
+            lb=b.L_b or bolt_elongation_length(pl.tp + t_other, b.d),
             fv=F_v_Rd(b.grade, b.fub, b.As, p) if b.grade in ALPHA_V else 0.0,
             bearing=_bearing(inp),
         )
@@ -421,6 +440,14 @@ class _SideCheck:
         alone = []
         for i, z in enumerate(self.tension, start=1):
             d: dict[Component, float] = {}
+            if _splice(inp):  # no column: the other plate's T-stub is this one's
+                self.leff_col.append(math.inf)
+                if z < 0:
+                    self._extension_row(i, z, d)
+                else:
+                    self._row_below_flange(i, z, d, beam, p)
+                alone.append(d)
+                continue
             cp, nc, a_col = self.col_flange_alone(i)
             found = self.shared.column_rows.get((cp, nc, a_col))
             if found is None:  # rows of the same geometry share their column components
@@ -506,7 +533,7 @@ class _SideCheck:
         col, beam, p = inp.column, inp.beam, inp.params
         rows = tuple(range(i, j + 1))
         g: dict[Component, float] = {}
-        if not self._crosses_stiffener(i, j):
+        if not _splice(inp) and not self._crosses_stiffener(i, j):
             shares = [self.col_flange_in_group(i, j, k) for k in rows]
             cp_s, nc_s = sum(a for a, _ in shares), sum(b for _, b in shares)
             for k, (a_, b_) in zip(rows, shares, strict=True):
@@ -550,6 +577,14 @@ class _SideCheck:
         """
         inp = self.inp
         col, beam, pl, p = inp.column, inp.beam, inp.plate, inp.params
+        if _splice(inp):  # the beam flange and web alone (6.2.6.7): no column
+            mc_rd, cls = beam_M_c_Rd(beam, p)
+            fcfb = cmp.F_c_fb_Rd(mc_rd, beam.h, beam.tf)
+            if cls == 3:
+                self.notes.append(Note(NoteCode.BEAM_CLASS_3, {"section": beam.name}))
+            self.add("6.2.6.7", Component.BEAM_FLANGE_COMPRESSION, fcfb,
+                     inputs={"Mc_Rd": mc_rd, "section_class": cls})
+            return {Component.BEAM_FLANGE_COMPRESSION: fcfb}, math.inf, fcfb, 0.0
         # 45-degree spread through the plate: tp on the beam side, and up to tp more where the
         # plate projects beyond the compression flange (6.2.6.2(1), s_p between tp and 2 tp).
         s_p = pl.tp + min(max(self.comp_proj, 0.0), pl.tp)
@@ -607,6 +642,12 @@ class _SideCheck:
         """
         inp = self.inp
         col, pl, b = inp.column, inp.plate, inp.bolts
+        if _splice(inp):  # Table 6.10, beam splice with bolted end plates: k5, k5, k10
+            keff = [stf.k_eff_row([k5, k5, stf.k10_bolts(b.As, self.lb)])
+                    for k5 in (stf.k5_end_plate(self.leff_plate[i], pl.tp, self.m_plate[i])
+                               for i in range(len(self.tension)))]
+            zeq, keq = stf.equivalent_lever_arm(keff, self.h_r)
+            return stf.S_j_ini(zeq, [keq], inp.params), zeq
         dwc = col.h - 2 * (col.tf + col.r)
         keff = []
         for i in range(len(self.tension)):
@@ -675,7 +716,7 @@ def _bearing_gap(inp: EndPlateJointInput, e1: float, p1: float | None) -> NotChe
     checks = [
         ("e1", e1, e_min(d0)),
         ("e2 (plate)", (pl.bp - b.gauge) / 2, e_min(d0)),
-        ("e2 (column flange)", (col.b - b.gauge) / 2, e_min(d0)),
+        *([] if _splice(inp) else [("e2 (column flange)", (col.b - b.gauge) / 2, e_min(d0))]),
         ("p2", b.gauge, p2_min(d0)),
     ]
     if p1 is not None:
@@ -705,6 +746,8 @@ def _bearing(inp: EndPlateJointInput) -> tuple[float, float, NotChecked | None]:
         alpha_b(d0=b.d0, fub=b.fub, fu=pl.fu, e1=e1, p1=p1),
         pl.fu, b.d, pl.tp, p,
     )
+    if _splice(inp):  # the other plate, the same as this one
+        return fb_plate, fb_plate, None
     fb_col = F_b_Rd(
         k1_bearing(d0=b.d0, e2=(col.b - b.gauge) / 2, p2=b.gauge),
         alpha_b(d0=b.d0, fub=b.fub, fu=col.fu, p1=p1),
@@ -744,4 +787,5 @@ def _shear_summary(sh: _Shared, hog: SideResult) -> dict:
         "fb_col": fb_col,
         "fv": fv,
         "out_of_range": gap is not None,
+        "splice": _splice(sh.inp),
     }

@@ -261,20 +261,21 @@ def verify_combination(
                 combination=c,
             )
         )
-    v_wp, vnote = web_panel_shear(demand, side.z if side.z > 0 else inp.beam.h - inp.beam.tf)
-    if vnote is not None:
-        notes.append(vnote)
-    us.append(
-        Utilisation(
-            verification=Verification.WEB_PANEL_SHEAR,
-            clause=EC3.clause("6.2.6.1; 5.3(3)"),
-            demand=v_wp,
-            resistance=r.V_wp_Rd,
-            utilisation=_ratio(v_wp, r.V_wp_Rd),
-            combination=c,
-            detail={"z": side.z if side.z > 0 else inp.beam.h - inp.beam.tf},
+    if r.V_wp_Rd is not None:  # no column web panel in a beam splice
+        v_wp, vnote = web_panel_shear(demand, side.z if side.z > 0 else inp.beam.h - inp.beam.tf)
+        if vnote is not None:
+            notes.append(vnote)
+        us.append(
+            Utilisation(
+                verification=Verification.WEB_PANEL_SHEAR,
+                clause=EC3.clause("6.2.6.1; 5.3(3)"),
+                demand=v_wp,
+                resistance=r.V_wp_Rd,
+                utilisation=_ratio(v_wp, r.V_wp_Rd),
+                combination=c,
+                detail={"z": side.z if side.z > 0 else inp.beam.h - inp.beam.tf},
+            )
         )
-    )
     mn = _axial(inp, demand, r, side.M_j_Rd, c)
     if mn is not None:
         us.append(mn)

@@ -124,11 +124,18 @@ def find_joints(
     raw = [j for j in raw if j["k"] not in haunches]
     on_webs = _beam_web_hits(ends, unresolved, len(columns), st)
     raw.extend(on_webs)
-    others.extend(_classify_free_ends(ends, unresolved, st))
+    free = _classify_free_ends(ends, unresolved, st)
+    others.extend(free)
+    raw.extend(_splice_joints(ends, free, len(columns)))
     grid = GridLabeller(model)
     # the supports' frames: the columns, then the beams (a beam-to-beam joint's col_idx)
     joints = _make_joints(raw, model, Frames.of([*columns, *beams]), st, grid, haunch_of)
-    by_end = {(j.beam, j.beam_end): j.id for j in joints if j.beam_to_beam}
+    # an end checked by a joint of its own besides its kind: beam-to-beam, and both ends of
+    # a splice (the joint is the first end's)
+    by_end = {(j.beam, j.beam_end): j.id for j in joints if j.support != Support.COLUMN}
+    for j in joints:
+        if j.support == Support.SPLICE:
+            by_end[(j.column, j.other_end)] = j.id
     others = [replace(o, joint=by_end.get((o.beam, o.beam_end))) for o in others]
     others = _label_others(others, beams, grid)
     if progress:
@@ -263,7 +270,8 @@ def _make_joints(
     labels = grid.labels(
         [j["beam"].storey for j in raw],
         np.array([j["point"] for j in raw]).reshape(-1, 3),
-        [None if j.get("support") == Support.BEAM else j["column"] for j in raw],
+        [j["column"] if j.get("support", Support.COLUMN) == Support.COLUMN else None
+         for j in raw],
     )
     joints = []
     for j, label in zip(raw, labels, strict=True):
@@ -276,7 +284,8 @@ def _make_joints(
                 beam_end=j["beam_end"],
                 column=j["column"].guid,
                 axis=j["axis"],
-                face=Face.FLANGE if j["axis"] == Axis.MAJOR else Face.WEB,
+                face=(Face.END if j.get("support") == Support.SPLICE
+                      else Face.FLANGE if j["axis"] == Axis.MAJOR else Face.WEB),
                 side="+" if j["side"] > 0 else "-",
                 point=tuple(round(float(x), 3) for x in j["point"]),
                 gap=round(j["gap"], 3),
@@ -286,6 +295,7 @@ def _make_joints(
                 fasteners=fasteners,
                 storey=j["beam"].storey,
                 support=j.get("support", Support.COLUMN),
+                other_end=j.get("other_end"),
             )
         )
     joints.sort(key=lambda j: (j.label, j.id))
@@ -418,6 +428,38 @@ def _beam_web_hits(
     return out
 
 
+def _splice_joints(ends: _Ends, free: list[OtherBeamEnd], n_columns: int) -> list[dict]:
+    """One joint for each splice: two collinear beam ends that found each other.
+
+    The joint is the end that comes first (by beam GlobalId, then ``end`` before ``start``);
+    its "column" is the other beam
+    (``col_idx`` counts the beams after the columns), its face point the midpoint of the two
+    end points (the plates' contact plane when they are alike: the anatomy measures it).
+    """
+    k_of = {(ends.beam(k).guid, ends.name(k)): k for k in range(len(ends.points))}
+    idx = {id(b): i for i, b in enumerate(ends.beams)}
+    splice = {(o.beam, o.beam_end): o for o in free if o.kind == EndKind.SPLICE}
+    out = []
+    for (guid, end), o in splice.items():
+        k = k_of[(guid, end)]
+        mates = [m for m in splice.values() if m.beam == o.other and m.other == guid]
+        if not mates:
+            continue
+        mate = min(mates, key=lambda m: float(np.linalg.norm(np.subtract(m.point, o.point))))
+        km = k_of[(mate.beam, mate.beam_end)]
+        if (mate.beam, mate.beam_end) < (guid, end):
+            continue  # the pair's joint is the other end's (independent of the model's order)
+        other = ends.beam(km)
+        mid = (ends.points[k] + ends.points[km]) / 2
+        gap = float(np.dot(mid - ends.points[k], ends.approach[k]))
+        out.append(dict(
+            k=k, beam=ends.beam(k), beam_end=ends.name(k), column=other,
+            col_idx=n_columns + idx[id(other)], axis=Axis.MAJOR, side=1.0, gap=gap,
+            point=mid, support=Support.SPLICE, other_end=ends.name(km),
+        ))
+    return out
+
+
 def _haunches(joints: list[dict], st: FinderSettings) -> dict[int, dict]:
     """Short members that meet a column face right under another beam's end: haunches.
 
@@ -457,7 +499,8 @@ def _pair_double_sided(joints: list[dict], st: FinderSettings) -> dict[int, str]
     """Pair joints of two beams meeting opposite faces of one column at the same level."""
     by_col: dict[tuple[int, str], list[dict]] = defaultdict(list)
     for j in joints:
-        by_col[(j["col_idx"], j["axis"])].append(j)
+        if j.get("support") != Support.SPLICE:  # a splice has no beam opposite
+            by_col[(j["col_idx"], j["axis"])].append(j)
     partners: dict[int, str] = {}
     for group in by_col.values():
         if len(group) < 2:

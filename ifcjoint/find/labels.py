@@ -56,12 +56,13 @@ class GridLabeller:
                     wheres[i] = "/".join(parts)
                 elif len(parts) == 1 and len(fam_tags) >= 2:
                     # on one grid line between two of the other family (a secondary beam's
-                    # end on a main beam): that line and the bay, e.g. "A/1-2"
+                    # end on a main beam, a splice): that line and the bay, e.g. "1-2/A"
                     on = next(f for f, (idx, ok) in zip(fams, fam_tags, strict=True) if ok[i])
-                    bay = self._bay(rel[i],
-                                    family=next(f for f in fams if f != on))
-                    if bay:
-                        wheres[i] = f"{parts[0]}/{bay}"
+                    across = next(f for f in fams if f != on)
+                    bay = self._bay(rel[i], family=across)
+                    if bay:  # in the families' order, as a grid cell reads ("3-4/C")
+                        tags = {on: parts[0], across: bay}
+                        wheres[i] = "/".join(tags[f] for f in fams if f in tags)
         out = []
         for i, st in enumerate(storeys):
             where = wheres[i] or f"({p[i, 0]:.0f}, {p[i, 1]:.0f}, {p[i, 2]:.0f})"

@@ -39,7 +39,7 @@ class _Zone:
     face_reach: float  # the distance segment stops this far past the column face
     col_point: np.ndarray  # a point on the column's axis
     col_half_web: float  # half the column web's thickness (the plane's neutral band)
-    on_beam: bool = False  # the support is a primary beam (a beam-to-beam joint)
+    on_beam: bool = False  # the support is a beam (beam-to-beam joint, splice): no column plates
 
 
 def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
@@ -78,7 +78,7 @@ def _zones(joints: list[dict], st: FinderSettings) -> list[_Zone]:
                 face_reach=st.tolerance,
                 col_point=np.array(col.start, dtype=float),
                 col_half_web=(col.web_thickness or 0.0) / 2,
-                on_beam=j.get("support") == Support.BEAM,
+                on_beam=j.get("support", Support.COLUMN) != Support.COLUMN,
             )
         )
     return zones

@@ -46,6 +46,7 @@ class Archetype(StrEnum):
     FIN_PLATE = "fin_plate"
     BEAM_FIN_PLATE = "beam_to_beam_fin_plate"  # on a primary beam's web
     BEAM_HEADER_PLATE = "beam_to_beam_end_plate"  # partial depth, on a primary beam's web
+    END_PLATE_SPLICE = "end_plate_splice"  # two beams' end plates bolted together
     INCOMPLETE = "incomplete"
     UNDETAILED = "undetailed"
     UNSUPPORTED = "unsupported"
@@ -75,6 +76,7 @@ class Face(StrEnum):
 
     FLANGE = "flange"
     WEB = "web"
+    END = "end"  # the end of a collinear beam (a splice)
 
 
 class MemberKind(StrEnum):
@@ -130,6 +132,7 @@ class Support(StrEnum):
 
     COLUMN = "column"
     BEAM = "beam"  # a primary beam's web: a beam-to-beam joint
+    SPLICE = "splice"  # the end of a collinear beam: a beam splice
 
 
 class EndKind(StrEnum):
@@ -227,6 +230,7 @@ class NotCheckedCode(StrEnum):
     PINNED_NO_MOMENT = "pinned_no_moment"  # a nominally pinned joint has no moment resistance
     SUPPORT_WEB_OTHER_SIDE_MISSING = "support_web_other_side_missing"  # no partner reaction
     WEB_BENDING_NOT_COVERED = "web_bending_not_covered"  # an end plate on a web: no moment
+    SPLICE_PLATES_DIFFER = "splice_plates_differ"  # a splice's two plates not alike
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
@@ -262,6 +266,9 @@ class ReasonCode(StrEnum):
     ROWS_OUTSIDE = "rows_outside"
     ROWS_WITHIN = "rows_within"
     FIN_PLATE_BOLTS = "fin_plate_bolts"
+    SPLICE_PLATES_BOLTS = "splice_plates_bolts"
+    SPLICE_PLATE_MISSING = "splice_plate_missing"  # one end plate and bolts, the other absent
+    SPLICE_BARE = "splice_bare"  # two beam ends meeting with no plates or bolts
     ON_FACE = "on_face"
     DRAWN_INTO = "drawn_into"
     UNSUPPORTED_PARTS = "unsupported_parts"
@@ -280,6 +287,7 @@ class NoteCode(StrEnum):
     """What the engine or the verification says about how a result was obtained."""
 
     WELDS_ASSUMED = "welds_assumed"
+    SPLICE_PLATES = "splice_plates"  # a beam splice: both plates as the weaker one, no column
     BEAM_WEB_UNNOTCHED = "beam_web_unnotched"
     FIN_PLATE_PINNED = "fin_plate_pinned"
     BOLT_SHEAR_GOVERNS = "bolt_shear_governs"

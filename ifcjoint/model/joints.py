@@ -96,7 +96,9 @@ class Joint:
         storey: the storey of the beam.
         haunch_members: short members under the beam end read as a haunch.
         support: what ``column`` is: a column, or the primary beam of a beam-to-beam joint
-            (the secondary beam framing square into its web; axis minor, face web).
+            (the secondary beam framing square into its web; axis minor, face web), or the
+            other beam of a splice (collinear, end to end; face ``end``).
+        other_end: for a splice, the end of the other beam that meets this one.
     """
 
     id: str
@@ -118,6 +120,7 @@ class Joint:
     storey: str = ""
     haunch_members: tuple[str, ...] = ()
     support: Support = Support.COLUMN
+    other_end: BeamEnd | None = None
 
     @property
     def beam_to_beam(self) -> bool:

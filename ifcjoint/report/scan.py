@@ -18,7 +18,7 @@ from ifcjoint import TOOL_NAME, __version__
 from ifcjoint.anatomy import JointAnatomy, stiffener_guids, web_plate_guids
 from ifcjoint.catalogue.sections import ISection
 from ifcjoint.fileio import atomic_write_text, safe_cell
-from ifcjoint.model.codes import Axis, PartRole
+from ifcjoint.model.codes import Axis, PartRole, Support
 from ifcjoint.model.joints import Finding, Joint, ScanResult
 from ifcjoint.report.words import coded, finding_message
 
@@ -147,11 +147,13 @@ def joint_dict(j: Joint, a: JointAnatomy | None, column=None) -> dict:
         "face": j.face,
         "side": j.side,
         "point_mm": _pt(j.point),
-        "column_axis_mm": None if j.beam_to_beam else _axis_xy(column, j.point[2]),
+        "column_axis_mm": (_axis_xy(column, j.point[2]) if j.support == Support.COLUMN
+                           else None),
         "gap_mm": round(j.gap, 3),
         "partner": j.partner,
         "haunch_members": list(j.haunch_members),
         "support": j.support,
+        "other_end": j.other_end,
         "archetype": j.archetype,
         "archetype_reason": coded(j.archetype_reason),
         "plates": [p.guid for p in j.plates],
@@ -297,11 +299,14 @@ def write_scan_summary(scan: dict, out: TextIO, *, brief: bool = False) -> None:
         f"\nBeam-to-column joints: {len(on_cols)} (major axis {axes.get(Axis.MAJOR, 0)}, "
         f"minor axis {axes.get(Axis.MINOR, 0)}; double-sided pairs {pairs})\n"
     )
-    if len(on_cols) < len(js):
-        on_beams = [j for j in js if j not in on_cols]
+    on_beams = [j for j in js if j.get("support") == "beam"]
+    if on_beams:
         pairs = sum(1 for j in on_beams if j["partner"]) // 2
         w(f"Beam-to-beam joints: {len(on_beams)} (secondary beams on a primary beam's web; "
           f"double-sided pairs {pairs})\n")
+    splices = [j for j in js if j.get("support") == "splice"]
+    if splices:
+        w(f"Beam splices: {len(splices)} (collinear beams meeting end to end)\n")
     arch = Counter(j["archetype"] for j in js)
     if arch:
         w(f"  by archetype: {_counts_line(arch)}\n")

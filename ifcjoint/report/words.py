@@ -70,6 +70,16 @@ REASONS: dict[ReasonCode, Words] = {
         "bottom: it does not reach a flange, so it is a partial-depth (header) plate, "
         "nominally pinned: shear only"
     ),
+    ReasonCode.SPLICE_PLATE_MISSING: lambda v: (
+        "splice with one end plate and bolts: the other beam's end plate is not in the model"
+    ),
+    ReasonCode.SPLICE_BARE: lambda v: (
+        "two beam ends meet end to end with no plates, bolts or welds modelled: the splice "
+        "is not detailed"
+    ),
+    ReasonCode.SPLICE_PLATES_BOLTS: lambda v: (
+        f"two end plates bolted together with {v['n']} bolt(s): a beam splice"
+    ),
     ReasonCode.FIN_PLATE_BOLTS: lambda v: (
         f"plate beside the beam web with {v['n']} bolt(s): nominally pinned"
     ),
@@ -109,6 +119,10 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.PINNED_NO_MOMENT: lambda v: (
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
+    ),
+    NotCheckedCode.SPLICE_PLATES_DIFFER: lambda v: (
+        f"the splice's two end plates differ ({v['what']}: {v['this']:g} and {v['other']:g} "
+        "mm): the check takes two alike plates; not checked"
     ),
     NotCheckedCode.WEB_BENDING_NOT_COVERED: lambda v: (
         "end plate on a web: EN 1993-1-8 gives no resistance or stiffness of a web in "
@@ -263,8 +277,14 @@ NOTES: dict[NoteCode, Words] = {
         f"Vj,Rd: {v['n_shear']} bolt(s) in shear rows at min(Fv,Rd, Fb,Rd) = "
         f"{v['per_bolt'] / 1e3:.1f} kN, {v['n_tension']} in tension rows at "
         f"min((1 - 1/1.4) Fv,Rd, Fb,Rd) (Table 3.4 interaction, common practice); bearing "
-        f"(Table 3.4) on the plate {v['fb_plate'] / 1e3:.0f} kN and on the column flange "
-        f"{v['fb_col'] / 1e3:.0f} kN per bolt"
+        f"(Table 3.4) on the plate {v['fb_plate'] / 1e3:.0f} kN and on the "
+        f"{'other plate' if v.get('splice') else 'column flange'} {v['fb_col'] / 1e3:.0f} kN "
+        "per bolt"
+    ),
+    NoteCode.SPLICE_PLATES: lambda v: (
+        f"beam splice: both end plates taken as the weaker one (t_p {v['tp']:g} mm, f_y "
+        f"{v['fy']:g} MPa); the other plate's T-stub stands where a column flange would; no "
+        "column components; Sj,ini from k5 of both plates and k10 (EN 1993-1-8 Table 6.10)"
     ),
     NoteCode.BEAM_WEB_UNNOTCHED: lambda v: (
         "beam web taken as unnotched: bearing and shear on it with no edge above or below "

@@ -18,7 +18,8 @@ from ifcjoint.model.codes import Archetype, Axis, NotChecked, NotCheckedCode, No
 from ifcjoint.report.results import result_dict
 from tests.conftest import SAMPLES
 
-CHECKED = (Archetype.EXTENDED_END_PLATE, Archetype.FLUSH_END_PLATE, Archetype.WELDED)
+CHECKED = (Archetype.EXTENDED_END_PLATE, Archetype.FLUSH_END_PLATE, Archetype.WELDED,
+           Archetype.END_PLATE_SPLICE)
 
 
 def test_demo_joints_checked_or_told_why(scan_cached):

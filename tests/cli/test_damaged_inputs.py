@@ -261,14 +261,14 @@ def test_repeated_global_ids_stay_apart(tmp_path):
     r, out = check_case(tmp_path, model)
     data = json.loads(out["--json"].read_text())
     ids = [j["id"] for j in data["joints"]]
-    assert len(ids) == len(set(ids)) == 55  # as many joints as the intact demo, none shared
+    assert len(ids) == len(set(ids)) == 56  # as many joints as the intact demo, none shared
     beams = {(j["beam"], j["beam_end"]) for j in data["joints"]}
-    assert len(beams) == 55
+    assert len(beams) == 56
     assert any("#" in b for b, _ in beams)  # the repeats are keyed GlobalId#entity
     assert any("3 GlobalId(s) repeated" in n for n in data["check"]["notes"])
     # every beam end got its own property set, on its own entity
     ifc = out["--ifc-out"].read_text()
-    assert ifc.count("'ifcjoint_JointAt") == 55
+    assert ifc.count("'ifcjoint_JointAt") == 56
 
 
 def _zip(tmp_path: Path, name: str, member: str, data: bytes) -> Path:

@@ -31,7 +31,7 @@ def test_scan_demo_prints_summary_and_writes_json_and_csv(tmp_path):
     data = json.loads(js.read_text())
     jsonschema.validate(data, SCHEMA)
     assert data["model"]["schema"] == "IFC4"
-    assert len(data["joints"]) == 55
+    assert len(data["joints"]) == 56
     df = pd.read_csv(csv)
     assert list(df["joint_id"]) == [j["id"] for j in data["joints"]]
 

@@ -33,11 +33,11 @@ def test_filters_narrow_the_report_but_never_the_gate_bcf_or_ifc(tmp_path):
         j["storey"].lower().startswith("ground") and j["check"]["status"] == "fail"
         for j in data["joints"])
     flt = data["check"]["filter"]
-    assert flt["joints_in_run"] == 55 and flt["joints_shown"] == len(data["joints"])
+    assert flt["joints_in_run"] == 56 and flt["joints_shown"] == len(data["joints"])
     assert sum(data["check"]["counts"].values()) == len(data["joints"])
     assert len(pd.read_csv(out["csv"])) == len(data["joints"])
     assert "Partial report" in out["html"].read_text()
-    assert f"{len(data['joints'])} of 55 joints shown" in r.output
+    assert f"{len(data['joints'])} of 56 joints shown" in r.output
     run("check", DEMO, "--demands", DEMANDS, "--json", tmp_path / "all.json", "-q",
         "--fail-on", "never")
     full = json.loads((tmp_path / "all.json").read_text())

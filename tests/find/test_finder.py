@@ -124,7 +124,11 @@ def test_other_beam_ends_are_each_accounted_for():
     got = set(by_beam(r)) | set(o)
     assert got == ends
     both = set(by_beam(r)) & set(o)
-    assert both == {("SEC", "start")}
+    assert both == {("SEC", "start"), ("P1", "end")}
+    sp = by_beam(r)[("P1", "end")]  # one joint per splice, for the first end by GlobalId
+    assert sp.support == "splice" and sp.column == "P2" and sp.other_end == "start"
+    assert o[("P1", "end")].joint == o[("P2", "start")].joint == sp.id
+    assert sp.point == pytest.approx((3005.0, 9000.0, 3800.0)) and sp.partner is None
     sec = by_beam(r)[("SEC", "start")]
     assert o[("SEC", "start")].joint == sec.id and sec.beam_to_beam
     assert sec.column == "MAIN" and sec.axis == "minor" and sec.face == "web"

@@ -23,7 +23,7 @@ def test_bundled_demo_matches_its_truth(name, scan_cached):
     result = scan_cached(SAMPLES / f"{name}.ifc")
     cmp = compare(result, truth)
     assert cmp.problems() == {}
-    assert len(result.joints) == len(truth["joints"]) == 55
+    assert len(result.joints) == len(truth["joints"]) == 56
     assert not result.unreadable
 
 
@@ -82,7 +82,7 @@ def test_same_frame_in_mm_and_m_gives_same_joints_and_coordinates(build_variant,
     a, b = scan_cached(p_mm), scan_cached(p_m)
     assert b.model.length_unit_to_mm == pytest.approx(1000.0)
     pa, pb = _joint_points(a), _joint_points(b)
-    assert set(pa) == set(pb) and len(pa) == 55
+    assert set(pa) == set(pb) and len(pa) == 56
     for k in pa:
         assert np.abs(pa[k] - pb[k]).max() < 0.01  # mm
     assert [(j.id, j.partner, j.archetype) for j in a.joints] == [
