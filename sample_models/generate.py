@@ -75,7 +75,7 @@ class Options:
     anonymous_fasteners: bool = False  # bolts named only "Part n": recognised by shape
     grid_placed_columns: bool = False  # columns placed by IfcGridPlacement (IFC4 and later)
     bolt_data_in_pset: bool = False  # bolt size and class only in a property set
-    haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch: unsupported
+    haunch: bool = False  # one joint (level 1, line A, bay 2 start) gets a haunch
     plates_as_members: bool = False  # plates exported as flat IfcMember/IfcBeam bars
     bolt_groups: bool = False  # all bolts of a joint in one IfcMechanicalFastener
     stiffeners: bool = False  # column web stiffeners at the level-1 beam flanges of line A
@@ -700,9 +700,9 @@ class Frame:
                                   lat)
                 web = self.plate(key + "/haunch-web", self.name("HW"), 500.0, 250.0, 10.0, hw,
                                  (beam, bworld))
-                hf = frame_matrix(np.array([*(end_pt - t * 250.0)[:2], top_z - h - 256.0]), t,
+                hf = frame_matrix(np.array([*(end_pt - t * 250.0)[:2], top_z - h - 257.0]), t,
                                   (0, 0, 1.0))
-                fl = self.plate(key + "/haunch-flange", self.name("HF"), 500.0, b, 12.0, hf,
+                fl = self.plate(key + "/haunch-flange", self.name("HF"), 500.0, b, 14.0, hf,
                                 (beam, bworld))
                 parts += [web, fl]
                 plates += [web.GlobalId, fl.GlobalId]
@@ -782,8 +782,8 @@ class Frame:
 
     def expected_archetype(self, spec: JointSpec, axis: str) -> str:
         """The archetype a person reading the model would give this joint."""
-        if spec.haunch:
-            return "unsupported"
+        if spec.haunch:  # read whole; a member haunch smaller than the beam: not checked
+            return "haunched_end_plate"
         if spec.kind in ("extended_end_plate", "flush_end_plate"):
             if not spec.with_plate or not spec.with_bolts:  # a gap keeps the kind
                 return "incomplete"
@@ -1199,11 +1199,12 @@ def build(opt: Options, path: str | Path, truth_path: str | Path | None = None) 
 
 
 BUNDLED = {
-    "kestrel-workshop-ifc4-mm": Options(schema="IFC4", unit="mm", relations="mixed"),
+    "kestrel-workshop-ifc4-mm": Options(schema="IFC4", unit="mm", relations="mixed",
+                                        haunch=True),
     "kestrel-workshop-ifc2x3-mm": Options(schema="IFC2X3", unit="mm", relations="assembly",
-                                          fastener_class="IfcMechanicalFastener"),
+                                          fastener_class="IfcMechanicalFastener", haunch=True),
     "kestrel-workshop-ifc4-m": Options(schema="IFC4", unit="m", relations="none",
-                                       rotation_deg=23.0, offset=(1250.0, -730.0)),
+                                       rotation_deg=23.0, offset=(1250.0, -730.0), haunch=True),
 }
 
 

@@ -17,6 +17,7 @@ from ifcjoint.anatomy.frame import joint_frame
 from ifcjoint.anatomy.read import (
     BoltReading,
     BoltRow,
+    HaunchReading,
     PlateReading,
     StiffenerReading,
     WebPlateReading,
@@ -24,6 +25,7 @@ from ifcjoint.anatomy.read import (
     column_plates,
     grade_of,
     read_bolts,
+    read_haunch,
     read_plate,
     read_welds,
     section_of,
@@ -42,6 +44,7 @@ __all__ = [
     "AnatomySettings",
     "BoltReading",
     "BoltRow",
+    "HaunchReading",
     "JointAnatomy",
     "PlateReading",
     "StiffenerReading",
@@ -85,6 +88,7 @@ class JointAnatomy:
         unread: what could not be read, in words.
         assumed: what was assumed by the user's settings, in words.
         other_plate: a splice's second end plate (on the other beam), or None.
+        haunch: the haunch under the beam, read whole, or None.
     """
 
     joint_id: str
@@ -103,6 +107,7 @@ class JointAnatomy:
     unread: tuple[str, ...] = ()
     assumed: tuple[str, ...] = ()
     other_plate: PlateReading | None = None
+    haunch: HaunchReading | None = None
 
 
 def analyse(
@@ -187,6 +192,7 @@ def analyse_joint(
     if plate_r is not None and bolt_r is not None:
         detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings, other=other_r)
     welds = read_welds(j, fr, fasteners, bsec)
+    haunch = read_haunch(j, fr, plates, members, bsec)
     weld_sizes(welds, role, bsec, bgrade, findings)
     completeness(j, plate_r, bolt_r, role, findings)
     return JointAnatomy(
@@ -201,11 +207,12 @@ def analyse_joint(
         stiffener_plates=stiff,
         web_plate_readings=web_plates,
         welds=welds,
-        unsupported=unsupported_parts(j, fr, plates, col, bsec),
+        unsupported=unsupported_parts(j, fr, plates, col, bsec, haunch),
         findings=tuple(findings),
         unread=tuple(unread),
         assumed=tuple(assumed),
         other_plate=other_r,
+        haunch=haunch,
     )
 
 

@@ -568,18 +568,106 @@ def column_plates(
     return readings, web
 
 
+@dataclass(frozen=True, slots=True)
+class HaunchReading:
+    """A haunch under the beam at the column, in mm (``read_haunch``).
+
+    Attributes:
+        guids: its plates or member.
+        d: depth below the beam's underside at the column face, to the haunch's bottom.
+        b, tf: its flange (the bottom one) at the column face; tw its web.
+        angle_deg: the flange's slope to the beam flange.
+        length: along the beam, from the column face.
+        grade: its steel grade as read, or None.
+        source: ``plates`` (a web and a flange plate) or ``member`` (a cut section).
+    """
+
+    guids: tuple[str, ...]
+    d: float
+    b: float
+    tf: float
+    tw: float
+    angle_deg: float
+    length: float
+    grade: str | None
+    source: str
+
+
+def _haunch_plates(
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], h: float | None
+) -> list[Plate]:
+    """Plates of the joint below the beam's underside that are not its end plate."""
+    if h is None:
+        return []
+    return [plates[lk.guid] for lk in j.plates if lk.role == PartRole.OTHER_PLATE
+            and fr.depth_below_top(plates[lk.guid].center) - h > 0]
+
+
+def read_haunch(
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], members: dict[str, Member],
+    bsec: ISection | None,
+) -> HaunchReading | None:
+    """The haunch under the beam, from its plates or its member (None: none, or not whole).
+
+    A haunch that cannot be read whole stays an unsupported part. Plates: the one beside the
+    beam's plane (normal across) is the web, the one facing down (normal within 45 degrees
+    of vertical) the flange; the depth runs to the flange's lowest
+    point, the length to the farthest plate end from the face. A member: a short beam right
+    under this one (``Joint.haunch_members``), its section the haunch's.
+    """
+    if bsec is None:
+        return None
+    h = bsec.h
+    hp = _haunch_plates(j, fr, plates, h)
+    if hp and not j.haunch_members:
+        webs = [p for p in hp if abs(np.dot(p.normal, fr.lat)) > 0.9]
+        flanges = [p for p in hp if abs(np.dot(p.normal, fr.n)) > 0.7]
+        if len(webs) != 1 or len(flanges) != 1 or len(hp) != 2:
+            return None
+        web, fl = webs[0], flanges[0]
+        low = max(fr.depth_below_top(p.center) + _plate_extent(p, fr.n) for p in hp)
+        reach = max(-float(np.dot(np.subtract(p.center, fr.face), fr.t))
+                    + _plate_extent(p, fr.t) for p in hp)
+        tilt = float(np.degrees(np.arccos(min(1.0, abs(float(np.dot(fl.normal, fr.n)))))))
+        return HaunchReading(
+            guids=tuple(sorted((web.guid, fl.guid))), d=low - h,
+            b=2 * _plate_extent(fl, fr.lat), tf=fl.thickness, tw=web.thickness,
+            angle_deg=tilt, length=reach,
+            grade=grade_of(fl.material, fl.texts) or grade_of(web.material, web.texts),
+            source="plates")
+    if len(j.haunch_members) == 1 and not hp:
+        m = members.get(j.haunch_members[0])
+        if m is None or not m.flange_thickness:
+            return None
+        sec = section_of(m, [], [], "haunch")
+        if sec is None:
+            return None
+        s, e = np.array(m.start, dtype=float), np.array(m.end, dtype=float)
+        near = s if np.dot(s - fr.face, fr.t) > np.dot(e - fr.face, fr.t) else e
+        low = fr.depth_below_top(near) + m.depth / 2
+        axis = unit(e - s)
+        tilt = float(np.degrees(np.arcsin(min(1.0, abs(float(np.dot(axis, fr.n)))))))
+        return HaunchReading(
+            guids=(m.guid,), d=low - h, b=sec.b, tf=sec.tf, tw=sec.tw, angle_deg=tilt,
+            length=float(np.linalg.norm(e - s)), grade=grade_of(m.material, m.texts),
+            source="member")
+    return None
+
+
 def unsupported_parts(
-    j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member, bsec: ISection | None
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member, bsec: ISection | None,
+    haunch: HaunchReading | None = None,
 ) -> tuple[tuple[UnsupportedPart, int], ...]:
     """Parts that make the joint a kind ifcjoint does not handle yet, with their counts.
 
-    A haunch (plates below the beam's bottom flange, not part of the end plate) and column
-    plates that are neither transverse stiffeners nor web plates (e.g. diagonal stiffeners).
+    A haunch that could not be read whole (plates below the beam's bottom flange, not part of
+    the end plate; ``haunch`` is the one read) and column plates that are neither transverse
+    stiffeners nor web plates (e.g. diagonal stiffeners).
     """
     out: list[tuple[UnsupportedPart, int]] = []
     h = bsec.h if bsec else None
     col_axis = unit(np.subtract(col.end, col.start))
-    haunch, diagonal = [], []
+    haunch_plates, diagonal = [], []
     for link in j.plates:
         p = plates[link.guid]
         nrm = np.array(p.normal)
@@ -587,15 +675,16 @@ def unsupported_parts(
             c = np.array(p.center)
             below = fr.depth_below_top(c) - h
             if below > 0:
-                haunch.append(p.guid)
+                haunch_plates.append(p.guid)
         if link.role in (PartRole.OTHER_PLATE, PartRole.COLUMN_PLATE):
             a_col = abs(float(nrm.dot(col_axis)))
             if 0.2 < a_col < 0.9:
                 diagonal.append(p.guid)
-    if haunch:
-        out.append((UnsupportedPart.HAUNCH_PLATES, len(haunch)))
+    read_whole = haunch is not None
+    if haunch_plates and not read_whole:
+        out.append((UnsupportedPart.HAUNCH_PLATES, len(haunch_plates)))
     if diagonal:
         out.append((UnsupportedPart.INCLINED_STIFFENER, len(diagonal)))
-    if j.haunch_members:
+    if j.haunch_members and not read_whole:
         out.append((UnsupportedPart.HAUNCH_MEMBERS, len(j.haunch_members)))
     return tuple(out)

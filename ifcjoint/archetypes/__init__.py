@@ -17,6 +17,7 @@ from ifcjoint.archetypes.end_plate import (
     EndPlateUnjudged,
     ExtendedEndPlate,
     FlushEndPlate,
+    HaunchedEndPlate,
     PartialDepthEndPlate,
 )
 from ifcjoint.archetypes.fin_plate import FinPlate
@@ -45,6 +46,7 @@ REGISTRY: tuple[JointType, ...] = (
     BeamHeaderPlate(),
     BeamFinPlate(),
     PartialDepthEndPlate(),
+    HaunchedEndPlate(),
     ExtendedEndPlate(),
     FlushEndPlate(),
     EndPlateUnjudged(),

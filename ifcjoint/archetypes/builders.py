@@ -22,6 +22,7 @@ from ifcjoint.engine.inputs import (
     FinBoltsInput,
     FinPlateInput,
     FinPlateJointInput,
+    HaunchInput,
     HeaderPlateInput,
     HeaderPlateJointInput,
     MemberInput,
@@ -284,6 +285,12 @@ def end_plate_input(
     support = support_face(joint)
     if support == "splice":
         return _splice_input(a, beam, col, base, s, st)
+    haunch = None
+    if a.haunch is not None:
+        haunch = haunch_input(a, beam, st)
+        if isinstance(haunch, NotChecked):
+            return haunch
+    depth = a.beam_section.h + (haunch.d if haunch is not None else 0.0)
     t_support = a.column_section.tf if support == "flange" else a.column_section.tw
     fub = BOLT_CLASSES[b.bolt_class][1]
     return EndPlateJointInput(
@@ -297,7 +304,7 @@ def end_plate_input(
             fy=fy_p,
             fu=fu_p,
             projection_top=p.projection_top,
-            projection_bottom=p.projection_bottom(a.beam_section.h),
+            projection_bottom=p.projection_bottom(depth),
             strength_source=s.source,
         ),
         bolts=BoltsInput(
@@ -312,8 +319,41 @@ def end_plate_input(
         ),
         alpha_method=st.alpha_method,
         support=support,
+        haunch=haunch,
         **_shared_fields(a, beam, col, st),
     )
+
+
+#: Steepest haunch flange, EN 1993-1-8:2005 6.2.6.7(2) (degrees).
+HAUNCH_MAX_ANGLE = 45.0
+
+
+def haunch_input(a: JointAnatomy, beam: MemberInput, st: CheckSettings):
+    """The haunch's engine input, or why the haunch is outside 6.2.6.7(2).
+
+    EN 1993-1-8:2005, 6.2.6.7(2): the haunch's steel grade matches the member's (its yield
+    strength not below the beam's), its flange and web not smaller than the beam's (flange
+    width and thickness, web thickness), its flange at most 45 degrees to the beam flange.
+    A haunch grade not read takes the beam's (said in the joint's notes as an assumption).
+    """
+    hr = a.haunch
+    grade = hr.grade or beam.grade
+    try:
+        _, sh = grade_strength(grade, max(hr.tf, hr.tw), st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    for what, got, least in (("yield strength", sh.fy, beam.fy - 0.5),
+                             ("flange width", hr.b, beam.b - 1.0),
+                             ("flange thickness", hr.tf, beam.tf - 0.1),
+                             ("web thickness", hr.tw, beam.tw - 0.1)):
+        if got < least:
+            return NotChecked(NotCheckedCode.HAUNCH_OUTSIDE_RULES,
+                              {"what": what, "haunch": got, "beam": least})
+    if hr.angle_deg > HAUNCH_MAX_ANGLE:
+        return NotChecked(NotCheckedCode.HAUNCH_OUTSIDE_RULES,
+                          {"what": "flange angle", "haunch": hr.angle_deg, "beam": 45.0})
+    return HaunchInput(d=hr.d, b=hr.b, tf=hr.tf, tw=hr.tw, fy=sh.fy, grade=grade,
+                       angle_deg=hr.angle_deg, length=hr.length)
 
 
 #: Two splice plates this much apart in width, depth or position are not alike (common

@@ -26,6 +26,7 @@ from ifcjoint.ec3.params import Parameters
 from ifcjoint.engine.inputs import (
     BoltsInput,
     EndPlateJointInput,
+    HaunchInput,
     JointInput,
     MemberInput,
     PlateInput,
@@ -55,6 +56,7 @@ _WELD_KEYS = frozenset(
     {"top_flange_throat", "bottom_flange_throat", "web_throat", "assumed", "flange_throat",
      "modelled"}
 )
+_HAUNCH_KEYS = frozenset({"d", "b", "tf", "tw", "fy", "grade", "angle_deg", "length"})
 _STIFFENER_KEYS = frozenset({"level", "t", "b", "fy", "grade", "snipe", "weld_leg", "guid"})
 _WEB_PLATE_KEYS = frozenset({"t", "b", "fy", "sides", "grade", "guid"})
 _DEMAND_KEYS = frozenset(
@@ -64,7 +66,7 @@ _DEMAND_KEYS = frozenset(
 _TOP_KEYS = frozenset(
     {"column", "beam", "plate", "bolts", "welds", "params", "beta", "alpha", "alpha_method",
      "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
-     "sigma_com_Ed", "double_sided", "demands", "strength_basis", "support"}
+     "sigma_com_Ed", "double_sided", "demands", "strength_basis", "support", "haunch"}
 ) | INFORMATIONAL
 
 
@@ -172,18 +174,24 @@ def member_from(d: Any, where: str, st: CheckSettings, basis: str) -> MemberInpu
     )
 
 
-def plate_from(d: Any, beam: MemberInput, st: CheckSettings, basis: str) -> PlateInput:
-    """The end plate; its height from the projections, or the bottom projection from it."""
+def plate_from(
+    d: Any, beam: MemberInput, st: CheckSettings, basis: str, depth: float | None = None
+) -> PlateInput:
+    """The end plate; its height from the projections, or the bottom projection from it.
+
+    ``depth``: the beam's with its haunch, when it has one (the bottom projection is below it).
+    """
     w = "plate"
+    depth = beam.h if depth is None else depth
     d = _keys(d, _PLATE_KEYS, w)
     tp, bp = _num(d, "tp", w), _num(d, "bp", w)
     top = _num(d, "projection_top", w, minimum=None)
     if "projection_bottom" in d:
         bottom = _num(d, "projection_bottom", w, minimum=None)
-        hp = _num(d, "hp", w, beam.h + top + bottom)
+        hp = _num(d, "hp", w, depth + top + bottom)
     else:
         hp = _num(d, "hp", w)
-        bottom = hp - top - beam.h
+        bottom = hp - top - depth
     grade = _text(d, "grade", w, beam.grade)
     if "fy" in d and "fu" in d:
         base, fy, fu, source = grade, _num(d, "fy", w), _num(d, "fu", w), "given"
@@ -277,6 +285,26 @@ def stiffeners_from(items: Any, col: MemberInput, basis: str) -> tuple[Stiffener
     return tuple(out)
 
 
+def haunch_from(d: Any, beam: MemberInput, basis: str) -> HaunchInput | None:
+    """A haunch under the beam (fy by grade, else the beam's), or None when not given."""
+    if d is None:
+        return None
+    w = "haunch"
+    d = _keys(d, _HAUNCH_KEYS, w)
+    tf, tw = _num(d, "tf", w), _num(d, "tw", w)
+    fy = d.get("fy")
+    if fy is None:
+        grade = _text(d, "grade", w, beam.grade)
+        try:
+            fy = grade_strength(grade, max(tf, tw), basis)[1].fy
+        except ValueError:
+            fy = beam.fy
+    return HaunchInput(d=_num(d, "d", w), b=_num(d, "b", w), tf=tf, tw=tw,
+                       fy=_num(d, "fy", w, float(fy)), grade=_text(d, "grade", w, beam.grade),
+                       angle_deg=_num(d, "angle_deg", w, 0.0, strict=False),
+                       length=_num(d, "length", w, 0.0, strict=False))
+
+
 def web_plates_from(items: Any, col: MemberInput, basis: str) -> tuple[WebPlateInput, ...]:
     """Supplementary web plates (fy by grade, else the column's)."""
     if not isinstance(items, list):
@@ -347,7 +375,7 @@ def input_from_description(d: Any, settings: CheckSettings | None = None) -> Joi
         raise DescriptionError(missing, "missing: an end-plate joint needs both 'plate' and "
                                         "'bolts'; a welded joint has neither")
     if not has_plate:
-        for key in ("alpha", "washer_dia", "support"):
+        for key in ("alpha", "washer_dia", "support", "haunch"):
             if d.get(key) is not None:
                 raise DescriptionError(key, "applies to an end plate; this joint has none")
         return WeldedJointInput(**shared)
@@ -355,9 +383,12 @@ def input_from_description(d: Any, settings: CheckSettings | None = None) -> Joi
     if support not in ("flange", "web", "beam_web", "splice"):
         raise DescriptionError("support", f"{support!r}: expected 'flange', 'web', 'beam_web' "
                                           "or 'splice'")
+    haunch = haunch_from(d.get("haunch"), beam, basis)
     return EndPlateJointInput(
         support=support,
-        plate=plate_from(d["plate"], beam, st, basis),
+        haunch=haunch,
+        plate=plate_from(d["plate"], beam, st, basis,
+                         beam.h + (haunch.d if haunch is not None else 0.0)),
         bolts=bolts_from(d["bolts"]),
         alpha=_num(d, "alpha", "", None),
         alpha_method=method,
@@ -390,7 +421,7 @@ def description_findings(inp: JointInput) -> list[Finding]:
     d0, rows = b.d0, b.rows_from_beam_top
     emin = dt.e_min(d0)
     top_edge = -pl.projection_top
-    bottom_edge = beam.h + pl.projection_bottom
+    bottom_edge = beam.h + (inp.haunch.d if inp.haunch is not None else 0.0) + pl.projection_bottom
     check("end_distance", rows[0] - top_edge, emin, edge="top", row=1)
     check("end_distance", bottom_edge - rows[-1], emin, edge="bottom", row=len(rows))
     e_plate = (pl.bp - b.gauge) / 2

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from ifcjoint.anatomy import JointAnatomy
-from ifcjoint.archetypes.base import JointType, end_plate_ready
+from ifcjoint.archetypes.base import JointType, bolt_count, end_plate_ready
 from ifcjoint.archetypes.builders import end_plate_input, header_plate_input
 from ifcjoint.engine.end_plate import check_end_plate_joint
 from ifcjoint.engine.header_plate import check_header_plate_joint
@@ -124,3 +124,20 @@ class EndPlateUnjudged(JointType):
         if end_plate_ready(a) and a.beam_section is None:
             return Reason(ReasonCode.DEPTH_UNKNOWN)
         return None
+
+
+class HaunchedEndPlate(_CheckedEndPlate):
+    """An end plate running down a haunch welded under the beam (EN 1993-1-8 6.2.6.7).
+
+    Tried before the other end plates: its rows below the beam are inside the haunched
+    section, not an extension. A haunch that could not be read whole leaves the joint
+    unsupported (``archetypes.unsupported``); one outside 6.2.6.7(2) is not checked, said.
+    """
+
+    archetype = Archetype.HAUNCHED_END_PLATE
+
+    def recognise(self, joint: Joint, a: JointAnatomy) -> Reason | None:
+        """An end plate with bolts and a haunch read whole."""
+        if a.haunch is None or not end_plate_ready(a):
+            return None
+        return Reason(ReasonCode.HAUNCH_END_PLATE, {"n": bolt_count(a), "d": a.haunch.d})

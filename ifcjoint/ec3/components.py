@@ -274,3 +274,49 @@ def axial_force_significant(
     joint (6.2.7.1(3), Eq. (6.24)).
     """
     return abs(N_Ed) > 0.05 * A * fy / params.gamma_M0
+
+
+#: Above this depth of a beam with its haunch, the web's share of Fc,fb,Rd is limited,
+#: EN 1993-1-8:2005, 6.2.6.7(1) (mm).
+HAUNCH_WEB_LIMIT_DEPTH = 600.0
+
+
+def haunched_W_el(h: float, b: float, tf: float, tw: float, d_h: float, b_h: float,
+                  tf_h: float, tw_h: float) -> float:
+    """Least elastic modulus of a beam with a haunch welded under it, at the column face (mm3).
+
+    EN 1993-1-1:2005 6.2.5(2) (W_el, as for a class 3 section) on the section of rectangles
+    (fillets left out, on the safe side): the beam's top flange
+    (b x tf), web (tw x (h - 2 tf)) and bottom flange (b x tf), the haunch's web
+    (tw_h x (d_h - tf_h)) and flange (b_h x tf_h) under it; I about the centroid over the
+    farther fibre (EN 1993-1-1 6.2.5(2), W_el of a class 3 section: on the safe side for
+    every class, as the haunched section's class is not classified here).
+    """
+    parts = [  # (area, centroid from the top)
+        (b * tf, tf / 2),
+        (tw * (h - 2 * tf), h / 2),
+        (b * tf, h - tf / 2),
+        (tw_h * (d_h - tf_h), h + (d_h - tf_h) / 2),
+        (b_h * tf_h, h + d_h - tf_h / 2),
+    ]
+    heights = [tf, h - 2 * tf, tf, d_h - tf_h, tf_h]
+    widths = [b, tw, b, tw_h, b_h]
+    area = sum(a for a, _ in parts)
+    yc = sum(a * y for a, y in parts) / area
+    i = sum(w * t ** 3 / 12 + a * (y - yc) ** 2
+            for (a, y), w, t in zip(parts, widths, heights, strict=True))
+    return i / max(yc, h + d_h - yc)
+
+
+def F_c_fb_Rd_haunched(M_c_Rd: float, h_total: float, t_fc: float, b_fc: float,
+                       fy: float) -> float:
+    """Flange and web in compression of a haunched beam, Fc,fb,Rd (N).
+
+    EN 1993-1-8:2005, 6.2.6.7(1): Mc,Rd / (h - t_fb) with h the depth with the haunch and
+    t_fb the compression flange's thickness; above 600 mm the web contributes at most 20 %,
+    so Fc,fb,Rd <= b t_fb f_y / 0.8 (the flange's force over 80 %).
+    """
+    f = M_c_Rd / (h_total - t_fc)
+    if h_total > HAUNCH_WEB_LIMIT_DEPTH:
+        f = min(f, b_fc * t_fc * fy / 0.8)
+    return f

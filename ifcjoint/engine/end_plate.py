@@ -20,7 +20,7 @@ tension rows.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 from ifcjoint.ec3 import components as cmp
 from ifcjoint.ec3 import effective_lengths as el
@@ -100,9 +100,12 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     """
     if inp.support in ("web", "beam_web"):  # the shear path only (no web in bending, 6.2.6)
         return check_end_plate_on_web(inp)
+    given = inp
+    if inp.haunch is not None:  # the beam with its haunch: one deeper section (6.2.6.7)
+        inp = replace(inp, beam=replace(inp.beam, h=inp.beam.h + inp.haunch.d))
     why = _out_of_scope(inp)
     if why is not None:
-        return not_checked(why, inp)
+        return not_checked(why, given)
     web = column_web(inp)
     shared = _Shared.of(inp)
     notes = [*weld_notes(inp.welds), *_alpha_note(inp), *web.notes]
@@ -115,8 +118,10 @@ def check_end_plate_joint(inp: EndPlateJointInput):
     notes.append(Note(NoteCode.SHEAR_FROM_BOLTS, _shear_summary(shared, sides[0])))
     if _splice(inp):
         notes.append(Note(NoteCode.SPLICE_PLATES, {"tp": inp.plate.tp, "fy": inp.plate.fy}))
+    if inp.haunch is not None:
+        notes.append(Note(NoteCode.HAUNCH_SECTION, {"d": inp.haunch.d, "h": inp.beam.h}))
     r = checked(
-        inp, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=None if _splice(inp) else web.v_wp_Rd,
+        given, *sides, V_j_Rd=sides[0].V_j_Rd, V_wp_Rd=None if _splice(inp) else web.v_wp_Rd,
         notes=list(unique_notes(notes)), joint_kind="bolted_end_plate",
     )
     return resistances_valid(r)
@@ -177,6 +182,8 @@ def _out_of_scope(inp: EndPlateJointInput) -> NotChecked | None:
     slender = slender_web(col)
     if slender is not None:
         return slender
+    if inp.haunch is not None:
+        return None  # the haunched section's M_c,Rd is elastic (``haunched_M_c_Rd``)
     if b.gauge / 2 - col.tw / 2 - 0.8 * col.r <= 0:
         return NotChecked(NotCheckedCode.BOLTS_IN_ROOT_RADIUS)
     mc_rd, cls = beam_M_c_Rd(beam, inp.params)
@@ -315,7 +322,11 @@ class _SideCheck:
             self.a_t, self.a_c = w.bottom_flange_throat, w.top_flange_throat
         self.proj = pl.projection_top if hog else pl.projection_bottom
         self.comp_proj = pl.projection_bottom if hog else pl.projection_top
-        self.cc = beam.h - beam.tf / 2  # centre of compression from the tension face
+        # flange thicknesses on the tension and compression sides (a haunch's flange is the
+        # bottom one of a haunched beam)
+        bottom_tf = inp.haunch.tf if inp.haunch is not None else beam.tf
+        self.tf_t, self.tf_c = (beam.tf, bottom_tf) if hog else (bottom_tf, beam.tf)
+        self.cc = beam.h - self.tf_c / 2  # centre of compression from the tension face
         # Tension rows: the half of the lever arm nearest the tension flange (common practice,
         # no source: rows near the compression flange are taken as shear rows).
         self.tension = [z for z in rows if self.cc - z > (beam.h - beam.tf) / 2]
@@ -491,7 +502,7 @@ class _SideCheck:
         self.kinds.append("first" if first else "other")
         alpha = None
         if first:
-            m2 = z - beam.tf - 0.8 * self.leg_f
+            m2 = z - self.tf_t - 0.8 * self.leg_f
             alpha = self.alpha_plate = self.alpha(self.m_p, self.e_p, m2, given=self.inp.alpha)
             cpp, ncp = el.end_plate_first_row_below_flange(self.m_p, self.e_p, alpha)
         else:
@@ -588,7 +599,7 @@ class _SideCheck:
         # 45-degree spread through the plate: tp on the beam side, and up to tp more where the
         # plate projects beyond the compression flange (6.2.6.2(1), s_p between tp and 2 tp).
         s_p = pl.tp + min(max(self.comp_proj, 0.0), pl.tp)
-        beff = cmp.b_eff_c_wc_end_plate(beam.tf, self.a_c, col.tf, col.s, s_p)
+        beff = cmp.b_eff_c_wc_end_plate(self.tf_c, self.a_c, col.tf, col.s, s_p)
         dwc = col.h - 2 * (col.tf + col.r)
         t_wc = self.web.t_compression
         om_c = cmp.omega(inp.beta, beff, col.tw, self.web.a_vc)
@@ -602,10 +613,7 @@ class _SideCheck:
         stiffened = self._stiffened_compression(beff, dwc)
         if stiffened is not None:
             column_side = max(fcwc, stiffened)
-        mc_rd, cls = beam_M_c_Rd(beam, p)
-        fcfb = cmp.F_c_fb_Rd(mc_rd, beam.h, beam.tf)
-        if cls == 3:
-            self.notes.append(Note(NoteCode.BEAM_CLASS_3, {"section": beam.name}))
+        mc_rd, cls, fcfb = self._beam_compression()
         compression = {
             Component.COLUMN_WEB_COMPRESSION if stiffened is None
             else Component.STIFFENED_WEB_COMPRESSION: column_side,
@@ -618,6 +626,28 @@ class _SideCheck:
         panel_in = {"A_vc": self.web.a_vc, "beta": inp.beta}
         self.add("6.2.6.1", Component.WEB_PANEL_SHEAR, self.web.v_wp_Rd, inputs=panel_in)
         return compression, column_side, fcfb, beff
+
+    def _beam_compression(self) -> tuple[float, int | str, float]:
+        """M_c,Rd, the section class and Fc,fb,Rd of the beam (with its haunch) (6.2.6.7).
+
+        A haunched beam: the elastic modulus of the beam and haunch together
+        (``cmp.haunched_W_el``) with the lower yield strength, over h - t_fb with h the depth
+        with the haunch and t_fb the compression flange's, and the web's share limited to
+        20 % above 600 mm (6.2.6.7(1)).
+        """
+        inp, beam, p = self.inp, self.inp.beam, self.inp.params
+        hh = inp.haunch
+        if hh is None:
+            mc_rd, cls = beam_M_c_Rd(beam, p)
+            if cls == 3:
+                self.notes.append(Note(NoteCode.BEAM_CLASS_3, {"section": beam.name}))
+            return mc_rd, cls, cmp.F_c_fb_Rd(mc_rd, beam.h, beam.tf)
+        h0 = beam.h - hh.d
+        fy = min(beam.fy, hh.fy)
+        w_el = cmp.haunched_W_el(h0, beam.b, beam.tf, beam.tw, hh.d, hh.b, hh.tf, hh.tw)
+        mc_rd = w_el * fy / p.gamma_M0
+        b_c = hh.b if self.sign == "hogging" else beam.b
+        return mc_rd, "elastic", cmp.F_c_fb_Rd_haunched(mc_rd, beam.h, self.tf_c, b_c, fy)
 
     def _stiffened_compression(self, beff: float, dwc: float) -> float | None:
         """Compression stiffeners with their strip of web (``common.stiffened_compression``)."""

@@ -160,6 +160,29 @@ class _JointInputBase:
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
+class HaunchInput:
+    """A haunch welded under the beam at the column (mm, MPa).
+
+    Attributes:
+        d: depth below the beam's underside at the column face, to the haunch's bottom.
+        b, tf: the haunch flange at the column face (its compression flange in hogging).
+        tw: the haunch web.
+        fy: the haunch's yield strength; grade its steel.
+        angle_deg: the haunch flange's slope to the beam flange.
+        length: along the beam, from the column face.
+    """
+
+    d: float
+    b: float
+    tf: float
+    tw: float
+    fy: float
+    grade: str
+    angle_deg: float
+    length: float
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
 class EndPlateJointInput(_JointInputBase):
     """A beam bolted to a column flange through an end plate (N, mm, MPa).
 
@@ -175,6 +198,7 @@ class EndPlateJointInput(_JointInputBase):
     alpha_method: str = "chart"  # "chart" (Figure 6.11, SCI P398 App. G) | "conservative" (4.45)
     washer_dia: float | None = None  # dw for the mode-1 alternative method; None: from d
     support: str = "flange"
+    haunch: HaunchInput | None = None  # rows from the beam top run down into the haunch
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -280,7 +304,7 @@ JointInput = (EndPlateJointInput | WeldedJointInput | FinPlateJointInput
 #: The order of the input's fields in the outputs (the order a calculation sheet reads).
 _RECORD_ORDER = (
     "column", "beam", "plate", "fin", "header", "bolts", "welds", "params", "beta", "alpha",
-    "alpha_method",
+    "alpha_method", "haunch",
     "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
     "sigma_com_Ed",
 )

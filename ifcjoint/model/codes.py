@@ -47,6 +47,7 @@ class Archetype(StrEnum):
     BEAM_FIN_PLATE = "beam_to_beam_fin_plate"  # on a primary beam's web
     BEAM_HEADER_PLATE = "beam_to_beam_end_plate"  # partial depth, on a primary beam's web
     END_PLATE_SPLICE = "end_plate_splice"  # two beams' end plates bolted together
+    HAUNCHED_END_PLATE = "haunched_end_plate"  # an end plate down a haunch under the beam
     INCOMPLETE = "incomplete"
     UNDETAILED = "undetailed"
     UNSUPPORTED = "unsupported"
@@ -231,6 +232,7 @@ class NotCheckedCode(StrEnum):
     SUPPORT_WEB_OTHER_SIDE_MISSING = "support_web_other_side_missing"  # no partner reaction
     WEB_BENDING_NOT_COVERED = "web_bending_not_covered"  # an end plate on a web: no moment
     SPLICE_PLATES_DIFFER = "splice_plates_differ"  # a splice's two plates not alike
+    HAUNCH_OUTSIDE_RULES = "haunch_outside_rules"  # EN 1993-1-8 6.2.6.7(2) not met
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
@@ -267,6 +269,7 @@ class ReasonCode(StrEnum):
     ROWS_WITHIN = "rows_within"
     FIN_PLATE_BOLTS = "fin_plate_bolts"
     SPLICE_PLATES_BOLTS = "splice_plates_bolts"
+    HAUNCH_END_PLATE = "haunch_end_plate"
     SPLICE_PLATE_MISSING = "splice_plate_missing"  # one end plate and bolts, the other absent
     SPLICE_BARE = "splice_bare"  # two beam ends meeting with no plates or bolts
     ON_FACE = "on_face"
@@ -288,6 +291,7 @@ class NoteCode(StrEnum):
 
     WELDS_ASSUMED = "welds_assumed"
     SPLICE_PLATES = "splice_plates"  # a beam splice: both plates as the weaker one, no column
+    HAUNCH_SECTION = "haunch_section"  # a haunched beam: one deeper section at the column
     BEAM_WEB_UNNOTCHED = "beam_web_unnotched"
     FIN_PLATE_PINNED = "fin_plate_pinned"
     BOLT_SHEAR_GOVERNS = "bolt_shear_governs"

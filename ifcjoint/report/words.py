@@ -77,6 +77,10 @@ REASONS: dict[ReasonCode, Words] = {
         "two beam ends meet end to end with no plates, bolts or welds modelled: the splice "
         "is not detailed"
     ),
+    ReasonCode.HAUNCH_END_PLATE: lambda v: (
+        f"end plate with {v['n']} bolt(s) running down a haunch {v['d']:.0f} mm deep under "
+        "the beam"
+    ),
     ReasonCode.SPLICE_PLATES_BOLTS: lambda v: (
         f"two end plates bolted together with {v['n']} bolt(s): a beam splice"
     ),
@@ -120,6 +124,11 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
     ),
+    NotCheckedCode.HAUNCH_OUTSIDE_RULES: lambda v: (
+        f"the haunch's {v['what']} ({v['haunch']:g}) is below the beam's ({v['beam']:g})"
+        if v["what"] != "flange angle" else
+        f"the haunch's flange slopes {v['haunch']:.0f} degrees (more than 45)"
+    ) + ": outside EN 1993-1-8 6.2.6.7(2), the haunched joint is not checked",
     NotCheckedCode.SPLICE_PLATES_DIFFER: lambda v: (
         f"the splice's two end plates differ ({v['what']}: {v['this']:g} and {v['other']:g} "
         "mm): the check takes two alike plates; not checked"
@@ -280,6 +289,13 @@ NOTES: dict[NoteCode, Words] = {
         f"(Table 3.4) on the plate {v['fb_plate'] / 1e3:.0f} kN and on the "
         f"{'other plate' if v.get('splice') else 'column flange'} {v['fb_col'] / 1e3:.0f} kN "
         "per bolt"
+    ),
+    NoteCode.HAUNCH_SECTION: lambda v: (
+        f"haunch {v['d']:.0f} mm deep under the beam: the joint is checked as a beam "
+        f"{v['h']:.0f} mm deep, the haunch's flange the compression flange in hogging; "
+        "Fc,fb,Rd from the elastic modulus of beam and haunch together, the web's share "
+        "limited to 20 % above 600 mm (EN 1993-1-8 6.2.6.7(1)); rows in the haunch take the "
+        "beam's web in tension (the haunch's web is at least as thick, 6.2.6.7(2))"
     ),
     NoteCode.SPLICE_PLATES: lambda v: (
         f"beam splice: both end plates taken as the weaker one (t_p {v['tp']:g} mm, f_y "

@@ -19,7 +19,7 @@ from ifcjoint.report.results import result_dict
 from tests.conftest import SAMPLES
 
 CHECKED = (Archetype.EXTENDED_END_PLATE, Archetype.FLUSH_END_PLATE, Archetype.WELDED,
-           Archetype.END_PLATE_SPLICE)
+           Archetype.END_PLATE_SPLICE, Archetype.HAUNCHED_END_PLATE)
 
 
 def test_demo_joints_checked_or_told_why(scan_cached):

@@ -197,3 +197,22 @@ def test_end_plates_on_column_webs_are_checked_in_shear_never_passed(build_varia
         r = jc.capacity
         assert r.joint_kind == "end_plate_on_web" and r.V_j_Rd > 0
         assert NotCheckedCode.WEB_BENDING_NOT_COVERED in {g.code for g in r.gaps}
+
+
+def test_haunches_read_whole_are_checked_or_told_why(build_variant):
+    # plates (web 10, flange 180 x 14 under an IPE 400: 6.2.6.7(2) holds): checked as one
+    # deeper section; a cut IPE 200 in S275 under the S355 IPE 400 (flange 100 x 8.5):
+    # outside 6.2.6.7(2), the first rule broken named (its grade)
+    import ifcjoint
+    from ifcjoint.model.codes import NotCheckedCode
+
+    for options, checked in ((dict(haunch=True, relations="assembly"), True),
+                             (dict(haunch=True, haunch_member=True, relations="none"), False)):
+        path, _ = build_variant(**options)
+        mc = ifcjoint.check(path)
+        (jc,) = [x for x in mc.joints if x.joint.archetype == "haunched_end_plate"]
+        if checked:
+            assert jc.capacity.checked and jc.capacity.input.haunch.d == pytest.approx(264.0)
+        else:
+            assert jc.capacity.not_checked.code == NotCheckedCode.HAUNCH_OUTSIDE_RULES
+            assert jc.capacity.not_checked.values["what"] == "yield strength"
