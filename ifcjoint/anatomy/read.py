@@ -600,6 +600,7 @@ def _haunch_plates(
     if h is None:
         return []
     return [plates[lk.guid] for lk in j.plates if lk.role == PartRole.OTHER_PLATE
+            and plates[lk.guid].shape == "flat"
             and fr.depth_below_top(plates[lk.guid].center) - h > 0]
 
 
@@ -661,15 +662,19 @@ def unsupported_parts(
     """Parts that make the joint a kind ifcjoint does not handle yet, with their counts.
 
     A haunch that could not be read whole (plates below the beam's bottom flange, not part of
-    the end plate; ``haunch`` is the one read) and column plates that are neither transverse
-    stiffeners nor web plates (e.g. diagonal stiffeners).
+    the end plate; ``haunch`` is the one read), column plates that are neither transverse
+    stiffeners nor web plates (e.g. diagonal stiffeners), and short sections that are not
+    plates (angle cleats, tees: ``Plate.shape``).
     """
     out: list[tuple[UnsupportedPart, int]] = []
     h = bsec.h if bsec else None
     col_axis = unit(np.subtract(col.end, col.start))
     haunch_plates, diagonal = [], []
+    sections = [lk.guid for lk in j.plates if plates[lk.guid].shape != "flat"]
     for link in j.plates:
         p = plates[link.guid]
+        if p.shape != "flat":
+            continue
         nrm = np.array(p.normal)
         if link.role == PartRole.OTHER_PLATE and h is not None:
             c = np.array(p.center)
@@ -685,6 +690,8 @@ def unsupported_parts(
         out.append((UnsupportedPart.HAUNCH_PLATES, len(haunch_plates)))
     if diagonal:
         out.append((UnsupportedPart.INCLINED_STIFFENER, len(diagonal)))
+    if sections:
+        out.append((UnsupportedPart.SECTION_PARTS, len(sections)))
     if j.haunch_members and not read_whole:
         out.append((UnsupportedPart.HAUNCH_MEMBERS, len(j.haunch_members)))
     return tuple(out)

@@ -6,6 +6,8 @@ taken from a documented default that is reported as assumed. No IFC here.
 
 from __future__ import annotations
 
+import numpy as np
+
 from ifcjoint.anatomy import JointAnatomy
 from ifcjoint.catalogue.materials import (
     BOLT_CLASSES,
@@ -49,6 +51,30 @@ def support_face(joint: Joint) -> str:
     if joint.beam_to_beam:
         return "beam_web"
     return "web" if joint.axis != Axis.MAJOR else "flange"
+
+
+def notch_needed(joint: Joint, a: JointAnatomy, members: dict[str, Member]) -> str:
+    """Which flanges of a secondary beam clash with its primary beam's (it must be notched).
+
+    Common practice, no source: a secondary flange above the underside of the primary's top
+    flange and its root (or below the top of its bottom flange and root) clashes with it
+    where the secondary's end lies within the primary's flange width. Returns ``top``,
+    ``bottom``, ``both`` or ``""`` (none, or not a beam-to-beam joint).
+    """
+    if not joint.beam_to_beam or a.beam_section is None or a.column_section is None:
+        return ""
+    prim, ps, bs = members[joint.column], a.column_section, a.beam_section
+    s, e = np.array(prim.start, dtype=float), np.array(prim.end, dtype=float)
+    w = e - s
+    p = np.array(joint.point, dtype=float)
+    k = float(np.clip(np.dot(p - s, w) / max(float(np.dot(w, w)), 1e-9), 0.0, 1.0))
+    mid_z = float((s + k * w)[2])  # the primary's centreline height there
+    top_clear = (mid_z + ps.h / 2 - ps.tf - ps.r) - (p[2] + bs.h / 2)
+    bottom_clear = (p[2] - bs.h / 2) - (mid_z - ps.h / 2 + ps.tf + ps.r)
+    if joint.gap >= ps.b / 2 - ps.tw / 2:  # the end stops clear of the flange tips
+        return ""
+    top, bottom = top_clear < -1.0, bottom_clear < -1.0
+    return "both" if top and bottom else "top" if top else "bottom" if bottom else ""
 
 
 def require_major_axis(joint: Joint) -> NotChecked | None:
@@ -478,6 +504,7 @@ def fin_plate_input(
             rows_from_beam_top=tuple(rows),
         ),
         support=support_face(joint),
+        notch=notch_needed(joint, a, members),
     )
 
 
@@ -517,4 +544,5 @@ def header_plate_input(
             rows_from_beam_top=tuple(rows),
         ),
         support=support_face(joint),
+        notch=notch_needed(joint, a, members),
     )

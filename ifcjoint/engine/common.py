@@ -335,6 +335,8 @@ def pinned_result(
     """
     shear = [c for c in comps if EN_1993_1_8.components[c.component].zone == Zone.SHEAR]
     gov = min(shear, key=lambda c: c.F_Rd)
+    if getattr(inp, "notch", ""):  # a notched beam's web and its stability: not checked
+        gaps = [*gaps, NotChecked(NotCheckedCode.NOTCH_NOT_CHECKED, {"where": inp.notch})]
     d = inp.bolts.d
     if inp.welds.assumed:
         notes = [*notes, Note(NoteCode.WELDS_ASSUMED, {"a_top": 0.0, "a_bottom": 0.0,

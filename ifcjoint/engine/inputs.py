@@ -259,6 +259,7 @@ class FinPlateJointInput(_JointInputBase):
     fin: FinPlateInput
     bolts: FinBoltsInput
     support: str = "flange"
+    notch: str = ""  # "top", "bottom" or "both": the beam must be notched at a primary beam
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
@@ -294,6 +295,7 @@ class HeaderPlateJointInput(_JointInputBase):
     header: HeaderPlateInput
     bolts: FinBoltsInput
     support: str = "flange"
+    notch: str = ""  # "top", "bottom" or "both": the beam must be notched at a primary beam
 
 
 #: Any input of the beam-to-column engines.

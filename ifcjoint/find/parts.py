@@ -122,6 +122,8 @@ def _plate_role(z: _Zone, p: Plate, col_frames: Frames, ci: int, reach: float) -
     ``end_plate``; a plate beside the beam web, within its depth, is a ``fin_plate``; anything
     else (a haunch below the beam, an inclined stiffener) is an ``other_plate``.
     """
+    if p.shape != "flat":  # an angle cleat or other short section: never a plate role
+        return PartRole.OTHER_PLATE
     nrm = np.array(p.normal)
     c = np.array(p.center)
     idx = np.array([ci])

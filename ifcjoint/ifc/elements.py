@@ -63,6 +63,18 @@ def _orient(axis: np.ndarray) -> np.ndarray:
     return axis
 
 
+
+#: Open sections read as parts of a joint (cleats), not as plates or members.
+SECTION_PART_PROFILES = frozenset({"IfcLShapeProfileDef", "IfcTShapeProfileDef",
+                                   "IfcUShapeProfileDef", "IfcCShapeProfileDef",
+                                   "IfcZShapeProfileDef"})
+#: A member this short with such a profile is a part (a cleat), mm (common practice, no
+#: source: cleats and brackets run to a few hundred millimetres).
+SECTION_PART_MAX_LENGTH = 1500.0
+#: A plate's body fills at least this share of its box; below, it is some other section
+#: (common practice, no source: holes and chamfers take a few per cent).
+FLAT_FILL = 0.6
+
 class ElementReader:
     """Reads members, plates and fasteners of one model into mm, collecting what fails."""
 
@@ -158,6 +170,12 @@ class ElementReader:
             return
         if self._flat_and_short(size * self.s, prof):
             # A plate exported as a beam or member (e.g. a "PL20*250" flat): read as a plate.
+            self.plate_members += 1
+            self._plate_from_boxes(el, boxes)
+            return
+        if (prof is not None and prof.ifc_type in SECTION_PART_PROFILES
+                and size[2] * self.s <= SECTION_PART_MAX_LENGTH):
+            # A short angle or tee (a cleat): a part of a joint, never a member of the frame.
             self.plate_members += 1
             self._plate_from_boxes(el, boxes)
             return
@@ -315,6 +333,12 @@ class ElementReader:
         center = main.center() * self.s
         holes = []
         prof = main.profile
+        shape, t = "flat", size[n]
+        if prof is not None and (prof.ifc_type in SECTION_PART_PROFILES
+                                 or (prof.fill is not None and prof.fill < FLAT_FILL)):
+            # an angle, a tee, a channel: its box is not a plate; its leg is the thickness
+            shape = prof.ifc_type if prof.ifc_type in SECTION_PART_PROFILES else "section"
+            t = min(x for x in (prof.tf, prof.tw, size[n] / self.s) if x) * self.s
         for hx, hy, dia in prof.extra.get("holes", ()) if prof is not None else ():
             p = main.origin + main.axes[:, 0] * hx + main.axes[:, 1] * hy
             p = p * self.s
@@ -337,9 +361,10 @@ class ElementReader:
             main.axes[:, v],
             size[u] / 2,
             size[v] / 2,
-            size[n],
+            t,
             "extrusion",
             holes=holes,
+            shape=shape,
         )
 
     def _opening_holes(self, el, center, normal) -> list:
@@ -382,7 +407,9 @@ class ElementReader:
             out.append((tuple(float(x) for x in c), float(sum(across) / 2)))
         return out
 
-    def _add_plate(self, el, center, normal, u, v, hu, hv, t, source, holes=()) -> None:
+    def _add_plate(
+        self, el, center, normal, u, v, hu, hv, t, source, holes=(), shape="flat"
+    ) -> None:
         _finite(el, center, normal, u, v, hu, hv, t, *(h[0] for h in holes))
         mat, _ = self.lookups.material(el)
         self.plates.append(
@@ -401,12 +428,20 @@ class ElementReader:
                 geometry_source=source,
                 holes=tuple(holes),
                 texts=self.lookups.all_texts(el, mat),
+                shape=shape,
             )
         )
 
     def plate_from_mesh(self, el, v: np.ndarray, fcs: np.ndarray) -> None:
         """A plate from its tessellated body."""
         box = principal_box(v, fcs)
+        # the body's share of its box (divergence theorem), trusted only on a closed mesh
+        # whose faces all point out (their area vectors then sum to zero)
+        tri = v[np.asarray(fcs)]
+        cross = np.cross(tri[:, 1] - tri[:, 0], tri[:, 2] - tri[:, 0])
+        closed = np.linalg.norm(cross.sum(0)) <= 1e-6 * np.linalg.norm(cross, axis=1).sum()
+        volume = abs(float(np.einsum("ij,ij->i", tri[:, 0], cross).sum())) / 6
+        filled = volume / max(float(np.prod(box.size)), 1e-12) if closed else 1.0
         self._add_plate(
             el,
             box.center,
@@ -417,6 +452,7 @@ class ElementReader:
             box.size[1] / 2,
             box.size[2],
             "mesh",
+            shape="flat" if filled >= FLAT_FILL else "section",
         )
 
     # fasteners

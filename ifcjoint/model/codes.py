@@ -233,6 +233,7 @@ class NotCheckedCode(StrEnum):
     WEB_BENDING_NOT_COVERED = "web_bending_not_covered"  # an end plate on a web: no moment
     SPLICE_PLATES_DIFFER = "splice_plates_differ"  # a splice's two plates not alike
     HAUNCH_OUTSIDE_RULES = "haunch_outside_rules"  # EN 1993-1-8 6.2.6.7(2) not met
+    NOTCH_NOT_CHECKED = "notch_not_checked"  # a secondary beam that must be notched
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
@@ -284,6 +285,7 @@ class UnsupportedPart(StrEnum):
     HAUNCH_PLATES = "haunch_plates"
     INCLINED_STIFFENER = "inclined_stiffener"
     HAUNCH_MEMBERS = "haunch_members"
+    SECTION_PARTS = "section_parts"  # angle cleats, tees: short open sections at the joint
 
 
 class NoteCode(StrEnum):

@@ -104,6 +104,9 @@ class Plate:
     geometry_source: str = "extrusion"
     holes: tuple[tuple[Vec3, float], ...] = ()  # (centre on the mid-plane, diameter), mm
     texts: tuple[str, ...] = ()
+    #: ``flat`` for a plate; a short open section read as a part (an angle cleat, a tee), by
+    #: its profile type, or ``section`` for a body far from a flat box: not a plate to check
+    shape: str = "flat"
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

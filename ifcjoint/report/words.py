@@ -41,6 +41,9 @@ _PARTS: dict[UnsupportedPart, Words] = {
     UnsupportedPart.HAUNCH_PLATES: lambda v: f"haunch below the beam ({v['n']} plate(s))",
     UnsupportedPart.INCLINED_STIFFENER: lambda v: f"inclined column stiffener ({v['n']} plate(s))",
     UnsupportedPart.HAUNCH_MEMBERS: lambda v: f"haunch below the beam ({v['n']} member(s))",
+    UnsupportedPart.SECTION_PARTS: lambda v: (
+        f"{v['n']} angle cleat(s) or other short section(s) at the joint, not plates: angle "
+        "cleats are not checked yet"),
 }
 
 
@@ -123,6 +126,11 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.PINNED_NO_MOMENT: lambda v: (
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
+    ),
+    NotCheckedCode.NOTCH_NOT_CHECKED: lambda v: (
+        f"the beam's {v['where']} flange reaches into the primary beam's flange: the beam must "
+        "be notched there, and a notched web (its shear, bending and stability at the notch) "
+        "is not checked"
     ),
     NotCheckedCode.HAUNCH_OUTSIDE_RULES: lambda v: (
         f"the haunch's {v['what']} ({v['haunch']:g}) is below the beam's ({v['beam']:g})"

@@ -68,3 +68,28 @@ def test_missing_grade_is_not_checked(scan_cached):
     out = end_plate_input(j, a, members)
     assert isinstance(out, NotChecked) and out.code == NotCheckedCode.DATA_NOT_READ
     assert out.values["missing"] == ("beam grade",)
+
+
+def test_a_secondary_flush_with_the_primary_top_must_be_notched():
+    # IPE 400 primary (top at z 4000; tf 13.5, r 21: from memory), IPE 200 secondary
+    # (tf 8.5, r 12) ending 10 mm off the primary web: with its top flush, its top flange
+    # runs into the primary's; 50 mm lower it clears the flange and its root (34.5 mm).
+    from types import SimpleNamespace
+
+    from ifcjoint.archetypes.builders import notch_needed
+    from ifcjoint.catalogue.sections import section_from_designation
+    from ifcjoint.model.codes import Support
+    from ifcjoint.model.elements import Member
+
+    prim = Member(guid="P", ifc_class="IfcBeam", name="P", kind="beam", start=(0, 0, 3800.0),
+                  end=(6000, 0, 3800.0), depth_dir=(0, 0, 1.0), width_dir=(0, 1.0, 0),
+                  depth=400.0, width=180.0)
+    a = SimpleNamespace(beam_section=section_from_designation("IPE 200"),
+                        column_section=section_from_designation("IPE 400"))
+    for top, want in ((4000.0, "top"), (3950.0, ""), (3800.0 + 200 - 186.5 + 10, "bottom")):
+        j = SimpleNamespace(beam_to_beam=True, column="P", gap=10.0,
+                            point=(3000.0, 4.3, top - 100.0), support=Support.BEAM)
+        assert notch_needed(j, a, {"P": prim}) == want, top
+    far = SimpleNamespace(beam_to_beam=True, column="P", gap=120.0, point=(3000.0, 4.3, 3900.0),
+                          support=Support.BEAM)
+    assert notch_needed(far, a, {"P": prim}) == ""  # stops clear of the flange tips
