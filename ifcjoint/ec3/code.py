@@ -47,6 +47,17 @@ class Component(StrEnum):
     HEADER_WELD = "header_plate_weld"
     PLATE_LTB = "fin_plate_lateral_torsional_buckling"
     ON_WEB_BOLTS = "end_plate_on_web_bolts"
+    CLEAT_WEB_BOLTS = "cleat_web_side_bolt_group"
+    CLEAT_BEARING = "cleat_bearing_web_side"
+    CLEAT_BEAM_WEB_BEARING = "cleat_beam_web_bearing"
+    CLEAT_SUPPORT_BOLTS = "cleat_support_side_bolts"
+    CLEAT_SUPPORT_BEARING = "cleat_support_side_bearing"
+    CLEAT_SHEAR = "cleat_shear"
+    CLEAT_BEAM_WEB_BLOCK = "cleat_beam_web_block_tearing"
+    TIE_CLEAT_BENDING = "tie_cleat_bending"
+    TIE_CLEAT_BEARING = "tie_cleat_bearing"
+    TIE_CLEAT_BLOCK_TEARING = "tie_cleat_block_tearing"
+    TIE_BEAM_WEB_BLOCK_TEARING = "tie_beam_web_block_tearing"
     SUPPORT_WEB_SHEAR = "supporting_web_local_shear"
     TIE_BOLT_SHEAR = "tie_bolt_shear"
     TIE_PLATE_BEARING = "tie_fin_plate_bearing"
@@ -211,6 +222,43 @@ COMPONENTS: dict[Component, ComponentInfo] = {
         name="bolts in shear and bearing (end plate on a web)",
         formula="V_Rd = 2 n_t min(F_v,Rd / 3.5, F_b,Rd) + 2 (n - n_t) min(F_v,Rd, F_b,Rd), "
         "F_b,Rd the least on the plate and on the web", zone=Zone.SHEAR),
+    Component.CLEAT_WEB_BOLTS: ComponentInfo(
+        name="web-side bolt group in double shear (eccentric)",
+        formula="V_Rd = 2 n F_v,Rd / sqrt((1 + alpha n)^2 + (beta n)^2)", zone=Zone.SHEAR),
+    Component.CLEAT_BEARING: ComponentInfo(
+        name="web-side bolts in bearing on the two cleats",
+        formula="V_Rd = 2 n / sqrt(((1 + alpha n) / F_b,ver,Rd)^2 + (beta n / F_b,hor,Rd)^2)",
+        zone=Zone.SHEAR),
+    Component.CLEAT_BEAM_WEB_BEARING: ComponentInfo(
+        name="web-side bolts in bearing on the beam web",
+        formula="V_Rd = n / sqrt(((1 + alpha n) / F_b,ver,Rd)^2 + (beta n / F_b,hor,Rd)^2)",
+        zone=Zone.SHEAR),
+    Component.CLEAT_SUPPORT_BOLTS: ComponentInfo(
+        name="support-side bolts in shear", formula="V_Rd = 0.8 n_s F_v,Rd", zone=Zone.SHEAR),
+    Component.CLEAT_SUPPORT_BEARING: ComponentInfo(
+        name="support-side bolts in bearing (cleats, support)",
+        formula="V_Rd = n_s min(F_b,Rd on a cleat, F_b,Rd on the support)", zone=Zone.SHEAR),
+    Component.CLEAT_SHEAR: ComponentInfo(
+        name="cleats in shear (gross, net, block tearing; the least, either leg)",
+        formula="2 min(h_a t_a f_y / (sqrt 3 gamma_M0), A_v,net f_u / (sqrt 3 gamma_M2), "
+        "0.5 f_u A_nt / gamma_M2 + f_y A_nv / (sqrt 3 gamma_M0))", zone=Zone.SHEAR),
+    Component.CLEAT_BEAM_WEB_BLOCK: ComponentInfo(
+        name="beam web, block tearing at a notch",
+        formula="V_Rd = 0.5 f_u A_nt / gamma_M2 + f_y A_nv / (sqrt 3 gamma_M0)",
+        zone=Zone.SHEAR),
+    Component.TIE_CLEAT_BENDING: ComponentInfo(
+        name="tying: cleats in bending (support-side legs as T-stubs)",
+        formula="N_Rd = 2 min(4 M_pl / m, (2 M_pl + n sum F_t) / (m + n), sum F_t), "
+        "M_pl = 0.25 h_a t_a^2 f_y / gamma_Mu", zone=Zone.TYING),
+    Component.TIE_CLEAT_BEARING: ComponentInfo(
+        name="tying: web-side bolts in bearing on the cleats",
+        formula="N_Rd = 2 n k1 alpha_b f_u d t_a / gamma_Mu (horizontal)", zone=Zone.TYING),
+    Component.TIE_CLEAT_BLOCK_TEARING: ComponentInfo(
+        name="tying: cleats, block tearing",
+        formula="N_Rd = f_u A_nt / gamma_Mu + f_y A_nv / (sqrt(3) gamma_M0)", zone=Zone.TYING),
+    Component.TIE_BEAM_WEB_BLOCK_TEARING: ComponentInfo(
+        name="tying: beam web, block tearing",
+        formula="N_Rd = f_u A_nt / gamma_Mu + f_y A_nv / (sqrt(3) gamma_M0)", zone=Zone.TYING),
     Component.SUPPORT_WEB_SHEAR: ComponentInfo(
         name="supporting web, local shear",
         formula="V_Rd = 2 h_p t_w f_y / (sqrt(3) gamma_M0), against the reactions of both sides",

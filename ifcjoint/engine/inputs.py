@@ -298,14 +298,61 @@ class HeaderPlateJointInput(_JointInputBase):
     notch: str = ""  # "top", "bottom" or "both": the beam must be notched at a primary beam
 
 
+@dataclass(frozen=True, slots=True, kw_only=True)
+class CleatInput:
+    """Two angle cleats, one each side of the beam web (mm, MPa).
+
+    Attributes:
+        t: leg thickness; hp: length (up the web); fy, fu, grade: their steel.
+        e1: from the top and bottom bolt rows to the cleats' ends (the least).
+        e2_web: from the web-side bolt line to the edge of the leg on the beam web.
+        e2_sup: from a support-side bolt line to the edge of the leg on the support.
+        cross_centres: between the two support-side bolt lines (across the web).
+        r: root radius of the angle.
+        z: lever arm, from the support face to the web-side bolt line.
+    """
+
+    t: float
+    hp: float
+    fy: float
+    fu: float
+    grade: str
+    e1: float
+    e2_web: float
+    e2_sup: float
+    cross_centres: float
+    r: float
+    z: float
+    strength_source: str = ""
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class AngleCleatJointInput(_JointInputBase):
+    """A beam with double angle web cleats bolted to its web and to the support.
+
+    ``bolts`` are the web-side bolts (one line of ``n1`` rows, in double shear); the support
+    side has one line per cleat of the same rows (``n1`` each). ``e1_beam``: from the top row
+    to the beam web's top edge when the beam is notched (None: unnotched); ``e2_beam``: from
+    the web-side line to the beam end. ``support``: ``flange``, ``web`` or ``beam_web``.
+    """
+
+    cleats: CleatInput
+    bolts: FinBoltsInput
+    e2_beam: float
+    e1_beam: float | None = None
+    washer_dia: float | None = None
+    support: str = "flange"
+
+
 #: Any input of the beam-to-column engines.
 JointInput = (EndPlateJointInput | WeldedJointInput | FinPlateJointInput
-              | HeaderPlateJointInput)
+              | HeaderPlateJointInput | AngleCleatJointInput)
 
 
 #: The order of the input's fields in the outputs (the order a calculation sheet reads).
 _RECORD_ORDER = (
-    "column", "beam", "plate", "fin", "header", "bolts", "welds", "params", "beta", "alpha",
+    "column", "beam", "plate", "fin", "header", "cleats", "bolts", "welds", "params", "beta",
+    "alpha",
     "alpha_method", "haunch",
     "column_continues_above", "braced", "stiffeners", "web_plates", "washer_dia",
     "sigma_com_Ed",

@@ -288,7 +288,7 @@ def verify_combination(
 
 
 #: Joint kinds that are nominally pinned: shear only, no moment (``verify_pinned``).
-PINNED_KINDS = frozenset({"fin_plate", "header_plate"})
+PINNED_KINDS = frozenset({"fin_plate", "header_plate", "angle_cleats"})
 #: Joint kinds verified in shear alone: the pinned ones, and an end plate on a web, whose
 #: moment EN 1993-1-8 does not determine (a gap of its result, never a pass).
 SHEAR_ONLY_KINDS = PINNED_KINDS | {"end_plate_on_web"}
