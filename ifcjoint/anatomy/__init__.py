@@ -12,11 +12,17 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from ifcjoint.anatomy.detailing import completeness, detailing, weld_sizes
+from ifcjoint.anatomy.detailing import (
+    cleat_bolt_lengths,
+    completeness,
+    detailing,
+    weld_sizes,
+)
 from ifcjoint.anatomy.frame import joint_frame
 from ifcjoint.anatomy.read import (
     BoltReading,
     BoltRow,
+    CleatReading,
     HaunchReading,
     PlateReading,
     StiffenerReading,
@@ -25,6 +31,7 @@ from ifcjoint.anatomy.read import (
     column_plates,
     grade_of,
     read_bolts,
+    read_cleats,
     read_haunch,
     read_plate,
     read_welds,
@@ -35,7 +42,7 @@ from ifcjoint.anatomy.read import (
 )
 from ifcjoint.anatomy.rules import RULES, TOUCH_TOLERANCE
 from ifcjoint.catalogue.sections import ISection
-from ifcjoint.model.codes import PartRole, Support, UnsupportedPart
+from ifcjoint.model.codes import Axis, PartRole, Support, UnsupportedPart
 from ifcjoint.model.elements import Fastener, Member, ModelContents, Plate
 from ifcjoint.model.joints import Finding, Joint
 
@@ -44,6 +51,7 @@ __all__ = [
     "AnatomySettings",
     "BoltReading",
     "BoltRow",
+    "CleatReading",
     "HaunchReading",
     "JointAnatomy",
     "PlateReading",
@@ -89,6 +97,7 @@ class JointAnatomy:
         assumed: what was assumed by the user's settings, in words.
         other_plate: a splice's second end plate (on the other beam), or None.
         haunch: the haunch under the beam, read whole, or None.
+        cleats: double angle web cleats, read whole, or None.
     """
 
     joint_id: str
@@ -108,6 +117,7 @@ class JointAnatomy:
     assumed: tuple[str, ...] = ()
     other_plate: PlateReading | None = None
     haunch: HaunchReading | None = None
+    cleats: CleatReading | None = None
 
 
 def analyse(
@@ -193,8 +203,13 @@ def analyse_joint(
         detailing(j, fr, plate_r, bolt_r, bolt_list, csec, findings, other=other_r)
     welds = read_welds(j, fr, fasteners, bsec)
     haunch = read_haunch(j, fr, plates, members, bsec)
+    cleats = read_cleats(j, fr, plates, fasteners)
+    if cleats is not None:
+        cleat_bolt_lengths(cleats, bolt_r.d if bolt_r is not None else None, fasteners, bsec,
+                           csec, j.axis != Axis.MAJOR or j.beam_to_beam, findings)
     weld_sizes(welds, role, bsec, bgrade, findings)
-    completeness(j, plate_r, bolt_r, role, findings)
+    if cleats is None:  # the cleats hold the bolts: nothing missing
+        completeness(j, plate_r, bolt_r, role, findings)
     return JointAnatomy(
         joint_id=j.id,
         main_role=role,
@@ -207,12 +222,13 @@ def analyse_joint(
         stiffener_plates=stiff,
         web_plate_readings=web_plates,
         welds=welds,
-        unsupported=unsupported_parts(j, fr, plates, col, bsec, haunch),
+        unsupported=unsupported_parts(j, fr, plates, col, bsec, haunch, cleats is not None),
         findings=tuple(findings),
         unread=tuple(unread),
         assumed=tuple(assumed),
         other_plate=other_r,
         haunch=haunch,
+        cleats=cleats,
     )
 
 

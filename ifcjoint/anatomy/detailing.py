@@ -304,3 +304,30 @@ def weld_sizes(
         need = full_strength_fillet_throat(t, s.fy, s.fu, BETA_W.get(g.grade, 1.0))
         if rule.broken(w.throat, need):
             out.append(rule.finding(w.throat, need, (w.guid,), location=w.location, t=t))
+
+
+def cleat_bolt_lengths(
+    c, d: float | None, fs: dict, bsec: ISection | None, csec: ISection | None,
+    support_web: bool, out: list[Finding],
+) -> None:
+    """Bolts of angle cleats too short for their plies (``bolt_too_short``).
+
+    The web side clamps both cleats and the beam web (2 t_a + t_w), the support side one
+    cleat and the support (its flange, or its web when the beam meets a web).
+    """
+    rule = RULES["bolt_too_short"]
+    plies = []
+    if bsec is not None:
+        plies.append((c.web_bolts, 2 * c.t + bsec.tw))
+    if csec is not None:
+        plies.append((c.sup_bolts, c.t + (csec.tw if support_web else csec.tf)))
+    for guids, grip in plies:
+        bolts = [fs[g] for g in guids if g in fs]
+        if d is None or not bolts:
+            continue
+        need = dt.required_bolt_length(grip, d)
+        short = [b for b in bolts if rule.broken(b.nominal_length or b.length, need)]
+        if short:
+            ln = min(b.nominal_length or b.length for b in short)
+            out.append(rule.finding(ln, need, tuple(b.guid for b in short), count=len(short),
+                                    grip=grip))

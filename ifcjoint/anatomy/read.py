@@ -655,9 +655,109 @@ def read_haunch(
     return None
 
 
+@dataclass(frozen=True, slots=True)
+class CleatReading:
+    """Double angle web cleats as read, in mm (``read_cleats``).
+
+    Attributes:
+        guids: the two angles; t their leg thickness; hp their length up the web.
+        top_from_beam_top: the cleats' top end below the beam's top.
+        rows: the web-side bolt rows below the beam's top; p1 the least pitch.
+        z: from the support face to the web-side bolt line.
+        e1: from the end rows to the cleats' ends (the least).
+        e2_web: from the web-side line to the toes of the legs on the web.
+        e2_sup: from the support-side bolts to the toes of the legs on the support.
+        cross_centres: between the support-side bolt lines.
+        e2_beam: from the web-side line to the beam end.
+        r: the angles' root radius, if read; grade their steel.
+        n_web, n_sup: web-side and support-side bolts; web_bolts, sup_bolts their GlobalIds.
+    """
+
+    guids: tuple[str, ...]
+    t: float
+    hp: float
+    top_from_beam_top: float
+    rows: tuple[float, ...]
+    p1: float
+    z: float
+    e1: float
+    e2_web: float
+    e2_sup: float
+    cross_centres: float
+    e2_beam: float
+    r: float | None
+    grade: str | None
+    n_web: int
+    n_sup: int
+    web_bolts: tuple[str, ...] = ()
+    sup_bolts: tuple[str, ...] = ()
+
+
+def read_cleats(
+    j: Joint, fr: JointFrame, plates: dict[str, Plate], fasteners: dict[str, Fastener]
+) -> CleatReading | None:
+    """Two angles either side of the beam web, bolted to it and to the support, or None.
+
+    Each angle (a part read from an L profile, with its legs) has one leg beside the web
+    (its normal across the beam) and one on the support face (its normal along the beam),
+    on opposite sides of the web. The bolts whose axis runs across the beam are the web
+    side's (one line), those along the beam the support side's. Anything else: None.
+    """
+    angles = [plates[lk.guid] for lk in j.plates if len(plates[lk.guid].legs) == 2]
+    if len(angles) != 2 or len(j.plates) != 2:
+        return None
+    web_legs, sup_legs = [], []
+    for a in angles:
+        legs = {abs(float(np.dot(g.normal, fr.lat))) > 0.9: g for g in a.legs}
+        if True not in legs or False not in legs:
+            return None
+        w, s_ = legs[True], legs[False]
+        if abs(float(np.dot(s_.normal, fr.t))) < 0.9:
+            return None
+        web_legs.append(w)
+        sup_legs.append(s_)
+    sides = [float(np.dot(np.subtract(w.center, fr.face), fr.lat)) for w in web_legs]
+    if sides[0] * sides[1] >= 0:
+        return None  # both on one side of the web
+    bolts = [fasteners[f.guid] for f in j.fasteners if f.role == PartRole.BOLT]
+    web_b = [b for b in bolts if abs(float(np.dot(b.axis, fr.lat))) > 0.9]
+    sup_b = [b for b in bolts if abs(float(np.dot(b.axis, fr.t))) > 0.9]
+    if not web_b or not sup_b or len(web_b) + len(sup_b) != len(bolts):
+        return None
+    along = [float(np.dot(np.subtract(b.center, fr.face), fr.t)) for b in web_b]
+    if max(along) - min(along) > 5.0:
+        return None  # one line only
+    line = sum(along) / len(along)
+    rows = sorted(fr.depth_below_top(b.center) for b in web_b)
+    w0 = web_legs[0]
+    half = w0.half_along
+    top = fr.depth_below_top(w0.center) - half
+    toe_web = min(float(np.dot(np.add(w.center, np.multiply(w.across, w.half_across))
+                               - fr.face, fr.t)) for w in web_legs)
+    sup_lat = [float(np.dot(np.subtract(b.center, fr.face), fr.lat)) for b in sup_b]
+    e2_sup = []
+    for g in sup_legs:
+        toe = float(np.dot(np.add(g.center, np.multiply(g.across, g.half_across)) - fr.face,
+                           fr.lat))
+        mine = [y for y in sup_lat if y * toe > 0]
+        if not mine:
+            return None
+        e2_sup.append(min(abs(toe - y) for y in mine))
+    return CleatReading(
+        guids=tuple(sorted(a.guid for a in angles)), t=min(g.thickness for g in web_legs),
+        hp=2 * half, top_from_beam_top=top, rows=tuple(rows),
+        p1=min((b - a for a, b in zip(rows, rows[1:], strict=False)), default=0.0),
+        z=-line, e1=min(rows[0] - top, top + 2 * half - rows[-1]),
+        e2_web=line - toe_web, e2_sup=min(e2_sup),
+        cross_centres=max(sup_lat) - min(sup_lat), e2_beam=-line - j.gap,
+        r=angles[0].root_radius, grade=grade_of(angles[0].material, angles[0].texts),
+        n_web=len(web_b), n_sup=len(sup_b), web_bolts=tuple(b.guid for b in web_b),
+        sup_bolts=tuple(b.guid for b in sup_b))
+
+
 def unsupported_parts(
     j: Joint, fr: JointFrame, plates: dict[str, Plate], col: Member, bsec: ISection | None,
-    haunch: HaunchReading | None = None,
+    haunch: HaunchReading | None = None, cleats_read: bool = False,
 ) -> tuple[tuple[UnsupportedPart, int], ...]:
     """Parts that make the joint a kind ifcjoint does not handle yet, with their counts.
 
@@ -670,7 +770,8 @@ def unsupported_parts(
     h = bsec.h if bsec else None
     col_axis = unit(np.subtract(col.end, col.start))
     haunch_plates, diagonal = [], []
-    sections = [lk.guid for lk in j.plates if plates[lk.guid].shape != "flat"]
+    sections = [] if cleats_read else [
+        lk.guid for lk in j.plates if plates[lk.guid].shape != "flat"]
     for link in j.plates:
         p = plates[link.guid]
         if p.shape != "flat":

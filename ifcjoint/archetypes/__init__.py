@@ -11,6 +11,7 @@ from __future__ import annotations
 from dataclasses import replace
 
 from ifcjoint.anatomy import JointAnatomy
+from ifcjoint.archetypes.angle_cleats import AngleCleats
 from ifcjoint.archetypes.base import JointType
 from ifcjoint.archetypes.beam_to_beam import BeamFinPlate, BeamHeaderPlate
 from ifcjoint.archetypes.end_plate import (
@@ -42,6 +43,7 @@ from ifcjoint.model.joints import Joint
 
 #: Every archetype, in the order recognition tries them (the first that recognises wins).
 REGISTRY: tuple[JointType, ...] = (
+    AngleCleats(),
     Incomplete(),
     BeamHeaderPlate(),
     BeamFinPlate(),

@@ -16,10 +16,13 @@ from ifcjoint.catalogue.materials import (
     steel_strength,
 )
 from ifcjoint.catalogue.sections import ISection
+from ifcjoint.ec3 import detailing as dt
 from ifcjoint.ec3.bolts import TENSILE_STRESS_AREA, bolt_elongation_length
 from ifcjoint.ec3.components import BETA_W, full_strength_fillet_throat
 from ifcjoint.engine.inputs import (
+    AngleCleatJointInput,
     BoltsInput,
+    CleatInput,
     EndPlateJointInput,
     FinBoltsInput,
     FinPlateInput,
@@ -504,6 +507,58 @@ def fin_plate_input(
             rows_from_beam_top=tuple(rows),
         ),
         support=support_face(joint),
+        notch=notch_needed(joint, a, members),
+    )
+
+
+def angle_cleat_input(
+    joint: Joint, a: JointAnatomy, members: dict[str, Member], settings: CheckSettings | None = None
+) -> AngleCleatJointInput | NotChecked:
+    """The engine input for double angle web cleats, or the reason it cannot be checked.
+
+    One web-side line of ``n`` rows and ``2 n`` support-side bolts; the distances as read
+    (``anatomy.read.read_cleats``), each at least Table 3.3's minimum for Table 3.4's
+    bearing formula (EN 1993-1-8 3.5), else not checked with the distance named.
+    """
+    st = settings or CheckSettings()
+    members_in = beam_and_column(joint, a, members, st, (("bolts", a.bolts),), minor_axis=True)
+    if isinstance(members_in, NotChecked):
+        return members_in
+    beam, col = members_in
+    b, c = a.bolts, a.cleats
+    if b.d is None or b.bolt_class is None or b.d0 is None:
+        return NotChecked(NotCheckedCode.BOLT_DATA_MISSING)
+    if int(round(b.d)) not in TENSILE_STRESS_AREA:
+        return NotChecked(NotCheckedCode.NO_TENSILE_AREA, {"d": b.d})
+    if c.n_sup != 2 * c.n_web or len(c.rows) != c.n_web:
+        return NotChecked(NotCheckedCode.CLEAT_BOLT_PATTERN,
+                          {"web": c.n_web, "support": c.n_sup})
+    e_least = dt.e_min(b.d0)
+    checks = [("e1 (cleat)", c.e1, e_least), ("e2 (cleat, web leg)", c.e2_web, e_least),
+              ("e2 (cleat, support leg)", c.e2_sup, e_least),
+              ("e2 (beam web)", c.e2_beam, e_least)]
+    if c.n_web > 1:
+        checks.append(("p1", c.p1, dt.p1_min(b.d0)))
+    for what, value, least in checks:
+        if value < least - 0.5:
+            return NotChecked(NotCheckedCode.BEARING_OUT_OF_RANGE,
+                              {"what": what, "value": value, "limit": least})
+    try:
+        base, s = grade_strength(c.grade or a.beam_grade, c.t, st.strength_basis)
+    except ValueError as exc:
+        return NotChecked(NotCheckedCode.STRENGTH_UNAVAILABLE, {"error": str(exc)})
+    return AngleCleatJointInput(
+        column=col, beam=beam,
+        welds=WeldsInput(top_flange_throat=0.0, bottom_flange_throat=0.0, web_throat=0.0,
+                         assumed=False),
+        params=st.params, braced=st.braced,
+        cleats=CleatInput(t=c.t, hp=c.hp, fy=s.fy, fu=s.fu, grade=base, e1=c.e1,
+                          e2_web=c.e2_web, e2_sup=c.e2_sup, cross_centres=c.cross_centres,
+                          r=c.r or 0.0, z=c.z, strength_source=s.source),
+        bolts=FinBoltsInput(d=b.d, grade=b.bolt_class, fub=BOLT_CLASSES[b.bolt_class][1],
+                            As=TENSILE_STRESS_AREA[int(round(b.d))], d0=b.d0, n1=c.n_web,
+                            n2=1, p1=c.p1, gauge=0.0, rows_from_beam_top=c.rows),
+        e2_beam=c.e2_beam, support=support_face(joint),
         notch=notch_needed(joint, a, members),
     )
 

@@ -342,6 +342,7 @@ class AngleCleatJointInput(_JointInputBase):
     e1_beam: float | None = None
     washer_dia: float | None = None
     support: str = "flange"
+    notch: str = ""  # "top", "bottom" or "both": the beam must be notched at a primary beam
 
 
 #: Any input of the beam-to-column engines.

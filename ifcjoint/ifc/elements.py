@@ -20,7 +20,7 @@ from ifcjoint.ifc.relations import storey_names
 from ifcjoint.ifc.solids import SolidBox, cut_boxes, solid_boxes, walk
 from ifcjoint.ifc.texts import ElementTexts
 from ifcjoint.model.codes import FastenerKind, MemberKind, SteelState
-from ifcjoint.model.elements import Fastener, Member, Plate, Progress, Unreadable
+from ifcjoint.model.elements import Fastener, Member, Plate, PlateLeg, Progress, Unreadable
 
 #: Property names (lower case, no spaces) read for bolt sizes.
 _SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
@@ -333,12 +333,13 @@ class ElementReader:
         center = main.center() * self.s
         holes = []
         prof = main.profile
-        shape, t = "flat", size[n]
+        shape, t, legs = "flat", size[n], ()
         if prof is not None and (prof.ifc_type in SECTION_PART_PROFILES
                                  or (prof.fill is not None and prof.fill < FLAT_FILL)):
             # an angle, a tee, a channel: its box is not a plate; its leg is the thickness
             shape = prof.ifc_type if prof.ifc_type in SECTION_PART_PROFILES else "section"
             t = min(x for x in (prof.tf, prof.tw, size[n] / self.s) if x) * self.s
+            legs = self._legs(main, prof)
         for hx, hy, dia in prof.extra.get("holes", ()) if prof is not None else ():
             p = main.origin + main.axes[:, 0] * hx + main.axes[:, 1] * hy
             p = p * self.s
@@ -365,6 +366,8 @@ class ElementReader:
             "extrusion",
             holes=holes,
             shape=shape,
+            legs=legs if shape != "flat" else (),
+            root_radius=(prof.r * self.s if legs and prof.r else None),
         )
 
     def _opening_holes(self, el, center, normal) -> list:
@@ -407,8 +410,26 @@ class ElementReader:
             out.append((tuple(float(x) for x in c), float(sum(across) / 2)))
         return out
 
+    def _legs(self, box, prof) -> tuple[PlateLeg, ...]:
+        """An angle's legs in world coordinates (mm), from its L profile (none otherwise)."""
+        out = []
+        zmid = (box.lo[2] + box.hi[2]) / 2
+        half_len = (box.hi[2] - box.lo[2]) / 2 * self.s
+        t = prof.extra.get("thickness", 0.0) * self.s
+        for (cx, cy), (ax, ay), (nx, ny), length in prof.extra.get("legs", ()):
+            c = (box.origin + box.axes @ np.array([cx, cy, zmid])) * self.s
+            out.append(PlateLeg(
+                center=tuple(float(x) for x in c),
+                normal=tuple(float(x) for x in _unit(box.axes @ np.array([nx, ny, 0.0]))),
+                across=tuple(float(x) for x in _unit(box.axes @ np.array([ax, ay, 0.0]))),
+                along=tuple(float(x) for x in _unit(box.axes[:, 2])),
+                half_across=float(length) * self.s / 2, half_along=float(half_len),
+                thickness=float(t)))
+        return tuple(out)
+
     def _add_plate(
-        self, el, center, normal, u, v, hu, hv, t, source, holes=(), shape="flat"
+        self, el, center, normal, u, v, hu, hv, t, source, holes=(), shape="flat", legs=(),
+        root_radius=None,
     ) -> None:
         _finite(el, center, normal, u, v, hu, hv, t, *(h[0] for h in holes))
         mat, _ = self.lookups.material(el)
@@ -429,6 +450,8 @@ class ElementReader:
                 holes=tuple(holes),
                 texts=self.lookups.all_texts(el, mat),
                 shape=shape,
+                legs=tuple(legs),
+                root_radius=root_radius,
             )
         )
 

@@ -300,13 +300,34 @@ def _circle_hollow(q: _Profile) -> ProfileInfo:
 
 
 def _open_shape(q: _Profile) -> ProfileInfo:
-    """L, U, C, Z and T shapes: their overall box (the corner offsets are not needed here)."""
+    """L, U, C, Z and T shapes: their overall box; an L's two legs as rectangles.
+
+    An L (IFC's ``IfcLShapeProfileDef``): the heel at the negative corner of the box centred
+    on the profile's position, one leg of the width along x, the other of the depth along y,
+    both ``Thickness`` thick. ``extra["legs"]``: for each leg, its centre, its direction along
+    the leg and its normal (through its thickness), in the profile's placement, with its
+    length (mm, in the file's units).
+    """
     h = q["Depth"]
     b = q.opt("Width", "FlangeWidth") or h
     tw = q.opt("WebThickness", "Thickness")
     tf = q.opt("FlangeThickness", "Thickness") or tw
     area = (b * (tf or 0) + h * (tw or 0)) if tw else None
-    return q.sym(b, h, area=area, h=h, b=b, tw=tw, tf=tf)
+    info = q.sym(b, h, area=area, h=h, b=b, tw=tw, tf=tf)
+    if q.t == "IfcLShapeProfileDef" and tw:
+        t = float(tw)
+        rot, off = q.m[:2, :2], q.m[:2, 2]
+        legs = []
+        for centre, along, normal, length in (
+            ((0.0, -h / 2 + t / 2), (1.0, 0.0), (0.0, 1.0), b),
+            ((-b / 2 + t / 2, 0.0), (0.0, 1.0), (1.0, 0.0), h),
+        ):
+            legs.append((tuple(rot @ np.array(centre) + off), tuple(rot @ np.array(along)),
+                         tuple(rot @ np.array(normal)), float(length)))
+        info.extra["legs"] = legs
+        info.extra["thickness"] = t
+        info.r = q.opt("FilletRadius")
+    return info
 
 
 def _ellipse(q: _Profile) -> ProfileInfo:

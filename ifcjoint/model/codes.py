@@ -48,6 +48,7 @@ class Archetype(StrEnum):
     BEAM_HEADER_PLATE = "beam_to_beam_end_plate"  # partial depth, on a primary beam's web
     END_PLATE_SPLICE = "end_plate_splice"  # two beams' end plates bolted together
     HAUNCHED_END_PLATE = "haunched_end_plate"  # an end plate down a haunch under the beam
+    ANGLE_CLEATS = "angle_cleats"  # double angle web cleats
     INCOMPLETE = "incomplete"
     UNDETAILED = "undetailed"
     UNSUPPORTED = "unsupported"
@@ -62,7 +63,8 @@ class Archetype(StrEnum):
     def pinned(self) -> bool:
         """True for the nominally pinned kinds (checked in shear; no moment)."""
         return self in (Archetype.FIN_PLATE, Archetype.PARTIAL_DEPTH_END_PLATE,
-                        Archetype.BEAM_FIN_PLATE, Archetype.BEAM_HEADER_PLATE)
+                        Archetype.BEAM_FIN_PLATE, Archetype.BEAM_HEADER_PLATE,
+                        Archetype.ANGLE_CLEATS)
 
 
 class Axis(StrEnum):
@@ -234,6 +236,7 @@ class NotCheckedCode(StrEnum):
     SPLICE_PLATES_DIFFER = "splice_plates_differ"  # a splice's two plates not alike
     HAUNCH_OUTSIDE_RULES = "haunch_outside_rules"  # EN 1993-1-8 6.2.6.7(2) not met
     NOTCH_NOT_CHECKED = "notch_not_checked"  # a secondary beam that must be notched
+    CLEAT_BOLT_PATTERN = "cleat_bolt_pattern"  # not one web line and two support lines alike
     TYING_NOT_CHECKED = "tying_not_checked"  # an axial force on a fin plate joint
     NOT_DUCTILE = "not_ductile"  # the rules that make a fin plate nominally pinned fail
     FIN_BOLT_PATTERN = "fin_bolt_pattern"  # not one or two regular lines within the plate
@@ -271,6 +274,7 @@ class ReasonCode(StrEnum):
     FIN_PLATE_BOLTS = "fin_plate_bolts"
     SPLICE_PLATES_BOLTS = "splice_plates_bolts"
     HAUNCH_END_PLATE = "haunch_end_plate"
+    ANGLE_CLEATS_BOLTS = "angle_cleats_bolts"
     SPLICE_PLATE_MISSING = "splice_plate_missing"  # one end plate and bolts, the other absent
     SPLICE_BARE = "splice_bare"  # two beam ends meeting with no plates or bolts
     ON_FACE = "on_face"

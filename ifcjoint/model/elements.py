@@ -72,6 +72,25 @@ class Member:
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)
+class PlateLeg:
+    """One flat leg of an angle, as a plate box (mm).
+
+    Attributes:
+        center: centre of the leg; normal: through its thickness; across: along the leg's
+        width (from the heel to its toe); along: along the angle's length.
+        half_across, half_along: half extents; thickness: the leg's.
+    """
+
+    center: Vec3
+    normal: Vec3
+    across: Vec3
+    along: Vec3
+    half_across: float
+    half_along: float
+    thickness: float
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
 class Plate:
     """A plate reduced to its mid-plane box.
 
@@ -107,6 +126,8 @@ class Plate:
     #: ``flat`` for a plate; a short open section read as a part (an angle cleat, a tee), by
     #: its profile type, or ``section`` for a body far from a flat box: not a plate to check
     shape: str = "flat"
+    legs: tuple[PlateLeg, ...] = ()  # an angle's two legs (read from an L profile)
+    root_radius: float | None = None  # an angle's, from its profile
 
 
 @dataclass(frozen=True, slots=True, kw_only=True)

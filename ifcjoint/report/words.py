@@ -80,6 +80,9 @@ REASONS: dict[ReasonCode, Words] = {
         "two beam ends meet end to end with no plates, bolts or welds modelled: the splice "
         "is not detailed"
     ),
+    ReasonCode.ANGLE_CLEATS_BOLTS: lambda v: (
+        f"two angle cleats either side of the beam web with {v['n']} bolt(s): nominally pinned"
+    ),
     ReasonCode.HAUNCH_END_PLATE: lambda v: (
         f"end plate with {v['n']} bolt(s) running down a haunch {v['d']:.0f} mm deep under "
         "the beam"
@@ -126,6 +129,11 @@ NOT_CHECKED: dict[NotCheckedCode, Words] = {
     NotCheckedCode.PINNED_NO_MOMENT: lambda v: (
         "nominally pinned joint: it has no moment resistance (EN 1993-1-8 5.2.2.2); the "
         "analysis must give it no moment"
+    ),
+    NotCheckedCode.CLEAT_BOLT_PATTERN: lambda v: (
+        f"angle cleats with {v['web']} web-side and {v['support']} support-side bolt(s): the "
+        "check takes one line through the web and one line of as many rows on each cleat's "
+        "support leg"
     ),
     NotCheckedCode.NOTCH_NOT_CHECKED: lambda v: (
         f"the beam's {v['where']} flange reaches into the primary beam's flange: the beam must "

@@ -52,9 +52,10 @@ def test_a_new_type_registered_is_recognised_and_checked(scan_cached):
 
 
 def test_the_registry_order_decides_overlaps(scan_cached):
-    # Incomplete is tried first: a plate without bolts is incomplete even though an end-plate
-    # type would also look at it.
-    assert type(REGISTRY[0]).__name__ == "Incomplete"
+    # Angle cleats first (their bolts have no plate, which Incomplete would take for
+    # missing parts), then Incomplete: a plate without bolts is incomplete even though an
+    # end-plate type would also look at it.
+    assert [type(t).__name__ for t in REGISTRY[:2]] == ["AngleCleats", "Incomplete"]
 
 
 def test_a_plate_short_of_a_flange_is_never_checked_as_a_moment_joint(scan_cached):

@@ -253,7 +253,7 @@ def test_angle_cleats_are_parts_not_plates_or_columns(cls, tmp_path):
                None)
     col.Representation = m.rep([m.extrude(m.ishape("HEB300", 300, 300, 11, 19, 27),
                                           m.a2p((0, 0, 0)), (0, 0, -1.0), 6000.0)])
-    beam = m.el("IfcBeam", "Beam", m.place((160.0, 0, TOP - 165.0), (1.0, 0, 0), (0, 0, 1.0)),
+    beam = m.el("IfcBeam", "Beam", m.place((160.0, 0, TOP - 165.0), (1.0, 0, 0), (0, 1.0, 0)),
                 None)
     beam.Representation = m.rep([m.extrude(m.ishape("IPE330", 330, 160, 7.5, 11.5, 18),
                                            m.a2p((0, 0, 0)), (0, 0, 1.0), 5000.0)])
@@ -287,4 +287,81 @@ def test_angle_cleats_are_parts_not_plates_or_columns(cls, tmp_path):
     (j,) = r.joints
     assert {p.role for p in j.plates} == {"other_plate"}
     assert j.archetype == Archetype.UNSUPPORTED
+    assert dict(r.anatomy[j.id].unsupported)[UnsupportedPart.SECTION_PARTS] == 2
+
+
+def _cleat_joint(m: Model, rows=(85.0, 155.0, 225.0), with_support_bolts=True):
+    """A beam on a column flange with two L 90 x 90 x 10 cleats, 240 long, fully bolted.
+
+    Beam end 10 mm off the flange face (x = 150); the cleats' heels on the face, each beside
+    the web (t_w 7.5); web-side line 50 mm from the face, support-side lines 50 mm from the
+    web faces (cross-centres 107.5): every end and edge distance 40 mm.
+    """
+    f = m.f
+    col = m.el("IfcColumn", "Column HEB300", m.place((0, 0, 6000.0), None, (0.0, -1.0, 0)),
+               None)
+    col.Representation = m.rep([m.extrude(m.ishape("HEB300", 300, 300, 11, 19, 27),
+                                          m.a2p((0, 0, 0)), (0, 0, -1.0), 6000.0)])
+    beam = m.el("IfcBeam", "Beam", m.place((160.0, 0, TOP - 165.0), (1.0, 0, 0), (0, 1.0, 0)),
+                None)
+    beam.Representation = m.rep([m.extrude(m.ishape("IPE330", 330, 160, 7.5, 11.5, 18),
+                                           m.a2p((0, 0, 0)), (0, 0, 1.0), 5000.0)])
+    cleats, bolts = [], []
+    for side in (1, -1):
+        prof = f.createIfcLShapeProfileDef(
+            "AREA", "L90X90X10", f.createIfcAxis2Placement2D(
+                f.createIfcCartesianPoint([0.0, 0.0]), None), 90.0, 90.0, 10.0, 11.0, None,
+            None)
+        z0 = TOP - 285.0 if side > 0 else TOP - 45.0
+        cleat = m.el("IfcPlate", "L90X90X10",
+                     m.place((195.0, side * 48.75, z0), (0, 0, float(side)), (1.0, 0, 0)),
+                     m.rep([m.extrude(prof, m.a2p((0, 0, 0)), (0, 0, 1.0), 240.0)]))
+        cleats.append(cleat)
+    for row in rows:
+        bolts.append(_bolt(m, "body", (200.0, 20.0, TOP - row), (0.0, -1.0, 0.0), "IFC4"))
+        for y in ((53.75, -53.75) if with_support_bolts else ()):
+            bolts.append(_bolt(m, "body", (165.0, y, TOP - row), (-1.0, 0.0, 0.0), "IFC4"))
+    st = f.create_entity("IfcBuildingStorey", GlobalId=ifcopenshell.guid.new(), Name="L1",
+                         ObjectPlacement=m.place((0, 0, 0)))
+    f.create_entity("IfcRelContainedInSpatialStructure", GlobalId=ifcopenshell.guid.new(),
+                    RelatedElements=[col, beam, *cleats, *bolts], RelatingStructure=st)
+    steel = f.createIfcMaterial("S275JR")
+    f.create_entity("IfcRelAssociatesMaterial", GlobalId=ifcopenshell.guid.new(),
+                    RelatedObjects=[col, beam, *cleats], RelatingMaterial=steel)
+    return cleats, bolts
+
+
+def test_double_angle_web_cleats_are_read_and_checked(tmp_path):
+    import ifcjoint
+    from ifcjoint.model.codes import Archetype
+
+    m = Model("IFC4")
+    cleats, bolts = _cleat_joint(m)
+    path = tmp_path / "cleats.ifc"
+    m.f.write(str(path))
+    r = scan(path)
+    (j,) = r.joints
+    assert j.archetype == Archetype.ANGLE_CLEATS, (j.archetype, j.archetype_reason)
+    c = r.anatomy[j.id].cleats
+    assert (c.t, c.hp, c.n_web, c.n_sup) == pytest.approx((10.0, 240.0, 3, 6))
+    assert c.rows == pytest.approx((85.0, 155.0, 225.0)) and c.p1 == pytest.approx(70.0)
+    assert (c.z, c.e1, c.e2_web, c.e2_sup, c.e2_beam) == pytest.approx(
+        (50.0, 40.0, 40.0, 40.0, 40.0), abs=0.01)
+    assert c.cross_centres == pytest.approx(107.5) and c.r == pytest.approx(11.0)
+    assert j.findings == ()  # 80 mm bolts: grips 27.5 (web side) and 29 (support side)
+    mc = ifcjoint.check(path)
+    res = mc.joints[0].capacity
+    assert res.checked and res.joint_kind == "angle_cleats" and res.V_j_Rd > 0
+
+
+def test_cleats_without_support_bolts_are_not_read_as_cleats(tmp_path):
+    from ifcjoint.model.codes import UnsupportedPart
+
+    m = Model("IFC4")
+    _cleat_joint(m, with_support_bolts=False)
+    path = tmp_path / "cleats.ifc"
+    m.f.write(str(path))
+    r = scan(path)
+    (j,) = r.joints
+    assert r.anatomy[j.id].cleats is None and j.archetype == "unsupported"
     assert dict(r.anatomy[j.id].unsupported)[UnsupportedPart.SECTION_PARTS] == 2
