@@ -29,6 +29,11 @@ from ifcjoint.model.identity import joint_id
 from ifcjoint.model.joints import Joint, OtherBeamEnd, ScanResult
 
 
+#: Largest angle between two beams meeting end to end that is still a splice (degrees;
+#: common practice, no source: roof apexes are pitched up to about 10 degrees each way).
+SPLICE_KINK_DEG = 20.0
+
+
 @dataclass(slots=True)
 class _Ends:
     """Every beam end as arrays: index k = 2 i (start of beam i) and 2 i + 1 (its end)."""
@@ -354,7 +359,9 @@ def _classify_free_ends(
         dz = np.maximum(np.maximum(-loc[:, 2], loc[:, 2] - length), 0)
         dist = np.sqrt(dx**2 + dy**2 + dz**2)
         near_other_end = (loc[:, 2] <= reach) | (loc[:, 2] >= length - reach)
-        collinear = np.abs(a[:, 2]) >= math.cos(math.radians(10))
+        # in line within SPLICE_KINK_DEG: a straight splice, or an apex of a roof pitched up
+        # to half of it each way
+        collinear = np.abs(a[:, 2]) >= math.cos(math.radians(SPLICE_KINK_DEG))
         for k in np.flatnonzero(dist <= reach):
             e = int(ei[k])
             splice = near_other_end[k] and collinear[k]

@@ -271,3 +271,15 @@ def test_a_skewed_or_sloping_secondary_is_not_a_web_joint():
     r = find_joints(model(ms))
     assert ("SK", "start") not in by_beam(r)
     assert others(r)[("SK", "start")].kind == "beam_to_beam"
+
+
+def test_an_apex_of_a_pitched_roof_is_a_splice():
+    # two rafters pitched 8 degrees, meeting at the ridge 10 mm apart: a splice (apex),
+    # within SPLICE_KINK_DEG (20) between them; one joint, the other beam as its "column"
+    rise = 5000 * math.tan(math.radians(8))
+    ms = [beam("R1", (0, 0, 3800), (5000, 0, 3800 + rise)),
+          beam("R2", (5010, 0, 3800 + rise), (10010, 0, 3800))]
+    r = find_joints(model(ms))
+    (j,) = r.joints
+    assert j.support == "splice" and (j.beam, j.beam_end, j.column) == ("R1", "end", "R2")
+    assert others(r)[("R2", "start")].joint == j.id
