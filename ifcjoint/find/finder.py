@@ -28,7 +28,6 @@ from ifcjoint.model.elements import Member, ModelContents, Progress
 from ifcjoint.model.identity import joint_id
 from ifcjoint.model.joints import Joint, OtherBeamEnd, ScanResult
 
-
 #: Largest angle between two beams meeting end to end that is still a splice (degrees;
 #: common practice, no source: roof apexes are pitched up to about 10 degrees each way).
 SPLICE_KINK_DEG = 20.0
@@ -332,6 +331,23 @@ def _other(beam: Member, end: str, kind: EndKind, other: str | None, pt) -> Othe
     )
 
 
+def _other_beams_near(
+    ends: _Ends, unresolved: list[int], reach: float
+) -> tuple[Frames, np.ndarray, np.ndarray]:
+    """The beams' frames, and (end, other beam) pairs whose padded plan box holds the end.
+
+    Candidates from an STRtree of the beams' plan boxes padded by ``reach``, every end at
+    once; an end's own beam left out.
+    """
+    bf = Frames.of(ends.beams)
+    tree = shapely.STRtree(plan_boxes(ends.beams, reach))
+    idx = np.array(unresolved)
+    ei, bi = tree.query(shapely.points(ends.points[idx, 0], ends.points[idx, 1]))
+    ei = idx[ei]
+    keep = ends.beam_of[ei] != bi
+    return bf, ei[keep], bi[keep]
+
+
 def _classify_free_ends(
     ends: _Ends, unresolved: list[int], st: FinderSettings
 ) -> list[OtherBeamEnd]:
@@ -341,13 +357,7 @@ def _classify_free_ends(
         return out
     reach = st.tolerance + st.end_plate_allowance
     beams = ends.beams
-    bf = Frames.of(beams)
-    tree = shapely.STRtree(plan_boxes(beams, reach))
-    idx = np.array(unresolved)
-    ei, bi = tree.query(shapely.points(ends.points[idx, 0], ends.points[idx, 1]))
-    ei = idx[ei]
-    keep = ends.beam_of[ei] != bi
-    ei, bi = ei[keep], bi[keep]
+    bf, ei, bi = _other_beams_near(ends, unresolved, reach)
     kind: dict[int, tuple[int, EndKind, float]] = {}
     if len(ei):
         loc = bf.local(bi, ends.points[ei])
@@ -394,13 +404,7 @@ def _beam_web_hits(
         return []
     reach = st.tolerance + st.end_plate_allowance
     beams = ends.beams
-    bf = Frames.of(beams)
-    tree = shapely.STRtree(plan_boxes(beams, reach))
-    idx = np.array(unresolved)
-    ei, bi = tree.query(shapely.points(ends.points[idx, 0], ends.points[idx, 1]))
-    ei = idx[ei]
-    keep = ends.beam_of[ei] != bi
-    ei, bi = ei[keep], bi[keep]
+    bf, ei, bi = _other_beams_near(ends, unresolved, reach)
     if not len(ei):
         return []
     loc = bf.local(bi, ends.points[ei])

@@ -240,57 +240,8 @@ def test_double_sided_extended_end_plate_joint(case, tmp_path):
         assert an.beam_section.name == "IPE 330" and an.column_section.name == "HEB 300"
 
 
-@pytest.mark.parametrize("cls", ["IfcPlate", "IfcMember"])
-def test_angle_cleats_are_parts_not_plates_or_columns(cls, tmp_path):
-    # Two L 90 x 90 x 10 cleats (IfcLShapeProfileDef, 250 long, upright) either side of the
-    # beam web at its end, bolted through it: read as short sections, never as 90 mm plates
-    # or as columns; the joint is unsupported, saying why, never checked as an end plate.
-    from ifcjoint.model.codes import Archetype, UnsupportedPart
-
-    m = Model("IFC4")
-    f = m.f
-    col = m.el("IfcColumn", "Column HEB300", m.place((0, 0, 6000.0), None, (0.0, -1.0, 0)),
-               None)
-    col.Representation = m.rep([m.extrude(m.ishape("HEB300", 300, 300, 11, 19, 27),
-                                          m.a2p((0, 0, 0)), (0, 0, -1.0), 6000.0)])
-    beam = m.el("IfcBeam", "Beam", m.place((160.0, 0, TOP - 165.0), (1.0, 0, 0), (0, 1.0, 0)),
-                None)
-    beam.Representation = m.rep([m.extrude(m.ishape("IPE330", 330, 160, 7.5, 11.5, 18),
-                                           m.a2p((0, 0, 0)), (0, 0, 1.0), 5000.0)])
-    cleats, bolts = [], []
-    for side in (1, -1):
-        prof = f.createIfcLShapeProfileDef(
-            "AREA", "L90X90X10", f.createIfcAxis2Placement2D(
-                f.createIfcCartesianPoint([0.0, 0.0]), None), 90.0, 90.0, 10.0, 11.0, None,
-            None)
-        cleat = m.el(cls, "L90X90X10", m.place((150.0 + 45.0, side * (3.75 + 45.0),
-                                                TOP - 290.0)),
-                     m.rep([m.extrude(prof, m.a2p((0, 0, 0)), (0, 0, 1.0), 250.0)]))
-        cleats.append(cleat)
-    for z in (TOP - 100.0, TOP - 200.0):
-        bolts.append(_bolt(m, "body", (210.0, 30.0, z), (0.0, -1.0, 0.0), "IFC4"))
-    st = f.create_entity("IfcBuildingStorey", GlobalId=ifcopenshell.guid.new(), Name="L1",
-                         ObjectPlacement=m.place((0, 0, 0)))
-    f.create_entity("IfcRelContainedInSpatialStructure", GlobalId=ifcopenshell.guid.new(),
-                    RelatedElements=[col, beam, *cleats, *bolts], RelatingStructure=st)
-    steel = f.createIfcMaterial("S355J0")
-    f.create_entity("IfcRelAssociatesMaterial", GlobalId=ifcopenshell.guid.new(),
-                    RelatedObjects=[col, beam, *cleats], RelatingMaterial=steel)
-    path = tmp_path / "cleats.ifc"
-    f.write(str(path))
-    r = scan(path)
-    assert sorted(mm.kind for mm in r.model.members) == ["beam", "column"]  # no cleat column
-    read = {p.guid: p for p in r.model.plates}
-    for c in cleats:
-        assert read[c.GlobalId].shape == "IfcLShapeProfileDef"
-        assert read[c.GlobalId].thickness == pytest.approx(10.0)
-    (j,) = r.joints
-    assert {p.role for p in j.plates} == {"other_plate"}
-    assert j.archetype == Archetype.UNSUPPORTED
-    assert dict(r.anatomy[j.id].unsupported)[UnsupportedPart.SECTION_PARTS] == 2
-
-
-def _cleat_joint(m: Model, rows=(85.0, 155.0, 225.0), with_support_bolts=True):
+def _cleat_joint(m: Model, rows=(85.0, 155.0, 225.0), with_support_bolts=True,
+                 cls="IfcPlate"):
     """A beam on a column flange with two L 90 x 90 x 10 cleats, 240 long, fully bolted.
 
     Beam end 10 mm off the flange face (x = 150); the cleats' heels on the face, each beside
@@ -313,7 +264,7 @@ def _cleat_joint(m: Model, rows=(85.0, 155.0, 225.0), with_support_bolts=True):
                 f.createIfcCartesianPoint([0.0, 0.0]), None), 90.0, 90.0, 10.0, 11.0, None,
             None)
         z0 = TOP - 285.0 if side > 0 else TOP - 45.0
-        cleat = m.el("IfcPlate", "L90X90X10",
+        cleat = m.el(cls, "L90X90X10",
                      m.place((195.0, side * 48.75, z0), (0, 0, float(side)), (1.0, 0, 0)),
                      m.rep([m.extrude(prof, m.a2p((0, 0, 0)), (0, 0, 1.0), 240.0)]))
         cleats.append(cleat)
@@ -354,14 +305,24 @@ def test_double_angle_web_cleats_are_read_and_checked(tmp_path):
     assert res.checked and res.joint_kind == "angle_cleats" and res.V_j_Rd > 0
 
 
-def test_cleats_without_support_bolts_are_not_read_as_cleats(tmp_path):
-    from ifcjoint.model.codes import UnsupportedPart
+@pytest.mark.parametrize("cls", ["IfcPlate", "IfcMember"])
+def test_angles_short_of_cleats_are_parts_not_plates_or_columns(cls, tmp_path):
+    # The same angles with the web-side bolts only: read as short sections, never as 90 mm
+    # plates or (upright IfcMembers) as columns; not read as cleats, so the joint is
+    # unsupported, saying why, never checked as an end plate.
+    from ifcjoint.model.codes import Archetype, UnsupportedPart
 
     m = Model("IFC4")
-    _cleat_joint(m, with_support_bolts=False)
+    cleats, _ = _cleat_joint(m, with_support_bolts=False, cls=cls)
     path = tmp_path / "cleats.ifc"
     m.f.write(str(path))
     r = scan(path)
+    assert sorted(mm.kind for mm in r.model.members) == ["beam", "column"]  # no cleat column
+    read = {p.guid: p for p in r.model.plates}
+    for c in cleats:
+        assert read[c.GlobalId].shape == "IfcLShapeProfileDef"
+        assert read[c.GlobalId].thickness == pytest.approx(10.0)
     (j,) = r.joints
-    assert r.anatomy[j.id].cleats is None and j.archetype == "unsupported"
+    assert {p.role for p in j.plates} == {"other_plate"}
+    assert r.anatomy[j.id].cleats is None and j.archetype == Archetype.UNSUPPORTED
     assert dict(r.anatomy[j.id].unsupported)[UnsupportedPart.SECTION_PARTS] == 2
