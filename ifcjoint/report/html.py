@@ -20,6 +20,7 @@ from ifcjoint.ec3.code import EN_1993_1_8
 from ifcjoint.engine.settings import DESIGN_CODES, design_code
 from ifcjoint.fileio import atomic_write_text
 from ifcjoint.model.codes import UNCHECKED, Status
+from ifcjoint.report.coverage import CATEGORIES
 from ifcjoint.report.drawing import plate_svg
 from ifcjoint.report.parts import parts_rows
 from ifcjoint.report.plans import frame_elevations, storey_plans
@@ -108,6 +109,8 @@ def report_context(results: dict, progress=None) -> dict:
         "counts": [(s, STATUS_WORDS[s], counts.get(s, 0), STATUS_COLOURS[s]) for s in Status],
         "unchecked": sum(counts.get(s, 0) for s in UNCHECKED),
         "unchecked_groups": unchecked_groups(results),
+        "coverage": ck.get("coverage"),
+        "coverage_words": CATEGORIES,
         "parts": None if lazy else parts_rows(results),
         "plans": [(name, Markup(svg)) for name, svg in storey_plans(results)],
         "elevations": [(name, Markup(svg)) for name, svg in elevations],

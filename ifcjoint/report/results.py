@@ -27,6 +27,7 @@ from ifcjoint.engine.results import CheckResult, Classification, ComponentResult
 from ifcjoint.engine.verify import Assumption, Utilisation
 from ifcjoint.fileio import atomic_write_text, safe_cell
 from ifcjoint.model.codes import UNCHECKED, NotCheckedCode, ProblemKind, Status
+from ifcjoint.report.coverage import beam_end_coverage, coverage_line
 from ifcjoint.report.scan import CAUTION, build_scan
 from ifcjoint.report.words import (
     STATUS_WORDS,
@@ -400,6 +401,7 @@ def build_results(mc) -> dict:
             for u in mc.unreadable_members()
         ],
     }
+    d["check"]["coverage"] = beam_end_coverage(d)
     d["caution"] = CAUTION
     return finite_json(d)
 
@@ -633,6 +635,11 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
                 f"{g['name']} ({where})\n"
             )
     write_unchecked(results, out)
+    cov = ck.get("coverage")
+    if cov:
+        out.write(f"  {coverage_line(cov)}\n")
+        for m in cov["missing"][:20]:
+            out.write(f"    missing: {m}\n")
     kinds = Counter(p["kind"] for j in results["joints"] for p in j["check"]["problems"])
     if kinds:
         out.write("  problems: " + ", ".join(f"{k} {v}" for k, v in sorted(kinds.items())) + "\n")
