@@ -327,6 +327,74 @@ def demands(model, out, quiet, debug, **kw):
     sys.exit(EXIT_OK)
 
 
+@main.command()
+@click.argument("model", required=False, type=click.Path(path_type=str))
+@click.option("-o", "--output", "out", type=click.Path(dir_okay=False),
+              help="Where to write the IDS (the MODEL's schema, else --schema).")
+@click.option("--schema", type=click.Choice(["IFC2X3", "IFC4", "IFC4X3"]),
+              help="The IDS's schema when no MODEL is given.")
+@_model_options
+def requirements(model, out, schema, quiet, debug, **kw):
+    """Write what a model must carry for ifcjoint as an IDS; check MODEL's joints against it.
+
+    The IDS (buildingSMART Information Delivery Specification) names, in the places the IFC
+    schema gives them: steel grades on members and plates, section designations, bolt
+    diameter, length and property class, weld throats. With MODEL, every joint is listed with
+    the requirements its beam, column, plates and fasteners miss. Exit 0 when every joint's
+    parts meet them (or no MODEL), 1 when some miss one.
+    """
+    from ifcjoint.errors import OutputError
+    from ifcjoint.ifc.requirements import build_ids, missing_requirements, write_ids
+
+    if model is None and (schema is None or out is None):
+        raise UsageError("give a MODEL, or --schema with -o/--output")
+    if out:
+        _outputs_ok({"--output": out}, {"the model": model, "the rules file": kw["rules_file"]}
+                    if model else {})
+    if model is None:
+        n = _guarded("writing the IDS", debug, None, lambda: write_ids(schema, out))
+        if not quiet:
+            click.echo(f"{out}: {n} specifications ({schema})")
+        sys.exit(EXIT_OK)
+    bar = _Bar(sys.stderr.isatty() and not quiet)
+    result = _scan(model, bar, debug, **kw)
+    schema = result.model.schema
+    if out:
+        def write() -> int:
+            try:
+                return write_ids(schema, out)
+            except OSError as exc:
+                raise OutputError(f"cannot write {out}: {exc}") from exc
+
+        n = _guarded("writing the IDS", debug, None, write)
+        if not quiet:
+            click.echo(f"{out}: {n} specifications ({schema})", err=True)
+
+    def validate():
+        from ifcjoint.ifc.open import open_model
+
+        f, _, _ = open_model(model)
+        return missing_requirements(f, build_ids(schema))
+
+    misses = _guarded("checking the requirements", debug, None, validate)
+    short = 0
+    for j in result.joints:
+        els = (j.beam, j.column, *(p.guid for p in (*j.plates, *j.fasteners)))
+        found: dict[str, int] = {}
+        for e in els:
+            for name in misses.get(e.split("#")[0], ()):
+                found[name] = found.get(name, 0) + 1
+        if found:
+            short += 1
+            if not quiet:
+                what = "; ".join(f"{k} ({n} element(s))" for k, n in found.items())
+                click.echo(f"{j.label} ({j.id}): misses {what}")
+    if not quiet:
+        click.echo(f"{model}: {short} of {len(result.joints)} joints miss a requirement "
+                   f"({len(misses)} element(s) in all)")
+    sys.exit(1 if short else EXIT_OK)
+
+
 GATES = {
     "fail": "exit 1 when a joint fails, a beam or column cannot be read, or a demand row is "
     "rejected",

@@ -20,8 +20,11 @@ def test_ruff_passes():
 
 
 def test_no_reserved_pset_prefix_in_our_code():
+    # our property sets never take the reserved prefixes; a line naming one of
+    # buildingSMART's own sets (to read or require it) says so with its marker comment
+    marker = "# standard set, never written"
     for p in (ROOT / "ifcjoint").rglob("*.py"):
-        text = p.read_text()
+        text = "\n".join(ln for ln in p.read_text().splitlines() if not ln.endswith(marker))
         assert "\"Pset_" not in text and "'Pset_" not in text, p
         assert "\"Qto_" not in text and "'Qto_" not in text, p
 

@@ -25,7 +25,7 @@ from ifcjoint.model.elements import Fastener, Member, Plate, PlateLeg, Progress,
 #: Property names (lower case, no spaces) read for bolt sizes.
 _SIZE_KEYS = ("nominaldiameter", "boltdiameter", "diameter")
 _LENGTH_KEYS = ("nominallength", "boltlength", "length")
-_THROAT_KEYS = ("throat", "throatthickness", "weldthroat", "a")
+_THROAT_KEYS = ("throat", "throatthickness", "nominalthroatthickness", "weldthroat", "a")
 _LEG_KEYS = ("leg", "leglength", "weldleg", "weldsize")
 _HOLE_KEYS = ("holediameter", "boltholediameter", "clearanceholediameter", "diameterofhole",
               "clearancehole", "holesize")
