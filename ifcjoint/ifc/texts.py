@@ -41,6 +41,7 @@ INTERESTING_PROPERTIES = frozenset(
         # weld sizes of welds modelled as fasteners
         "throat",
         "throatthickness",
+        "nominalthroatthickness",  # Pset_FastenerWeld (IFC4 on)
         "weldthroat",
         "a",
         "leg",

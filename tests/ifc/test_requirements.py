@@ -11,6 +11,7 @@ import ifcopenshell
 import ifcopenshell.api.material
 import ifcopenshell.api.pset
 import ifcopenshell.api.root
+import ifcopenshell.guid
 import pytest
 from click.testing import CliRunner
 
@@ -92,3 +93,34 @@ def test_the_demo_joints_are_told_what_they_miss(tmp_path):
     lone = CliRunner().invoke(main, ["requirements", "--schema", "IFC2X3", "-o",
                                      str(tmp_path / "x.ids")])
     assert lone.exit_code == 0 and "specifications (IFC2X3)" in lone.output
+
+
+def test_the_reader_takes_the_throat_where_the_ids_asks_for_it(tmp_path):
+    # a weld fastener whose throat is only in Pset_FastenerWeld.NominalThroatThickness
+    from ifcjoint.pipeline import scan
+    from tests.ifc.test_other_conventions import Model
+
+    m = Model("IFC4")
+    f = m.f
+    prof = f.createIfcRectangleProfileDef("AREA", None, f.createIfcAxis2Placement2D(
+        f.createIfcCartesianPoint([0.0, 0.0]), None), 5.0, 5.0)
+    weld = m.el("IfcFastener", "W", m.place((0, 0, 0)),
+                m.rep([m.extrude(prof, m.a2p((0, 0, 0)), (0, 0, 1.0), 200.0)]),
+                PredefinedType="WELD")
+    prop = f.createIfcPropertySingleValue(
+        "NominalThroatThickness", None, f.create_entity("IfcPositiveLengthMeasure", 6.0), None)
+    ps = f.create_entity("IfcPropertySet", GlobalId=ifcopenshell.guid.new(),
+                         Name="Pset_FastenerWeld", HasProperties=[prop])
+    f.create_entity("IfcRelDefinesByProperties", GlobalId=ifcopenshell.guid.new(),
+                    RelatedObjects=[weld], RelatingPropertyDefinition=ps)
+    col = m.el("IfcColumn", "C", m.place((1000.0, 0, 0)),
+               m.rep([m.extrude(m.ishape("HEB300", 300, 300, 11, 19, 27), m.a2p((0, 0, 0)),
+                                (0, 0, 1.0), 3000.0)]))
+    st = f.create_entity("IfcBuildingStorey", GlobalId=ifcopenshell.guid.new(), Name="L1",
+                         ObjectPlacement=m.place((0, 0, 0)))
+    f.create_entity("IfcRelContainedInSpatialStructure", GlobalId=ifcopenshell.guid.new(),
+                    RelatedElements=[weld, col], RelatingStructure=st)
+    path = tmp_path / "w.ifc"
+    f.write(str(path))
+    (w,) = [x for x in scan(path).model.fasteners if x.guid == weld.GlobalId]
+    assert w.weld_throat == pytest.approx(6.0)
