@@ -395,6 +395,38 @@ def requirements(model, out, schema, quiet, debug, **kw):
     sys.exit(1 if short else EXIT_OK)
 
 
+@main.command()
+@click.argument("before", type=click.Path(path_type=str))
+@click.argument("after", type=click.Path(path_type=str))
+@click.option("--json", "json_out", type=click.Path(dir_okay=False),
+              help="The comparison as JSON (every joint, what changed, statuses).")
+@click.option("--quiet", "-q", is_flag=True, help="Print nothing but errors.")
+def compare(before, after, json_out, quiet):
+    """Compare two revisions' results (BEFORE and AFTER, from check --json) joint by joint.
+
+    Joints are matched by id (beam GlobalId and end), else by position when an exporter
+    regenerated GlobalIds; each is new, removed, unchanged or changed, with what changed
+    (sections, grades, plates, bolts, welds, kind, demands, tool version) and its status
+    before and after. Exit 0; 1 when a joint fails now that did not before.
+    """
+    import json as _json
+
+    from ifcjoint.fileio import atomic_write_text
+    from ifcjoint.report.revisions import compare_results, write_comparison
+
+    if json_out:
+        _outputs_ok({"--json": json_out}, {"BEFORE": before, "AFTER": after})
+    a = _guarded("reading the results", False, None, lambda: _read_results(before))
+    b = _guarded("reading the results", False, None, lambda: _read_results(after))
+    cmp = compare_results(a, b)
+    if json_out:
+        _guarded("writing the comparison", False, None,
+                 lambda: atomic_write_text(json_out, _json.dumps(cmp, indent=1)))
+    if not quiet:
+        write_comparison(cmp, sys.stdout)
+    sys.exit(1 if cmp["counts"]["now_failing"] else EXIT_OK)
+
+
 GATES = {
     "fail": "exit 1 when a joint fails, a beam or column cannot be read, or a demand row is "
     "rejected",

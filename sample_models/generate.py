@@ -1007,9 +1007,9 @@ class Frame:
             self.parts_by_beam.setdefault(b[0].GlobalId, [b[0]]).append(plates[1])
         else:
             self.relate(style, a[0], b[0], [*bolts, plates[0]], [plates[1]])
-        # the joint is the end that comes first by GlobalId and end name (the finder's rule)
-        first, second = sorted([(a[0].GlobalId, "end", a), (b[0].GlobalId, "start", b)],
-                               key=lambda x: x[:2])
+        # the joint is the end of the beam whose midpoint comes first by x, y, z (the
+        # finder's rule): a's, the piece on the lower x
+        first, second = (a[0].GlobalId, "end", a), (b[0].GlobalId, "start", b)
         fb, fw, fl = first[2]
         e = fw[:3, 3] + (fw[:3, 0] * fl if first[1] == "end" else 0)
         self.truth.joints.append({

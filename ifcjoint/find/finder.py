@@ -388,6 +388,13 @@ def _classify_free_ends(
     return out
 
 
+def _splice_order(ends: _Ends, k: int) -> tuple:
+    """Which end of a splice holds its joint: its beam's midpoint, then its GlobalId."""
+    b = ends.beam(k)
+    mid = (np.asarray(b.start, dtype=float) + np.asarray(b.end, dtype=float)) / 2
+    return (*np.round(mid).tolist(), b.guid, ends.name(k))
+
+
 def _beam_web_hits(
     ends: _Ends, unresolved: list[int], n_columns: int, st: FinderSettings
 ) -> list[dict]:
@@ -442,8 +449,9 @@ def _beam_web_hits(
 def _splice_joints(ends: _Ends, free: list[OtherBeamEnd], n_columns: int) -> list[dict]:
     """One joint for each splice: two collinear beam ends that found each other.
 
-    The joint is the end that comes first (by beam GlobalId, then ``end`` before ``start``);
-    its "column" is the other beam
+    The joint is the end whose beam's midpoint comes first by x, then y, then z (rounded to
+    the millimetre; then by GlobalId): the same joint whatever the model's order, and when a
+    re-export regenerates GlobalIds. Its "column" is the other beam
     (``col_idx`` counts the beams after the columns), its face point the midpoint of the two
     end points (the plates' contact plane when they are alike: the anatomy measures it).
     """
@@ -458,8 +466,8 @@ def _splice_joints(ends: _Ends, free: list[OtherBeamEnd], n_columns: int) -> lis
             continue
         mate = min(mates, key=lambda m: float(np.linalg.norm(np.subtract(m.point, o.point))))
         km = k_of[(mate.beam, mate.beam_end)]
-        if (mate.beam, mate.beam_end) < (guid, end):
-            continue  # the pair's joint is the other end's (independent of the model's order)
+        if _splice_order(ends, km) < _splice_order(ends, k):
+            continue  # the pair's joint is the other end's
         other = ends.beam(km)
         mid = (ends.points[k] + ends.points[km]) / 2
         gap = float(np.dot(mid - ends.points[k], ends.approach[k]))
