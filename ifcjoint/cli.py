@@ -590,6 +590,12 @@ def _settings(params_file, frame, alpha_method):
 @click.option("--joint", "f_joints", multiple=True, metavar="ID",
               help="Print and write only this joint, by id or label (repeatable; wildcards "
               "allowed).")
+@click.option("--since", "since", type=click.Path(dir_okay=False, path_type=str),
+              metavar="RESULTS_JSON",
+              help="An earlier run's results (check --json): joints whose inputs, demands, "
+              "settings and tool version are all the same are carried over, not re-checked; "
+              "every joint is compared (new, removed, changed and what, status before and "
+              "after) on stdout and in the JSON and HTML; BCF topics carry on.")
 @click.option(
     "--timestamp",
     type=click.DateTime(formats=["%Y-%m-%dT%H:%M:%S", "%Y-%m-%d"]),
@@ -619,6 +625,7 @@ def check(
     f_statuses,
     f_archetypes,
     f_joints,
+    since,
     timestamp,
     quiet,
     debug,
@@ -640,9 +647,16 @@ def check(
         {"--ifc-out": ifc_out, "--bcf": bcf_out, "--issues": issues_out, "--json": json_out,
          "--csv": csv_out, "--parts": parts_out, "--html": html_out, "--md": md_out},
         {"the model": model, "the demands file": demands_file,
-         "the parameters file": params_file, "the rules file": kw["rules_file"]},
+         "the parameters file": params_file, "the rules file": kw["rules_file"],
+         "the earlier results (--since)": since},
         may_replace={"--ifc-out": "the model"} if in_place else None,
     )
+    previous = None
+    if since:
+        from ifcjoint.pipeline import PreviousRun
+
+        data = _guarded("reading the earlier results", debug, None, lambda: _read_results(since))
+        previous = PreviousRun(path=since, results=data)
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, **kw)
     table = None
@@ -656,7 +670,8 @@ def check(
         else dt.datetime.now(dt.UTC).replace(microsecond=0)
     )
     mc = _guarded("checking", debug, bar,
-                  lambda: check_scan(result, table, settings, created=when, progress=bar))
+                  lambda: check_scan(result, table, settings, created=when, progress=bar,
+                                     previous=previous))
     targets = {"json": json_out, "csv": csv_out, "issues": issues_out, "parts": parts_out,
                "bcf": bcf_out, "ifc": ifc_out, "html": html_out, "md": md_out}
     html_bar = _Bar(sys.stderr.isatty() and not quiet)

@@ -27,7 +27,7 @@ from pathlib import Path
 
 from ifcjoint import __version__
 from ifcjoint.anatomy import AnatomySettings, JointAnatomy, analyse
-from ifcjoint.archetypes import decide, joint_type, run_joint
+from ifcjoint.archetypes import decide, joint_input, joint_type, run_joint
 from ifcjoint.archetypes.description import (
     DescriptionError,
     archetype_of,
@@ -51,6 +51,8 @@ from ifcjoint.model.codes import (
     MemberKind,
     NotChecked,
     NotCheckedCode,
+    Priority,
+    ProblemKind,
     Status,
     SteelState,
 )
@@ -148,6 +150,111 @@ class JointCheck:
         return None if g is None else g.utilisation
 
 
+@dataclass(frozen=True, slots=True)
+class CarriedProblem:
+    """A problem of a carried-over joint, as the earlier run recorded it."""
+
+    kind: ProblemKind
+    priority: Priority
+    guid: str
+
+
+@dataclass(frozen=True, slots=True, kw_only=True)
+class CarriedCheck:
+    """A joint whose every input is the earlier run's: its result is carried over, not re-run.
+
+    ``record`` is the earlier run's check of the joint (results JSON), shown as it was, with
+    where it came from; the demands are the ones read now (equal in value: the fingerprint
+    covers them).
+    """
+
+    joint: Joint
+    anatomy: JointAnatomy | None
+    demands: tuple[Demand, ...]
+    fingerprint: str
+    record: dict
+    previous: PreviousRun
+
+    @property
+    def status(self) -> Status:
+        """The status the earlier run gave."""
+        return Status(self.record["status"])
+
+    @property
+    def utilisation(self) -> float | None:
+        """The earlier run's highest utilisation (None when not checked)."""
+        return self.record.get("utilisation")
+
+    @property
+    def problems(self) -> tuple[CarriedProblem, ...]:
+        """The earlier run's problems: kind, priority and topic GUID."""
+        return tuple(CarriedProblem(ProblemKind(p["kind"]), Priority(p["severity"]), p["guid"])
+                     for p in self.record.get("problems", ()))
+
+
+@dataclass(frozen=True, kw_only=True)
+class PreviousRun:
+    """An earlier run's results (``check --json``), to compare with and to carry over from.
+
+    A joint's earlier result is carried over only when everything a re-check would start from
+    is the same: the joint as the scan describes it (members, parts, anatomy, findings,
+    label), its engine input, its demands, the design code with its parameters and the
+    frame default, and the tool version.
+    """
+
+    path: str
+    results: dict
+
+    @cached_property
+    def joints(self) -> dict[str, dict]:
+        """The earlier run's joints by id."""
+        return {j["id"]: j for j in self.results.get("joints", ())}
+
+    @property
+    def created(self) -> str:
+        """When the earlier run checked (its timestamp)."""
+        return self.results.get("check", {}).get("created", "")
+
+    def settings_match(self, st: CheckSettings) -> bool:
+        """The earlier run used the same code, parameters, frame default and tool version."""
+        c = self.results.get("check", {})
+        return (c.get("tool_version") == __version__
+                and c.get("design_code") == st.code.name
+                and c.get("params") == json.loads(json.dumps(st.params.as_dict()))
+                and c.get("braced_default") == st.braced
+                and c.get("alpha_method", "chart") == st.alpha_method)
+
+
+def _scan_digest(joint_record: dict) -> str:
+    """A digest of a joint's scan description (the results record without its check)."""
+    from ifcjoint.report.results import finite_json
+
+    body = {k: v for k, v in joint_record.items() if k != "check"}
+    text = json.dumps(finite_json(body), sort_keys=True, default=str)
+    return hashlib.sha256(text.encode()).hexdigest()
+
+
+def carry_over(j: Joint, a, members: dict, demands: tuple[Demand, ...], st: CheckSettings,
+               previous: PreviousRun, scan_record: dict) -> CarriedCheck | None:
+    """The earlier run's result of this joint when nothing a re-check uses has changed.
+
+    Common practice, no source: a result depends only on its inputs, so the same inputs
+    give the same result; anything that differs (a value, a part, a demand row, a setting,
+    the tool version) means a re-check.
+    """
+    old = previous.joints.get(j.id)
+    if old is None or "check" not in old:
+        return None
+    if _scan_digest(old) != _scan_digest(scan_record):
+        return None
+    inp = joint_input(j, a, members, st)
+    fp = fingerprint(j, None if isinstance(inp, NotChecked) else inp, demands)
+    if fp != old["check"].get("fingerprint"):
+        return None
+    return CarriedCheck(joint=j, anatomy=a, demands=demands, fingerprint=fp,
+                        record=old["check"], previous=previous)
+
+
 @dataclass(frozen=True, kw_only=True)
 class ModelCheck:
     """Everything one ``check`` run produced, for every renderer."""
@@ -159,6 +266,13 @@ class ModelCheck:
     created: _dt.datetime
     tool_version: str = __version__
     notes: tuple[str, ...] = field(default_factory=tuple)
+    previous: PreviousRun | None = None
+    scan_record: dict | None = None
+
+    @property
+    def carried(self) -> int:
+        """How many joints' results were carried over from the earlier run."""
+        return sum(1 for j in self.joints if isinstance(j, CarriedCheck))
 
     def counts(self) -> dict[str, int]:
         """Joints by status (every status present, zero or not)."""
@@ -200,16 +314,16 @@ class ModelCheck:
         return results_dataframe(self.results)
 
 
-def fingerprint(joint: Joint, cap: CheckResult, demands: tuple[Demand, ...]) -> str:
-    """A short hash of what the check used: engine input, demands, tool version.
+def fingerprint(joint: Joint, inp, demands: tuple[Demand, ...]) -> str:
+    """A short hash of what the check used: engine input (None: none), demands, tool version.
 
     Common practice, no source: it changes exactly when a re-check could give another answer.
     """
     blob = (
         (joint.beam, joint.beam_end, joint.column, str(joint.archetype)),
-        _input_digest(cap.input) if cap.input is not None else "",
+        _input_digest(inp) if inp is not None else "",
         tuple((d.combination, d.M_Ed, d.V_Ed, d.N_Ed, d.M_other, d.Vc_above, d.Vc_below,
-               d.braced, None if d.assumed_joint is None else str(d.assumed_joint))
+               d.braced, None if d.assumed_joint is None else str(d.assumed_joint), d.V_other)
               for d in demands),
         __version__,
     )
@@ -258,7 +372,7 @@ def check_one(
         capacity=cap,
         verdict=verdict,
         demands=demands,
-        fingerprint=fingerprint(j, cap, demands),
+        fingerprint=fingerprint(j, cap.input, demands),
         problems=joint_problems(j, verdict, cap.not_checked),
     )
 
@@ -284,20 +398,45 @@ def check_scan(
     *,
     created: _dt.datetime | None = None,
     progress: Progress | None = None,
+    previous: PreviousRun | None = None,
 ) -> ModelCheck:
-    """Check every joint of a scan against its demands (see :func:`check`)."""
+    """Check every joint of a scan against its demands (see :func:`check`).
+
+    With ``previous`` (an earlier run's results), a joint whose inputs are all the earlier
+    run's is not re-checked: its result is carried over (:func:`carry_over`), and the
+    results compare the two runs joint by joint.
+    """
     st = settings or CheckSettings()
     members = {m.guid: m for m in scan.model.members}
     out = []
     n = len(scan.joints)
     cache: dict = {}  # engine results by input: a model's repeated joints run once
+    records = None
+    if previous is not None:
+        from ifcjoint.report.scan import build_scan
+
+        records = build_scan(scan)
+        by_id = {r["id"]: r for r in records["joints"]}
+        if not previous.settings_match(st):
+            by_id = {}  # other settings or tool version: everything is checked again
     for k, j in enumerate(scan.joints, start=1):
         ds = tuple(demands.by_joint.get(j.id, ())) if demands is not None else ()
-        out.append(check_one(j, scan.anatomy.get(j.id), members, ds, st, cache))
+        a = scan.anatomy.get(j.id)
+        kept = None
+        if records is not None and j.id in by_id:
+            kept = carry_over(j, a, members, ds, st, previous, by_id[j.id])
+        out.append(kept if kept is not None else check_one(j, a, members, ds, st, cache))
         if progress is not None:
             progress("check", k, n)
     when = created or _dt.datetime.now(_dt.UTC).replace(microsecond=0)
     notes = []
+    if previous is not None:
+        carried = sum(1 for x in out if isinstance(x, CarriedCheck))
+        why = "" if previous.settings_match(st) else (
+            " (it used other settings or another tool version: every joint re-checked)")
+        notes.append(f"compared with {previous.path} (checked {previous.created}): "
+                     f"{carried} of {n} joint(s) unchanged and carried over, not re-checked"
+                     + why)
     if demands is None:
         notes.append("no demands file given: every checkable joint is unchecked (no_demands)")
     rep = scan.model.repeated_ids
@@ -314,6 +453,8 @@ def check_scan(
         settings=st,
         created=when,
         notes=tuple(notes),
+        previous=previous,
+        scan_record=records,
     )
 
 
@@ -328,6 +469,7 @@ def check(
     rules_file: str | Path | None = None,
     created: _dt.datetime | None = None,
     progress: Progress | None = None,
+    previous: PreviousRun | None = None,
 ) -> ModelCheck:
     """Scan a model, read its demands and check every joint.
 
@@ -342,6 +484,8 @@ def check(
         rules_file: extra recognition rules (TOML).
         created: timestamp to record (inject it for reproducible output).
         progress: optional callback ``(stage, done, total)``.
+        previous: an earlier run's results (:class:`PreviousRun`): unchanged joints are
+            carried over, and the results compare the two runs.
 
     Raises:
         ifcjoint.errors.ModelError: the model cannot be used.
@@ -357,7 +501,8 @@ def check(
     )
     table = (read_demands(demands, sc.joints, sc.model.unreadable)
              if isinstance(demands, (str, Path)) else demands)
-    return check_scan(sc, table, settings, created=created, progress=progress)
+    return check_scan(sc, table, settings, created=created, progress=progress,
+                      previous=previous)
 
 
 @dataclass(frozen=True, kw_only=True)

@@ -1102,7 +1102,8 @@ class Frame:
             "first_guess": "beam_to_beam_fin_plate", "archetype": "beam_to_beam_fin_plate",
             "plates": [pl.GlobalId], "bolts": sorted(x.GlobalId for x in bolts), "welds": [],
             "relations": style, "defects": [], "plate": None, "rows_from_beam_top": [],
-            "bolt_d": 20.0, "key": key, "level_z": float(main_top), "approach": [float(v) for v in t],
+            "bolt_d": 20.0, "key": key, "level_z": float(main_top),
+            "approach": [float(v) for v in t],
             "partner": None,
         })
 

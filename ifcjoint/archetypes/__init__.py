@@ -96,6 +96,29 @@ def joint_type(
     return BY_ARCHETYPE.get(archetype, _LEFT)
 
 
+def joint_input(
+    joint: Joint,
+    a: JointAnatomy | None,
+    members: dict[str, Member],
+    settings: CheckSettings | None = None,
+    registry: tuple[JointType, ...] | None = None,
+):
+    """The engine input of a joint by its archetype, or why there is none (``NotChecked``).
+
+    No engine runs: this is what a re-check would compute from, so an earlier result can be
+    carried over when it is the same.
+    """
+    if a is None:
+        return NotChecked(NotCheckedCode.NO_ANATOMY)
+    unusable = next((f for f in a.findings if f.code == FindingCode.VALUE_NOT_USABLE), None)
+    if unusable is not None:  # a dimension that cannot be right: nothing is computed with it
+        return NotChecked(NotCheckedCode.VALUE_NOT_USABLE, {
+            "what": unusable.detail["what"], "entity": unusable.detail["entity"],
+            "value": unusable.measured})
+    jt = joint_type(joint.archetype, registry)
+    return jt.engine_input(joint, a, members, settings or CheckSettings())
+
+
 def run_joint(
     joint: Joint,
     a: JointAnatomy | None,
@@ -110,18 +133,9 @@ def run_joint(
     check without demands; both say why when the joint is not checked. ``cache`` shares
     engine results between joints with equal inputs (``engine.verify.run_engine``).
     """
-    if a is None:
-        r = not_checked(NotChecked(NotCheckedCode.NO_ANATOMY))
-        return r, r
     st = settings or CheckSettings()
     jt = joint_type(joint.archetype, registry)
-    unusable = next((f for f in a.findings if f.code == FindingCode.VALUE_NOT_USABLE), None)
-    if unusable is not None:  # a dimension that cannot be right: nothing is computed with it
-        r = not_checked(NotChecked(NotCheckedCode.VALUE_NOT_USABLE, {
-            "what": unusable.detail["what"], "entity": unusable.detail["entity"],
-            "value": unusable.measured}))
-        return r, r
-    inp = jt.engine_input(joint, a, members, st)
+    inp = joint_input(joint, a, members, st, registry)
     if isinstance(inp, NotChecked):
         r = not_checked(inp)
         return r, r
@@ -143,5 +157,6 @@ def check_joint(
 
 
 __all__ = [
-    "BY_ARCHETYPE", "REGISTRY", "JointType", "check_joint", "decide", "joint_type", "run_joint",
+    "BY_ARCHETYPE", "REGISTRY", "JointType", "check_joint", "decide", "joint_input", "joint_type",
+    "run_joint",
 ]

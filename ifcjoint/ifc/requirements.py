@@ -63,6 +63,42 @@ REQUIREMENTS = (
 )
 
 
+#: What a missing datum named by a reason's ``missing`` list asks the model for.
+_MISSING_DATUM = {
+    "beam section": ("section-members",), "column section": ("section-members",),
+    "beam grade": ("grade-members",), "column grade": ("grade-members",),
+    "bolts": ("bolt-size", "bolt-class"),
+}
+
+
+def requirements_for(reason) -> tuple[Requirement, ...]:
+    """The IDS requirements that, met, give a joint the data it was not checked for lack of.
+
+    ``reason`` is the joint's ``NotChecked`` (or None). A reason that is not missing data
+    (out of scope, no forces, parts missing, a dimension that cannot be right) names none.
+    The same requirements ``ifcjoint requirements`` writes and validates.
+    """
+    from ifcjoint.model.codes import NotCheckedCode as C
+
+    if reason is None:
+        return ()
+    code = reason.code
+    if code == C.DATA_NOT_READ:
+        ids = [i for m in reason.values.get("missing", ()) for i in _MISSING_DATUM.get(m, ())]
+    elif code == C.STRENGTH_UNAVAILABLE:
+        ids = ["grade-members", "grade-plates"]
+    elif code == C.BOLT_DATA_MISSING:
+        ids = ["bolt-size", "bolt-class"]
+    elif code == C.NO_TENSILE_AREA:
+        ids = ["bolt-size"]
+    elif code == C.SECTION_DIMENSIONS_MISSING:
+        ids = ["section-members"]
+    else:
+        ids = []
+    by_id = {r.identifier: r for r in REQUIREMENTS}
+    return tuple(by_id[i] for i in dict.fromkeys(ids))
+
+
 def build_ids(schema: str, title: str = "ifcjoint: data a checkable steel model carries"):
     """The IDS for a model of ``schema`` (``IFC2X3``, ``IFC4``, ``IFC4X3``)."""
     from ifctester import ids

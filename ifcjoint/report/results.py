@@ -64,6 +64,7 @@ def _demand_dict(d) -> dict:
         "M_Ed_other_side_kNm": _k(d.M_other, 1e6, 3),
         "Vc_above_kN": _k(d.Vc_above, 1e3, 3),
         "Vc_below_kN": _k(d.Vc_below, 1e3, 3),
+        "V_Ed_other_side_kN": _k(d.V_other, 1e3, 3),
         "frame": None if d.braced is None else ("braced" if d.braced else "unbraced"),
         "assumed_joint": d.assumed_joint,
         "source": d.source,
@@ -243,10 +244,12 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
         what = UNCHECKED_WHAT[p.status]
         if p.status != Status.NO_DEMANDS and p.reason is not None:
             what = _short(coded(p.reason))  # the real cause, in words
+        hint = data_hint(p.reason)
         return f"{name}: not checked, {what}", "\n".join(
             [
                 f"Joint {name}, archetype {j.archetype}: not checked ({p.status}).",
                 f"Reason: {coded(p.reason)}.",
+                *([f"To check it: {hint}."] if hint else []),
             ]
         )
     if p.kind == ProblemKind.DETAILING:
@@ -269,6 +272,20 @@ def _problem_texts(jc, p: Problem, code: Eurocode3) -> tuple[str, str]:
         f"initial stiffness Sj,ini the joint is {a['computed']} ({code.cite('5.2.2.5')}). "
         "The frame analysis may need the joint's stiffness (5.1.1, 5.2.2.1)."
     )
+
+
+def data_hint(reason) -> str:
+    """What the model misses for a joint not checked for lack of data, in words.
+
+    The IDS requirements of ``ifcjoint requirements``; empty for any other reason.
+    """
+    from ifcjoint.ifc.requirements import requirements_for
+
+    reqs = requirements_for(reason)
+    if not reqs:
+        return ""
+    return ("the model misses: " + "; ".join(f"{r.name} [IDS {r.identifier}]" for r in reqs)
+            + " (`ifcjoint requirements` writes the IDS)")
 
 
 def joint_check_dict(jc, code: Eurocode3) -> dict:
@@ -294,9 +311,13 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
             }
         )
     gd = utilisation_dict(g, code) if g is not None else None
+    from ifcjoint.ifc.requirements import requirements_for
+
+    hint = data_hint(jc.verdict.reason)
     return {
         "status": jc.status,
-        "status_reason": coded(jc.verdict.reason),
+        "status_reason": "; ".join(x for x in (coded(jc.verdict.reason), hint) if x),
+        "data_requirements": [r.identifier for r in requirements_for(jc.verdict.reason)],
         "utilisation": None if g is None else round(float(g.utilisation), 3),
         "governing": None
         if g is None
@@ -331,6 +352,7 @@ def joint_check_dict(jc, code: Eurocode3) -> dict:
         "assumption": assumption_dict(jc.verdict.assumption),
         "fingerprint": jc.fingerprint,
         "problems": problems,
+        "carried_over": None,
     }
 
 
@@ -368,11 +390,13 @@ def _finite_walk(obj):
 def build_results(mc) -> dict:
     """The scan dictionary extended with the check of every joint (docs/results.md)."""
     code = mc.settings.code
-    d = build_scan(mc.scan)
+    d = mc.scan_record if mc.scan_record is not None else build_scan(mc.scan)
     d["results_schema_version"] = RESULTS_SCHEMA_VERSION
     by_id = {jc.joint.id: jc for jc in mc.joints}
     for j in d["joints"]:
-        j["check"] = joint_check_dict(by_id[j["id"]], code)
+        jc = by_id[j["id"]]
+        j["check"] = (carried_check_dict(jc) if hasattr(jc, "record")
+                      else joint_check_dict(jc, code))
     dem = mc.demands
     d["check"] = {
         "created": mc.created.isoformat(),
@@ -380,6 +404,7 @@ def build_results(mc) -> dict:
         "design_code": code.name,
         "params": mc.settings.params.as_dict(),
         "braced_default": mc.settings.braced,
+        "alpha_method": mc.settings.alpha_method,
         "counts": mc.counts(),
         "demands": None
         if dem is None
@@ -403,7 +428,26 @@ def build_results(mc) -> dict:
     }
     d["check"]["coverage"] = beam_end_coverage(d)
     d["caution"] = CAUTION
-    return finite_json(d)
+    d = finite_json(d)
+    if mc.previous is not None:
+        from ifcjoint.report.revisions import comparison_section
+
+        d["check"]["comparison"] = comparison_section(mc.previous.path, mc.previous.results, d)
+    return d
+
+
+def carried_check_dict(cc) -> dict:
+    """The check part of a joint carried over from an earlier run.
+
+    As that run wrote it, with the demands as read now (equal in value) and where the
+    result comes from.
+    """
+    first = cc.record.get("carried_over") or {}  # carried before: it was checked then
+    return {**cc.record, "demands": [_demand_dict(x) for x in cc.demands],
+            "carried_over": {"from": cc.previous.path,
+                             "checked": first.get("checked") or cc.previous.created,
+                             "tool_version": first.get("tool_version")
+                             or cc.previous.results["check"].get("tool_version")}}
 
 
 def cite(results: dict, clause: str) -> str:
@@ -640,6 +684,20 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
         out.write(f"  {coverage_line(cov)}\n")
         for m in cov["missing"][:20]:
             out.write(f"    missing: {m}\n")
+    cmp = ck.get("comparison")
+    if cmp:
+        c2 = cmp["counts"]
+        out.write(f"  since {cmp['previous']['path']} (checked {cmp['previous']['checked']}): "
+                  f"{c2['changed']} changed ({c2['now_failing']} now failing), {c2['new']} new, "
+                  f"{c2['removed']} removed, {c2['unchanged']} unchanged; "
+                  f"{c2['carried_over']} result(s) carried over, not re-checked\n")
+        moved = [r for r in cmp["joints"] if r["change"] != "unchanged"]
+        for r in moved[:20]:
+            what = f": {', '.join(r['what'])}" if r["what"] else ""
+            out.write(f"    {r['change']:8} {r['label']} ({r['id']})  "
+                      f"{r['status_before'] or '-'} -> {r['status_after'] or '-'}{what}\n")
+        if len(moved) > 20:
+            out.write(f"    ... and {len(moved) - 20} more (results JSON: check.comparison)\n")
     kinds = Counter(p["kind"] for j in results["joints"] for p in j["check"]["problems"])
     if kinds:
         out.write("  problems: " + ", ".join(f"{k} {v}" for k, v in sorted(kinds.items())) + "\n")

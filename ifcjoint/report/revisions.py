@@ -11,6 +11,7 @@ in each results file, so a change is what the check saw, not what the file's byt
 
 from __future__ import annotations
 
+import json
 import math
 from collections import Counter
 
@@ -38,6 +39,15 @@ def _demands(j: dict) -> list:
             for r in rows]
 
 
+def _same(x, y) -> bool:
+    """Equal as JSON says (a tuple is a list, an enum its value).
+
+    One record may be read from a file and the other still in memory.
+    """
+    return x == y or json.dumps(x, sort_keys=True, default=str) == json.dumps(
+        y, sort_keys=True, default=str)
+
+
 def what_changed(before: dict, after: dict, tools: tuple[str, str]) -> list[str]:
     """What differs between two revisions of one joint, in words (empty: unchanged)."""
     out = []
@@ -45,12 +55,15 @@ def what_changed(before: dict, after: dict, tools: tuple[str, str]) -> list[str]
         out.append(f"kind ({before.get('archetype')} -> {after.get('archetype')})")
     a, b = _inputs(before), _inputs(after)
     for key, words in _PARTS.items():
-        if a.get(key) != b.get(key) and words not in out:
+        if not _same(a.get(key), b.get(key)) and words not in out:
             out.append(words)
-    others = sorted(k for k in set(a) | set(b) if k not in _PARTS and a.get(k) != b.get(k))
+    others = sorted(k for k in set(a) | set(b)
+                    if k not in _PARTS and not _same(a.get(k), b.get(k)))
     if others:
         out.append("check settings (" + ", ".join(others) + ")")
-    if sorted(map(repr, _demands(before))) != sorted(map(repr, _demands(after))):
+    da, db = _demands(before), _demands(after)
+    if not _same(da, db) and sorted(json.dumps(r, sort_keys=True, default=str) for r in da) \
+            != sorted(json.dumps(r, sort_keys=True, default=str) for r in db):
         out.append("demands")
     if len({p["guid"] for p in before.get("parts", ())}) != len(
             {p["guid"] for p in after.get("parts", ())}):
@@ -107,6 +120,8 @@ def compare_results(before: dict, after: dict) -> dict:
 def _row(j: dict, change: str, how, what, before, after) -> dict:
     return {
         "id": j["id"], "label": j.get("label", ""), "change": change, "matched_by": how,
+        "previous_id": before["id"] if before else None,
+        "carried_over": bool(((after or {}).get("check") or {}).get("carried_over")),
         "what": what,
         "status_before": (before or {}).get("check", {}).get("status") if before else None,
         "status_after": (after or {}).get("check", {}).get("status") if after else None,
@@ -125,3 +140,26 @@ def write_comparison(cmp: dict, out) -> None:
         how = " (matched by position)" if r["matched_by"] == "position" else ""
         what = f": {', '.join(r['what'])}" if r["what"] else ""
         out.write(f"  {r['change']:9} {r['label']} ({r['id']}){how}  {st}{what}\n")
+
+
+def comparison_section(path: str, before: dict, after: dict) -> dict:
+    """The comparison with an earlier run, for the results (``check.comparison``).
+
+    Besides :func:`compare_results`: where the earlier results came from and when they
+    were checked. A joint matched by position (GlobalIds regenerated) keeps the earlier
+    joint's problem GUIDs, so its BCF topics, and the comments on them, carry on.
+    """
+    cmp = compare_results(before, after)
+    old = {j["id"]: j for j in before.get("joints", ())}
+    new = {j["id"]: j for j in after.get("joints", ())}
+    for r in cmp["joints"]:
+        if r["matched_by"] != "position":
+            continue
+        was = {p["kind"]: p["guid"] for p in old[r["previous_id"]]["check"]["problems"]}
+        for p in new[r["id"]]["check"]["problems"]:
+            p["guid"] = was.get(p["kind"], p["guid"])
+    cmp["counts"]["carried_over"] = sum(1 for r in cmp["joints"] if r["carried_over"])
+    return {"previous": {"path": path,
+                         "checked": before.get("check", {}).get("created", ""),
+                         "tool_version": before.get("check", {}).get("tool_version", "")},
+            **cmp}

@@ -124,3 +124,29 @@ def test_the_reader_takes_the_throat_where_the_ids_asks_for_it(tmp_path):
     f.write(str(path))
     (w,) = [x for x in scan(path).model.fasteners if x.guid == weld.GlobalId]
     assert w.weld_throat == pytest.approx(6.0)
+
+
+def test_a_joint_unreadable_for_lack_of_a_grade_names_the_requirement(tmp_path):
+    """The reason of an unreadable joint is the IDS requirement `requirements` finds missed."""
+    import json
+
+    f = ifcopenshell.open(str(SAMPLES / "kestrel-workshop-ifc4-mm.ifc"))
+    for rel in f.by_type("IfcRelAssociatesMaterial"):
+        f.remove(rel)  # no grade anywhere: the demo's names carry none
+    model = tmp_path / "no-grades.ifc"
+    f.write(str(model))
+    out = tmp_path / "r.json"
+    r = CliRunner().invoke(main, ["check", str(model), "--json", str(out), "--fail-on", "never",
+                                  "-q"])
+    assert r.exit_code == 0, r.output
+    joints = json.loads(out.read_text())["joints"]
+    bad = [j for j in joints if j["check"]["status"] == "unreadable"]
+    assert bad
+    for j in bad:
+        assert j["check"]["data_requirements"] == ["grade-members"]
+        assert "[IDS grade-members]" in j["check"]["status_reason"]
+        unchecked = [p for p in j["check"]["problems"] if p["kind"] == "unchecked"]
+        assert "grade-members" in unchecked[0]["description"]
+    # and the validation of the model against the IDS finds the same requirement missed
+    req = CliRunner().invoke(main, ["requirements", str(model)])
+    assert req.exit_code == 1 and f"misses {NAMES['grade-members']}" in req.output
