@@ -195,7 +195,7 @@ def _model_options(func):
     return func
 
 
-def _scan(model, bar, debug, **kw):
+def _scan(model, bar, debug, reads=None, **kw):
     """Scan MODEL with the options every command shares."""
     from ifcjoint.anatomy import AnatomySettings
     from ifcjoint.find import FinderSettings
@@ -214,6 +214,7 @@ def _scan(model, bar, debug, **kw):
             anatomy=AnatomySettings(
                 assume_steel_grade=kw["assume_grade"], assume_bolt_class=kw["assume_bolt_class"]
             ),
+            reads=reads,
         ),
     )
 
@@ -596,6 +597,10 @@ def _settings(params_file, frame, alpha_method):
               "settings and tool version are all the same are carried over, not re-checked; "
               "every joint is compared (new, removed, changed and what, status before and "
               "after) on stdout and in the JSON and HTML; BCF topics carry on.")
+@click.option("--no-read-cache", is_flag=True,
+              help="Read every element again with --since, and keep no reads for a later "
+              "--since (see the README: the reads of a run with --json are kept in the user's "
+              "cache folder).")
 @click.option(
     "--timestamp",
     type=click.DateTime(formats=["%Y-%m-%dT%H:%M:%S", "%Y-%m-%d"]),
@@ -626,6 +631,7 @@ def check(
     f_archetypes,
     f_joints,
     since,
+    no_read_cache,
     timestamp,
     quiet,
     debug,
@@ -658,7 +664,13 @@ def check(
         data = _guarded("reading the earlier results", debug, None, lambda: _read_results(since))
         previous = PreviousRun(path=since, results=data)
     bar = _Bar(sys.stderr.isatty() and not quiet)
-    result = _scan(model, bar, debug, **kw)
+    reads = None
+    if not no_read_cache and (previous is not None or json_out):
+        from ifcjoint.ifc.read_cache import ReadCache
+
+        reads = (ReadCache.load(previous.results.get("model", {}).get("sha256"))
+                 if previous is not None else ReadCache())
+    result = _scan(model, bar, debug, reads=reads, **kw)
     table = None
     if demands_file:
         table = _guarded("reading the demands", debug, None,
@@ -671,7 +683,8 @@ def check(
     )
     mc = _guarded("checking", debug, bar,
                   lambda: check_scan(result, table, settings, created=when, progress=bar,
-                                     previous=previous))
+                                     previous=previous,
+                                     notes=(reads.summary(),) if previous and reads else ()))
     targets = {"json": json_out, "csv": csv_out, "issues": issues_out, "parts": parts_out,
                "bcf": bcf_out, "ifc": ifc_out, "html": html_out, "md": md_out}
     html_bar = _Bar(sys.stderr.isatty() and not quiet)
@@ -684,6 +697,8 @@ def check(
     _guarded("writing the outputs", debug, html_bar,
              lambda: write_outputs(shown, targets, options, done=_wrote(quiet),
                                    complete=mc.results))
+    if reads is not None and json_out and reads.usable:
+        reads.save(result.model.sha256)  # for a later --since (best effort)
     if not quiet:
         write_check_summary(shown, sys.stdout, top=top)
     _guarded("scanning", debug, None, lambda: require_steel(result))

@@ -71,6 +71,7 @@ def scan(
     rules_file: str | Path | None = None,
     progress: Progress | None = None,
     anatomy: AnatomySettings | None = None,
+    reads=None,
 ) -> ScanResult:
     """Read a model and find every beam-to-column joint in it, with its anatomy and archetype.
 
@@ -81,19 +82,31 @@ def scan(
         rules_file: extra recognition rules (TOML) on top of the bundled ones.
         progress: optional callback ``(stage, done, total)``.
         anatomy: what to assume where the model says nothing (reported as assumptions).
+        reads: an earlier run's element reads (``ifcjoint.ifc.read_cache.ReadCache``):
+            unchanged elements are not read again; this run's reads are kept in it.
 
     Raises:
         ifcjoint.errors.ModelError: the model cannot be used.
         ifcjoint.errors.ConfigError: the rules file cannot be used.
     """
     rules = load_rules(rules_file)
-    model = read_model(path, assume_length_unit=assume_length_unit, rules=rules, progress=progress)
-    return describe_joints(find_joints(model, settings, progress=progress), anatomy)
+    model = read_model(path, assume_length_unit=assume_length_unit, rules=rules,
+                       progress=progress, reads=reads)
+    return describe_joints(find_joints(model, settings, progress=progress), anatomy, reads)
 
 
-def describe_joints(result: ScanResult, settings: AnatomySettings | None = None) -> ScanResult:
-    """Add each joint's anatomy, archetype and detailing findings to a scan."""
-    anatomy = analyse(result.joints, result.model, settings)
+def describe_joints(result: ScanResult, settings: AnatomySettings | None = None,
+                    reads=None) -> ScanResult:
+    """Add each joint's anatomy, archetype and detailing findings to a scan.
+
+    With ``reads`` (``ifcjoint.ifc.read_cache.ReadCache``), a joint's earlier anatomy is
+    taken when the joint is the same and every element its anatomy looked up is an
+    unchanged read (:func:`_analyse_reusing`).
+    """
+    if reads is None or not reads.usable:
+        anatomy = analyse(result.joints, result.model, settings)
+    else:
+        anatomy = _analyse_reusing(result.joints, result.model, settings, reads)
     joints = []
     for j, a in zip(result.joints, anatomy, strict=True):
         archetype, reason = decide(j, a)
@@ -101,6 +114,63 @@ def describe_joints(result: ScanResult, settings: AnatomySettings | None = None)
             replace(j, archetype=archetype, archetype_reason=reason, findings=a.findings)
         )
     return replace(result, joints=tuple(joints), anatomy={a.joint_id: a for a in anatomy})
+
+
+class _Seen(dict):
+    """A dictionary that notes every key looked up (to know what an anatomy depended on)."""
+
+    def __init__(self, items) -> None:
+        super().__init__(items)
+        self.seen: set = set()
+
+    def __getitem__(self, k):
+        self.seen.add(k)
+        return dict.__getitem__(self, k)
+
+    def get(self, k, default=None):
+        self.seen.add(k)
+        return dict.get(self, k, default)
+
+    def __contains__(self, k) -> bool:
+        self.seen.add(k)
+        return dict.__contains__(self, k)
+
+
+def _analyse_reusing(joints, model, settings: AnatomySettings | None, reads):
+    """Each joint's anatomy, taken from the earlier run where nothing it used changed.
+
+    Common practice, no source: an anatomy is a function of the joint the finder made, the
+    anatomy settings and the elements it looks up; the lookups of a fresh analysis are
+    recorded, and an earlier anatomy is used only when the joint is equal and every element
+    it looked up has the read key it had then (an element without one, or not in the model,
+    means a fresh analysis).
+    """
+    from ifcjoint.anatomy import analyse_joint
+
+    st = settings or AnatomySettings()
+    members = _Seen((m.guid, m) for m in model.members)
+    plates = _Seen((p.guid, p) for p in model.plates)
+    fasteners = _Seen((x.guid, x) for x in model.fasteners)
+    looked = (members, plates, fasteners)
+    base = f"{__version__}|{st!r}|"
+    keys = reads.guid_keys
+    out = []
+    for j in joints:
+        jk = hashlib.sha256((base + repr(j)).encode()).hexdigest()
+        hit = reads.anatomy_offered.get(jk)
+        if hit is not None and all(keys.get(g) == k for g, k in hit[0]):
+            reads.anatomy_kept[jk] = hit
+            reads.anatomy_reused += 1
+            out.append(hit[1])
+            continue
+        for d in looked:
+            d.seen.clear()
+        a = analyse_joint(j, members, plates, fasteners, st)
+        used = tuple(sorted((g, keys.get(g)) for d in looked for g in d.seen))
+        if all(k is not None for _, k in used):
+            reads.anatomy_kept[jk] = (used, a)
+        out.append(a)
+    return tuple(out)
 
 
 def require_steel(result: ScanResult) -> None:
@@ -226,11 +296,13 @@ class PreviousRun:
 
 
 def _scan_digest(joint_record: dict) -> str:
-    """A digest of a joint's scan description (the results record without its check)."""
-    from ifcjoint.report.results import finite_json
+    """A digest of a joint's scan description (the results record without its check).
 
+    A value that is not finite (null in the results file) makes the digests differ: such a
+    joint is checked again.
+    """
     body = {k: v for k, v in joint_record.items() if k != "check"}
-    text = json.dumps(finite_json(body), sort_keys=True, default=str)
+    text = json.dumps(body, sort_keys=True, default=str)
     return hashlib.sha256(text.encode()).hexdigest()
 
 
@@ -399,6 +471,7 @@ def check_scan(
     created: _dt.datetime | None = None,
     progress: Progress | None = None,
     previous: PreviousRun | None = None,
+    notes: tuple[str, ...] = (),
 ) -> ModelCheck:
     """Check every joint of a scan against its demands (see :func:`check`).
 
@@ -429,7 +502,7 @@ def check_scan(
         if progress is not None:
             progress("check", k, n)
     when = created or _dt.datetime.now(_dt.UTC).replace(microsecond=0)
-    notes = []
+    notes = list(notes)
     if previous is not None:
         carried = sum(1 for x in out if isinstance(x, CarriedCheck))
         why = "" if previous.settings_match(st) else (

@@ -13,6 +13,21 @@ SHARED = ROOT.parent / "shared"
 CORPUS = SHARED / "ifc-corpus"
 
 
+@pytest.fixture(scope="session", autouse=True)
+def _read_cache_in_a_temporary_folder(tmp_path_factory):
+    """Element reads kept by `check --json` go to a folder of this test run, not the home."""
+    import os
+
+    folder = tmp_path_factory.mktemp("read-cache")
+    old = os.environ.get("IFCJOINT_CACHE_DIR")
+    os.environ["IFCJOINT_CACHE_DIR"] = str(folder)
+    yield folder
+    if old is None:
+        os.environ.pop("IFCJOINT_CACHE_DIR", None)
+    else:
+        os.environ["IFCJOINT_CACHE_DIR"] = old
+
+
 @pytest.fixture(scope="session")
 def samples() -> Path:
     return SAMPLES

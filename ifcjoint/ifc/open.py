@@ -103,6 +103,18 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...
     Raises:
         ModelError: missing, unreadable, not IFC, truncated, or an unsupported schema.
     """
+    f, sha, notes, _ = open_model_text(path)
+    return f, sha, notes
+
+
+def open_model_text(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...], bytes]:
+    """As :func:`open_model`, with the IFC-SPF bytes the file was parsed from.
+
+    An ifczip's unpacked .ifc; for readers of the text itself (``ifc.digests``).
+
+    Raises:
+        ModelError: as :func:`open_model`.
+    """
     p = Path(path)
     if not p.exists():
         raise ModelError(str(path), "file not found")
@@ -149,4 +161,4 @@ def open_model(path: str | Path) -> tuple[ifcopenshell.file, str, tuple[str, ...
                 f = ifcopenshell.file.from_string(text)
         except Exception as exc:  # the parser raises several kinds
             raise ModelError(str(path), f"the IFC parser rejected the file: {exc}") from exc
-    return f, sha, (note,) if note else ()
+    return f, sha, (note,) if note else (), raw

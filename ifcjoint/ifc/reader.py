@@ -18,8 +18,10 @@ import numpy as np
 
 from ifcjoint.errors import ModelError
 from ifcjoint.ifc.context import ReadContext
+from ifcjoint.ifc.digests import element_digests
 from ifcjoint.ifc.elements import ElementReader
-from ifcjoint.ifc.open import SUPPORTED_SCHEMAS, open_model
+from ifcjoint.ifc.open import SUPPORTED_SCHEMAS, open_model, open_model_text
+from ifcjoint.ifc.read_cache import Outcome, ReadCache, rules_key
 from ifcjoint.ifc.recognition import Rules, load_rules
 from ifcjoint.ifc.relations import grid_axes, part_links
 from ifcjoint.ifc.units import LENGTH_UNITS, length_scale_to_mm
@@ -47,6 +49,7 @@ def read_model(
     assume_length_unit: str | None = None,
     rules: Rules | None = None,
     progress: Progress | None = None,
+    reads: ReadCache | None = None,
 ) -> ModelContents:
     """Read every beam, column, plate and fastener of a model, in mm.
 
@@ -55,12 +58,14 @@ def read_model(
         assume_length_unit: unit to use when the model declares none (``mm``, ``m``...).
         rules: recognition rules; the bundled ones when None.
         progress: optional callback ``(stage, done, total)``.
+        reads: an earlier run's element reads to reuse where an element is unchanged, and
+            where this run's are kept (``ifc.read_cache``); None: every element is read.
 
     Raises:
         ModelError: the file cannot be used (see :func:`open_model`), or it has no length unit.
     """
     rules = rules or load_rules()
-    f, sha, open_notes = open_model(path)
+    f, sha, open_notes, raw = open_model_text(path)
     where = str(path)
     scale, unit_source = _model_level(
         where, "the length unit", lambda: length_scale_to_mm(f, where, assume_length_unit))
@@ -72,7 +77,14 @@ def read_model(
                      lambda: ElementReader(ctx, scale, rules))
     found = _model_level(where, "the elements' classes and names",
                          lambda: _sort_elements(ctx, r, rules))
-    _read_elements(r, found, progress)
+    keys = None
+    if reads is not None:
+        keys = _read_keys(f, raw, ctx, found, scale, unit_source, rules)
+        if keys is None:
+            reads.usable = False
+            reads.why_not = "the model's text was not parsed with certainty"
+    del raw
+    _read_elements(r, found, progress, reads, keys)
     member_ids = {m.guid for m in r.members}
     part_ids = {p.guid for p in r.plates} | {x.guid for x in r.fasteners}
     links = _model_level(where, "the relationships of parts to members",
@@ -80,6 +92,8 @@ def read_model(
     axes = _model_level(where, "the grid", lambda: grid_axes(ctx, scale))
     counts, notes = _counts_and_notes(r, found)
     notes = [*open_notes, *notes]
+    if reads is not None and (reads.asked or not reads.usable):
+        notes.append(reads.summary())
     return ModelContents(
         path=str(path),
         schema=ctx.schema,
@@ -157,7 +171,30 @@ def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
     return out
 
 
-def _read_elements(r: ElementReader, found: _Sorted, progress: Progress | None) -> None:
+def _read_keys(f, raw: bytes, ctx: ReadContext, found: _Sorted, scale: float,
+               unit_source: str, rules: Rules) -> dict[int, str] | None:
+    """Each sorted element's cache key; None when the text gives no digests.
+
+    Its content digest with everything else its read depends on: its key in the results,
+    the unit, the rules, the tool.
+    """
+    import hashlib
+
+    from ifcjoint import __version__
+
+    els = [*found.members, *found.plates, *(el for el, _ in found.fasteners)]
+    kinds = {el.id(): str(k) for el, k in found.fasteners}
+    digests = element_digests(raw, ctx.schema, [e.id() for e in els], f.entity_names())
+    if digests is None:
+        return None
+    common = f"{__version__}|{ctx.schema}|{scale!r}|{unit_source}|{rules_key(rules)}"
+    return {e.id(): hashlib.sha256(
+        f"{common}|{digests[e.id()]}|{ctx.key(e)}|{e.is_a()}|{kinds.get(e.id(), '')}".encode()
+    ).hexdigest() for e in els}
+
+
+def _read_elements(r: ElementReader, found: _Sorted, progress: Progress | None,
+                   reads: ReadCache | None = None, keys: dict[int, str] | None = None) -> None:
     """Read every sorted element; one that fails is recorded and never stops the others.
 
     Damaged numbers (NaN, infinities, zero lengths) are not warned about by numpy on the way:
@@ -165,10 +202,30 @@ def _read_elements(r: ElementReader, found: _Sorted, progress: Progress | None) 
     is reported unreadable with the reason (``elements._finite``).
     """
     with np.errstate(all="ignore"):
-        _read_each(r, found, progress)
+        _read_each(r, found, progress, reads, keys)
 
 
-def _read_each(r: ElementReader, found: _Sorted, progress: Progress | None) -> None:
+def _sizes(r: ElementReader) -> tuple[int, ...]:
+    return (len(r.members), len(r.plates), len(r.fasteners), len(r.unreadable), len(r.notes),
+            r.plate_members, len(r.pending_mesh))
+
+
+def _outcome(r: ElementReader, before: tuple[int, ...]) -> Outcome | None:
+    """What one read added, if it may be kept: no note, no failure, nothing left to mesh."""
+    if _sizes(r)[3:5] != before[3:5] or len(r.pending_mesh) != before[6]:
+        return None
+    return Outcome(members=tuple(r.members[before[0]:]), plates=tuple(r.plates[before[1]:]),
+                   fasteners=tuple(r.fasteners[before[2]:]),
+                   plate_members=r.plate_members - before[5])
+
+
+def _note_keys(reads: ReadCache, key: str, out: Outcome) -> None:
+    for x in (*out.members, *out.plates, *out.fasteners):
+        reads.guid_keys[x.guid] = key
+
+
+def _read_each(r: ElementReader, found: _Sorted, progress: Progress | None,
+               reads: ReadCache | None = None, keys: dict[int, str] | None = None) -> None:
     jobs = [
         *((el, r.read_member, "member", ()) for el in found.members),
         *((el, r.read_plate, "plate", ()) for el in found.plates),
@@ -176,11 +233,30 @@ def _read_each(r: ElementReader, found: _Sorted, progress: Progress | None) -> N
     ]
     total = len(jobs)
     step = max(1, total // 100)
+    caching = reads is not None and keys is not None
     for done, (el, read, what, args) in enumerate(jobs, start=1):
-        try:
-            read(el, *args)
-        except Exception as exc:  # one bad element never stops the scan
-            r.fail(el, f"cannot read {what} geometry: {exc}")
+        key = keys.get(el.id()) if caching else None
+        earlier = reads.offered.get(key) if key is not None else None
+        if earlier is not None:
+            r.members.extend(earlier.members)
+            r.plates.extend(earlier.plates)
+            r.fasteners.extend(earlier.fasteners)
+            r.plate_members += earlier.plate_members
+            reads.kept[key] = earlier
+            reads.reused += 1
+            _note_keys(reads, key, earlier)
+        else:
+            before = _sizes(r)
+            try:
+                read(el, *args)
+            except Exception as exc:  # one bad element never stops the scan
+                r.fail(el, f"cannot read {what} geometry: {exc}")
+            if key is not None:
+                reads.read += 1
+                out = _outcome(r, before)
+                if out is not None:
+                    reads.kept[key] = out
+                    _note_keys(reads, key, out)
         if progress and done % step == 0:
             progress("read", done, total)
     if progress:

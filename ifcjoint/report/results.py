@@ -393,10 +393,17 @@ def build_results(mc) -> dict:
     d = mc.scan_record if mc.scan_record is not None else build_scan(mc.scan)
     d["results_schema_version"] = RESULTS_SCHEMA_VERSION
     by_id = {jc.joint.id: jc for jc in mc.joints}
+    joints = []
     for j in d["joints"]:
         jc = by_id[j["id"]]
-        j["check"] = (carried_check_dict(jc) if hasattr(jc, "record")
-                      else joint_check_dict(jc, code))
+        if hasattr(jc, "record"):  # carried over: the earlier record (strict JSON already)
+            earlier = jc.previous.joints[j["id"]]
+            joints.append({**{k: v for k, v in earlier.items() if k != "check"},
+                           "check": carried_check_dict(jc)})
+        else:
+            j["check"] = joint_check_dict(jc, code)
+            joints.append(finite_json(j))
+    d["joints"] = joints
     dem = mc.demands
     d["check"] = {
         "created": mc.created.isoformat(),
@@ -428,7 +435,7 @@ def build_results(mc) -> dict:
     }
     d["check"]["coverage"] = beam_end_coverage(d)
     d["caution"] = CAUTION
-    d = finite_json(d)
+    d = {k: v if k == "joints" else finite_json(v) for k, v in d.items()}  # joints: above
     if mc.previous is not None:
         from ifcjoint.report.revisions import comparison_section
 

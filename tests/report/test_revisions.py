@@ -125,9 +125,17 @@ def test_a_rerun_carries_over_exactly_the_unchanged_joints_and_equals_a_recheck(
     assert thick["id"] not in carried
     assert cmp["counts"]["carried_over"] == len(carried)
     assert f"{len(carried)} result(s) carried over" in r.output
-    # invariant: a carried-over result is what checking again gives
+    # invariant: a carried-over result is what checking again gives, and the elements and
+    # anatomies taken from the earlier run's reads are what reading again gives
     fresh = _checks(after)
     assert _checks(rerun) == fresh
+    again = json.loads(after.read_text())
+    for key in ("counts", "other_beam_ends", "unreadable"):
+        assert data[key] == again[key], key
+    scan_part = [{k: v for k, v in j.items() if k != "check"} for j in data["joints"]]
+    assert scan_part == [{k: v for k, v in j.items() if k != "check"} for j in again["joints"]]
+    reused = next(n for n in data["notes"] if "taken from its reads" in n)
+    assert not reused.startswith("0 element")  # the earlier reads were used
     # the comparison is the one `compare` makes
     alone = compare_results(json.loads(before.read_text()), json.loads(after.read_text()))
     assert {k: v for k, v in cmp["counts"].items() if k != "carried_over"} == alone["counts"]

@@ -1,0 +1,143 @@
+"""Element reads kept between runs, by content digest (``ifc.digests``).
+
+A run that is told of an earlier one (``check --since``) is offered that run's reads: an
+element whose digest (its record, everything it names, its relationships, its type's), the
+length unit, the recognition rules and the tool version are all the same is not read again,
+its earlier read is taken. A joint's anatomy is taken likewise when the joint the finder
+made is the same and every element its anatomy looked up is an unchanged read. Every element
+read anew is read exactly as without a cache; reads that left a note or failed, and bodies
+that had to be tessellated, are never kept (their messages name entity numbers), so what a
+run reports never depends on the cache.
+
+The cache is a file per model (named by the SHA-256 of the model's bytes) in the user's cache
+folder: ``$IFCJOINT_CACHE_DIR``, else ``$XDG_CACHE_HOME/ifcjoint``, else
+``~/.cache/ifcjoint``; the newest :data:`KEEP` files are kept. The files are Python pickles:
+only the user's own folder is read, and a file of another format or tool version is ignored.
+"""
+
+from __future__ import annotations
+
+import contextlib
+import hashlib
+import json
+import os
+import pickle
+import re
+from dataclasses import dataclass, field, fields
+from pathlib import Path
+
+from ifcjoint import __version__
+
+#: Cache files kept (the newest; common practice, no source).
+KEEP = 8
+#: The file format: a file of another is ignored.
+FORMAT = 1
+
+
+def cache_folder() -> Path:
+    """Where the read caches live."""
+    env = os.environ.get("IFCJOINT_CACHE_DIR")
+    if env:
+        return Path(env)
+    base = os.environ.get("XDG_CACHE_HOME") or str(Path.home() / ".cache")
+    return Path(base) / "ifcjoint"
+
+
+def cache_file(model_sha256: str) -> Path:
+    """The cache file of the model with these bytes."""
+    return cache_folder() / f"reads-{model_sha256[:32]}.pickle"
+
+
+@dataclass(frozen=True, slots=True)
+class Outcome:
+    """What reading one element added: its member, plate or fastener (or several)."""
+
+    members: tuple = ()
+    plates: tuple = ()
+    fasteners: tuple = ()
+    plate_members: int = 0
+
+
+def rules_key(rules) -> str:
+    """A digest of the recognition rules (the reads depend on them)."""
+
+    def plain(x):
+        if isinstance(x, re.Pattern):
+            return x.pattern
+        if isinstance(x, (set, frozenset)):
+            return sorted(map(plain, x))
+        if isinstance(x, (list, tuple)):
+            return [plain(v) for v in x]
+        if hasattr(x, "__dataclass_fields__"):
+            return {f.name: plain(getattr(x, f.name)) for f in fields(x)}
+        return x if isinstance(x, (str, int, float, bool, type(None))) else repr(x)
+
+    text = json.dumps(plain(rules), sort_keys=True)
+    return hashlib.sha256(text.encode()).hexdigest()
+
+
+@dataclass
+class ReadCache:
+    """The reads offered by an earlier run, and the ones this run keeps for the next."""
+
+    offered: dict[str, Outcome] = field(default_factory=dict)
+    kept: dict[str, Outcome] = field(default_factory=dict)
+    reused: int = 0
+    read: int = 0
+    source: str = ""  # the file the offered reads came from ("" when none)
+    usable: bool = True  # False: the model's text could not be digested (nothing reused)
+    why_not: str = ""
+    asked: bool = False  # an earlier run's reads were asked for (their note is due)
+    guid_keys: dict[str, str] = field(default_factory=dict)  # element key -> its read's key
+    anatomy_offered: dict[str, tuple] = field(default_factory=dict)
+    anatomy_kept: dict[str, tuple] = field(default_factory=dict)
+    anatomy_reused: int = 0
+
+    @classmethod
+    def load(cls, model_sha256: str | None) -> ReadCache:
+        """The reads kept for the model with these bytes (empty when there are none)."""
+        if not model_sha256:
+            return cls(asked=True)
+        path = cache_file(model_sha256)
+        try:
+            with path.open("rb") as fh:
+                data = pickle.load(fh)  # the user's own cache folder (see the module)
+        except (OSError, pickle.UnpicklingError, EOFError, AttributeError, ImportError,
+                TypeError, ValueError):
+            return cls(asked=True)
+        if not (isinstance(data, dict) and data.get("format") == FORMAT
+                and data.get("tool_version") == __version__):
+            return cls(asked=True)
+        return cls(offered=data.get("reads", {}), anatomy_offered=data.get("anatomy", {}),
+                   source=str(path), asked=True)
+
+    def save(self, model_sha256: str) -> Path | None:
+        """Keep this run's reads for the next run (best effort: a cache never fails a run)."""
+        folder = cache_folder()
+        path = cache_file(model_sha256)
+        try:
+            folder.mkdir(parents=True, exist_ok=True)
+            tmp = path.with_suffix(".tmp")
+            with tmp.open("wb") as fh:
+                pickle.dump({"format": FORMAT, "tool_version": __version__,
+                             "reads": self.kept, "anatomy": self.anatomy_kept}, fh,
+                            protocol=pickle.HIGHEST_PROTOCOL)
+            tmp.replace(path)
+            old = sorted(folder.glob("reads-*.pickle"), key=lambda p: p.stat().st_mtime,
+                         reverse=True)
+            for p in old[KEEP:]:
+                with contextlib.suppress(OSError):
+                    p.unlink()
+        except OSError:
+            return None
+        return path
+
+    def summary(self) -> str:
+        """One line for the run's notes."""
+        if not self.usable:
+            return f"read cache not used: {self.why_not}; every element read"
+        if not self.source:
+            return "no earlier reads kept for the earlier run's model: every element read"
+        return (f"{self.reused} element(s) unchanged since the earlier run taken from its "
+                f"reads, {self.read} read; {self.anatomy_reused} joint anatomies whose joint "
+                "and parts are unchanged taken from it")

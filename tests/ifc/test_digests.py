@@ -1,0 +1,171 @@
+"""Element digests (ifc/digests.py): they change exactly when what an element's read
+depends on changes, whatever the entity numbers.
+
+Each test edits a small model the way a modeller's next issue would, and compares every
+element's digest before and after: the edited elements differ, every other is equal.
+"""
+
+from __future__ import annotations
+
+import ifcopenshell
+import ifcopenshell.api.aggregate
+import ifcopenshell.api.context
+import ifcopenshell.api.feature
+import ifcopenshell.api.geometry
+import ifcopenshell.api.material
+import ifcopenshell.api.pset
+import ifcopenshell.api.root
+import ifcopenshell.api.spatial
+import ifcopenshell.api.type
+import ifcopenshell.api.unit
+import pytest
+
+from ifcjoint.ifc.digests import element_digests
+
+
+def _model(schema: str = "IFC4"):
+    """Two storeys; beams B1, B2 (S355, typed T1 with its own material), plate P1 with a pset."""
+    f = ifcopenshell.file(schema=schema)
+    root = ifcopenshell.api.root.create_entity
+    project = root(f, ifc_class="IfcProject", name="digest test")
+    ifcopenshell.api.unit.assign_unit(f)
+    ctx = ifcopenshell.api.context.add_context(f, context_type="Model")
+    body = ifcopenshell.api.context.add_context(f, context_type="Model", context_identifier="Body",
+                                                target_view="MODEL_VIEW", parent=ctx)
+    site = root(f, ifc_class="IfcSite", name="site")
+    ifcopenshell.api.aggregate.assign_object(f, products=[site], relating_object=project)
+    storeys = []
+    for k in range(2):
+        s = root(f, ifc_class="IfcBuildingStorey", name=f"L{k}")
+        ifcopenshell.api.geometry.edit_object_placement(f, product=s)
+        ifcopenshell.api.aggregate.assign_object(f, products=[s], relating_object=site)
+        storeys.append(s)
+    steel = f.createIfcMaterial("S355")
+    other = f.createIfcMaterial("S275")
+    typ = root(f, ifc_class="IfcBeamType", name="T1")
+    ifcopenshell.api.material.assign_material(f, products=[typ], material=other)
+    els = {}
+    for name, cls, storey in (("B1", "IfcBeam", 0), ("B2", "IfcBeam", 0), ("B3", "IfcBeam", 1),
+                              ("P1", "IfcPlate", 0)):
+        e = root(f, ifc_class=cls, name=name)
+        ifcopenshell.api.geometry.edit_object_placement(f, product=e)
+        rep = ifcopenshell.api.geometry.add_wall_representation(
+            f, context=body, length=2.0, height=0.3, thickness=0.02)
+        ifcopenshell.api.geometry.assign_representation(f, product=e, representation=rep)
+        ifcopenshell.api.spatial.assign_container(f, products=[e],
+                                                  relating_structure=storeys[storey])
+        els[name] = e
+    ifcopenshell.api.material.assign_material(f, products=[els["B1"], els["B2"], els["B3"]],
+                                              material=steel)
+    ifcopenshell.api.type.assign_type(f, related_objects=[els["B2"]], relating_type=typ)
+    ps = ifcopenshell.api.pset.add_pset(f, product=els["P1"], name="ifcjoint_TestSet")
+    ifcopenshell.api.pset.edit_pset(f, pset=ps, properties={"Mark": "EP-1; first"})
+    return f, els
+
+
+def _digests(f) -> dict[str, str]:
+    """Every element's digest by its name, from the file's text as written."""
+    text = f.to_string()
+    g = ifcopenshell.file.from_string(text)
+    els = [e for e in g.by_type("IfcElement")]
+    d = element_digests(text.encode(), g.schema, [e.id() for e in els], g.entity_names())
+    assert d is not None
+    return {e.Name: d[e.id()] for e in els}
+
+
+def _changed(before: dict, after: dict) -> set[str]:
+    return {k for k in before if before[k] != after.get(k)}
+
+
+def test_renumbered_entities_and_a_new_owner_history_change_nothing():
+    f, _ = _model()
+    before = _digests(f)
+    g = ifcopenshell.file(schema=f.schema)
+    for e in reversed(list(f)):  # every entity again, numbered in another order
+        g.add(e)
+    assert _digests(g) == before
+    person, org = f.createIfcPerson(FamilyName="Modeller"), f.createIfcOrganization(Name="Co")
+    user = f.createIfcPersonAndOrganization(person, org)
+    app = f.createIfcApplication(org, "1", "exporter", "exp")
+    history = f.createIfcOwnerHistory(user, app, None, "ADDED", None, None, None, 1000)
+    for e in f.by_type("IfcRoot"):
+        e.OwnerHistory = history
+    before = _digests(f)
+    history.CreationDate = 2000  # a re-export stamps its date
+    assert _digests(f) == before
+
+
+def test_a_thicker_plate_changes_the_plate_only():
+    f, els = _model()
+    before = _digests(f)
+    solid = els["P1"].Representation.Representations[0].Items[0]
+    solid.Depth = solid.Depth * 1.25
+    assert _changed(before, _digests(f)) == {"P1"}
+
+
+def test_a_property_of_one_element_changes_that_element_only():
+    f, els = _model()
+    before = _digests(f)
+    pset = next(r.RelatingPropertyDefinition for r in els["P1"].IsDefinedBy)
+    ifcopenshell.api.pset.edit_pset(f, pset=pset, properties={"Mark": "EP-1; second"})
+    assert _changed(before, _digests(f)) == {"P1"}
+
+
+def test_a_shared_material_or_a_type_material_changes_the_elements_using_it():
+    f, _ = _model()
+    before = _digests(f)
+    f.by_type("IfcMaterial")[0].Name = "S460"  # the beams' material
+    assert _changed(before, _digests(f)) == {"B1", "B2", "B3"}
+    before = _digests(f)
+    next(m for m in f.by_type("IfcMaterial") if m.Name == "S275").Name = "S235"  # the type's
+    assert _changed(before, _digests(f)) == {"B2"}
+
+
+def test_moving_a_storey_changes_its_elements_only():
+    f, els = _model()
+    before = _digests(f)
+    storey = next(s for s in f.by_type("IfcBuildingStorey") if s.Name == "L1")
+    storey.ObjectPlacement.RelativePlacement.Location.Coordinates = (0.0, 0.0, 3.5)
+    assert _changed(before, _digests(f)) == {"B3"}
+
+
+def test_a_new_hole_changes_the_plate():
+    f, els = _model()
+    before = _digests(f)
+    opening = ifcopenshell.api.root.create_entity(f, ifc_class="IfcOpeningElement", name="hole")
+    ifcopenshell.api.feature.add_feature(f, feature=opening, element=els["P1"])
+    after = _digests(f)
+    assert _changed(before, after) == {"P1"}
+
+
+def test_material_properties_are_part_of_the_material():
+    f, _ = _model()
+    steel = next(m for m in f.by_type("IfcMaterial") if m.Name == "S355")
+    props = f.createIfcMaterialProperties("Grade", None, [f.createIfcPropertySingleValue(
+        "Grade", None, f.createIfcLabel("S355J2"), None)], steel)
+    before = _digests(f)
+    props.Properties[0].NominalValue = f.createIfcLabel("S355J0")
+    assert _changed(before, _digests(f)) == {"B1", "B2", "B3"}
+
+
+def test_strings_with_semicolons_and_quotes_are_read_whole():
+    f, els = _model()
+    els["B1"].Description = "it''s; a test; with #12 in it"
+    before = _digests(f)
+    els["B1"].Description = "it''s; a test; with #12 in it!"  # after the semicolons
+    assert _changed(before, _digests(f)) == {"B1"}
+
+
+@pytest.mark.parametrize("edit", ["comment", "missing"])
+def test_text_not_read_with_certainty_gives_no_digests(edit):
+    f, _ = _model()
+    text = f.to_string()
+    g = ifcopenshell.file.from_string(text)
+    ids = [e.id() for e in g.by_type("IfcElement")]
+    if edit == "comment":
+        raw = text.replace("\nDATA;\n", "\nDATA;\n/* a comment; #1=IFCX(); */\n").encode()
+        names = g.entity_names()
+    else:
+        raw = text.encode()
+        names = (*g.entity_names(), 999999)  # ifcopenshell read one more than the text has
+    assert element_digests(raw, g.schema, ids, names) is None
