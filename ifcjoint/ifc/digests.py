@@ -32,6 +32,8 @@ import sys
 _INSTANCE = re.compile(rb"#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\(((?:[^;']|'(?:[^']|'')*')*)\)\s*;",
                        re.S)
 _REF = re.compile(rb"#(\d+)")
+#: One instance on one line (the usual layout): checked by quote parity and entity numbers.
+_LINE = re.compile(rb"(?ms)^[ \t]*#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\((.*?)\)[ \t]*;[ \t\r]*$")
 #: The first two attributes of a rooted record: its GlobalId and its OwnerHistory.
 _ROOT_HEAD = re.compile(rb"^\s*('(?:[^']|'')*'\s*,\s*)(#\d+|\$)")
 #: A top-level attribute: strings, parenthesised lists (two levels) and bare tokens.
@@ -194,10 +196,18 @@ def element_digests(raw: bytes, schema: str, ids: list[int], entity_ids
     data = raw[start + 6:end]
     if b"/*" in data:
         return None  # comments may hold anything: not parsed here
-    found = _INSTANCE.findall(data)
-    body = {int(k): (n.upper(), a) for k, n, a in found}
-    if len(body) != len(found) or body.keys() != set(entity_ids):
-        return None
+    wanted = set(entity_ids)
+    body = None
+    found = _LINE.findall(data)  # one instance a line, the usual way: fast
+    if not any(a.count(b"'") & 1 for _, _, a in found):  # no string cut at a ");" in it
+        body = {int(k): (n.upper(), a) for k, n, a in found}
+        if len(body) != len(found) or body.keys() != wanted:
+            body = None
+    if body is None:  # instances over lines, several a line: the careful parse
+        found = _INSTANCE.findall(data)
+        body = {int(k): (n.upper(), a) for k, n, a in found}
+        if len(body) != len(found) or body.keys() != wanted:
+            return None
     try:
         g = _Graph(body, _subtypes(schema, "IfcRoot"), _subtypes(schema, "IfcTypeObject"))
         old = sys.getrecursionlimit()

@@ -117,7 +117,7 @@ class ReadCache:
         path = cache_file(model_sha256)
         try:
             folder.mkdir(parents=True, exist_ok=True)
-            tmp = path.with_suffix(".tmp")
+            tmp = path.with_suffix(f".{os.getpid()}.tmp")  # two runs may keep one model
             with tmp.open("wb") as fh:
                 pickle.dump({"format": FORMAT, "tool_version": __version__,
                              "reads": self.kept, "anatomy": self.anatomy_kept}, fh,

@@ -1,0 +1,68 @@
+"""The read cache file (ifc/read_cache.py): kept per model, ignored when not ours, pruned."""
+
+from __future__ import annotations
+
+import hashlib
+import os
+import pickle
+
+from ifcjoint import __version__
+from ifcjoint.ifc import read_cache
+from ifcjoint.ifc.read_cache import KEEP, Outcome, ReadCache, cache_file
+
+
+def test_reads_kept_are_offered_to_the_next_run(tmp_path, monkeypatch):
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path))
+    rc = ReadCache()
+    rc.kept["k1"] = Outcome(plate_members=1)
+    rc.anatomy_kept["j1"] = ((("g", "k1"),), "anatomy")
+    assert rc.save("ab" * 32) == cache_file("ab" * 32)
+    again = ReadCache.load("ab" * 32)
+    assert again.offered == {"k1": Outcome(plate_members=1)} and again.asked
+    assert again.anatomy_offered == {"j1": ((("g", "k1"),), "anatomy")}
+    assert "taken from its reads" in again.summary()
+
+
+def test_a_file_not_ours_or_damaged_is_ignored(tmp_path, monkeypatch):
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path))
+    cache_file("cd" * 32).write_bytes(b"not a pickle")
+    assert ReadCache.load("cd" * 32).offered == {}
+    with cache_file("ef" * 32).open("wb") as fh:
+        pickle.dump({"format": 1, "tool_version": "0.0.0-other", "reads": {"k": 1}}, fh)
+    got = ReadCache.load("ef" * 32)
+    assert got.offered == {} and "every element read" in got.summary()
+    assert ReadCache.load(None).offered == {}
+
+
+def test_only_the_newest_files_are_kept(tmp_path, monkeypatch):
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path))
+    shas = [hashlib.sha256(str(k).encode()).hexdigest() for k in range(KEEP + 3)]
+    for k, sha in enumerate(shas):
+        path = ReadCache().save(sha)
+        os.utime(path, (1000 + k, 1000 + k))
+    ReadCache().save("f" * 64)
+    left = sorted(tmp_path.glob("reads-*.pickle"))
+    assert len(left) == KEEP and cache_file("f" * 64) in left
+    assert cache_file(shas[0]) not in left  # the oldest went first
+    assert cache_file(shas[-1]) in left
+    assert read_cache.FORMAT == 1 and __version__
+
+
+def test_check_keeps_reads_only_with_json_and_not_when_told(tmp_path, monkeypatch):
+    from click.testing import CliRunner
+
+    from ifcjoint.cli import main
+    from tests.conftest import SAMPLES
+
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path / "c"))
+    model = str(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
+    run = CliRunner().invoke
+    assert run(main, ["check", model, "--fail-on", "never", "-q", "--no-read-cache",
+                      "--json", str(tmp_path / "a.json")]).exit_code == 0
+    assert not (tmp_path / "c").exists()
+    assert run(main, ["check", model, "--fail-on", "never", "-q",
+                      "--csv", str(tmp_path / "a.csv")]).exit_code == 0
+    assert not (tmp_path / "c").exists()
+    assert run(main, ["check", model, "--fail-on", "never", "-q",
+                      "--json", str(tmp_path / "b.json")]).exit_code == 0
+    assert len(list((tmp_path / "c").glob("reads-*.pickle"))) == 1
