@@ -34,6 +34,8 @@ _INSTANCE = re.compile(rb"#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\(((?:[^;']|'(?:[^']|''
 _REF = re.compile(rb"#(\d+)")
 #: One instance on one line (the usual layout): checked by quote parity and entity numbers.
 _LINE = re.compile(rb"(?ms)^[ \t]*#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\((.*?)\)[ \t]*;[ \t\r]*$")
+#: A line that ends an instance (or a string that would fool the one-line pattern).
+_LINE_END = re.compile(rb"(?m);[ \t\r]*$")
 #: The first two attributes of a rooted record: its GlobalId and its OwnerHistory.
 _ROOT_HEAD = re.compile(rb"^\s*('(?:[^']|'')*'\s*,\s*)(#\d+|\$)")
 #: A top-level attribute: strings, parenthesised lists (two levels) and bare tokens.
@@ -59,11 +61,11 @@ class _Graph:
         self.material_props: dict[int, list[int]] = {}
         self.naming: dict[int, list[int]] = {}  # entity -> relationships naming it
         for k, (name, args) in body.items():
-            if name.startswith(b"IFCREL"):
+            if name[:6] == b"IFCREL":
                 for r in set(_REF.findall(args)):
                     self.naming.setdefault(int(r), []).append(k)
             elif name in _MATERIAL_PROPERTY_TYPES or (
-                    name.startswith(b"IFCMATERIAL") and b"PROPERT" in name):
+                    name[:11] == b"IFCMATERIAL" and b"PROPERT" in name):
                 for r in set(_REF.findall(args)):
                     if body.get(int(r), (b"",))[0] == b"IFCMATERIAL":
                         self.material_props.setdefault(int(r), []).append(k)
@@ -199,7 +201,7 @@ def element_digests(raw: bytes, schema: str, ids: list[int], entity_ids
     wanted = set(entity_ids)
     body = None
     found = _LINE.findall(data)  # one instance a line, the usual way: fast
-    if not any(a.count(b"'") & 1 for _, _, a in found):  # no string cut at a ");" in it
+    if len(_LINE_END.findall(data)) == len(found):  # no ");" ends a line inside a string
         body = {int(k): (n.upper(), a) for k, n, a in found}
         if len(body) != len(found) or body.keys() != wanted:
             body = None
