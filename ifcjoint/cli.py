@@ -597,10 +597,12 @@ def _settings(params_file, frame, alpha_method):
               "settings and tool version are all the same are carried over, not re-checked; "
               "every joint is compared (new, removed, changed and what, status before and "
               "after) on stdout and in the JSON and HTML; BCF topics carry on.")
+@click.option("--keep-reads", is_flag=True,
+              help="Keep this run's element reads and joint anatomies in the user's cache "
+              "folder, so that a later check --since this run's results reads only what "
+              "changed (a run with --since keeps them anyway).")
 @click.option("--no-read-cache", is_flag=True,
-              help="Read every element again with --since, and keep no reads for a later "
-              "--since (see the README: the reads of a run with --json are kept in the user's "
-              "cache folder).")
+              help="With --since: read every element again, and keep nothing.")
 @click.option(
     "--timestamp",
     type=click.DateTime(formats=["%Y-%m-%dT%H:%M:%S", "%Y-%m-%d"]),
@@ -631,6 +633,7 @@ def check(
     f_archetypes,
     f_joints,
     since,
+    keep_reads,
     no_read_cache,
     timestamp,
     quiet,
@@ -665,7 +668,7 @@ def check(
         previous = PreviousRun(path=since, results=data)
     bar = _Bar(sys.stderr.isatty() and not quiet)
     reads = None
-    if not no_read_cache and (previous is not None or json_out):
+    if not no_read_cache and (previous is not None or keep_reads):
         from ifcjoint.ifc.read_cache import ReadCache
 
         reads = (ReadCache.load(previous.results.get("model", {}).get("sha256"))
@@ -697,7 +700,7 @@ def check(
     _guarded("writing the outputs", debug, html_bar,
              lambda: write_outputs(shown, targets, options, done=_wrote(quiet),
                                    complete=mc.results))
-    if reads is not None and json_out and reads.usable:
+    if reads is not None and reads.usable:
         reads.save(result.model.sha256)  # for a later --since (best effort)
     if not quiet:
         write_check_summary(shown, sys.stdout, top=top)

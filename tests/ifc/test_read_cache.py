@@ -48,7 +48,7 @@ def test_only_the_newest_files_are_kept(tmp_path, monkeypatch):
     assert read_cache.FORMAT == 1 and __version__
 
 
-def test_check_keeps_reads_only_with_json_and_not_when_told(tmp_path, monkeypatch):
+def test_check_keeps_reads_only_when_asked(tmp_path, monkeypatch):
     from click.testing import CliRunner
 
     from ifcjoint.cli import main
@@ -57,12 +57,11 @@ def test_check_keeps_reads_only_with_json_and_not_when_told(tmp_path, monkeypatc
     monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path / "c"))
     model = str(SAMPLES / "kestrel-workshop-ifc4-mm.ifc")
     run = CliRunner().invoke
-    assert run(main, ["check", model, "--fail-on", "never", "-q", "--no-read-cache",
+    assert run(main, ["check", model, "--fail-on", "never", "-q",
                       "--json", str(tmp_path / "a.json")]).exit_code == 0
+    assert not (tmp_path / "c").exists()  # a plain check keeps nothing
+    assert run(main, ["check", model, "--fail-on", "never", "-q", "--since",
+                      str(tmp_path / "a.json"), "--no-read-cache"]).exit_code == 0
     assert not (tmp_path / "c").exists()
-    assert run(main, ["check", model, "--fail-on", "never", "-q",
-                      "--csv", str(tmp_path / "a.csv")]).exit_code == 0
-    assert not (tmp_path / "c").exists()
-    assert run(main, ["check", model, "--fail-on", "never", "-q",
-                      "--json", str(tmp_path / "b.json")]).exit_code == 0
+    assert run(main, ["check", model, "--fail-on", "never", "-q", "--keep-reads"]).exit_code == 0
     assert len(list((tmp_path / "c").glob("reads-*.pickle"))) == 1

@@ -32,7 +32,8 @@ def run(*args):
 def revisions(tmp_path_factory):
     d = tmp_path_factory.mktemp("rev")
     before = d / "before.json"
-    assert run("check", DEMO, "--json", before, "--fail-on", "never", "-q").exit_code == 0
+    assert run("check", DEMO, "--json", before, "--keep-reads", "--fail-on", "never",
+               "-q").exit_code == 0
     data = json.loads(before.read_text())
     f = ifcopenshell.open(str(DEMO))
     # 1. thicken the end plate of the first checked extended end plate joint (20 -> 25 mm)
