@@ -723,6 +723,12 @@ def _read_results(results_json: str) -> dict:
     from ifcjoint.report.results import READABLE_SCHEMA_VERSIONS
 
     try:
+        with Path(results_json).open("rb") as fh:
+            head = fh.read(16)
+        if head.startswith((b"ISO-10303-21", b"PK\x03\x04")):
+            raise ResultsFileError(
+                f"{results_json}: an IFC model, not results; give the results JSON that "
+                "`ifcjoint check --json` wrote for it")
         data = json.loads(Path(results_json).read_text(encoding="utf-8"))
     except OSError as exc:
         raise ResultsFileError(f"{results_json}: cannot read ({exc.strerror or exc})") from exc

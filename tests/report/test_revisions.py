@@ -185,13 +185,18 @@ def test_with_demands_every_joint_is_carried_and_the_outputs_are_the_same(tmp_pa
     a, b = tmp_path / "a.json", tmp_path / "b.json"
     assert run("check", DEMO, "--demands", demands, "--json", a, "--fail-on", "never",
                "-q").exit_code == 0
+    html = tmp_path / "b.html"
     r = run("check", DEMO, "--demands", demands, "--json", b, "--since", a, "--fail-on",
-            "never")
+            "never", "--html", html)
     assert r.exit_code == 0, r.output
+    page = html.read_text()
+    assert "Since the earlier run" in page and "carried over from the earlier run" in page
     n = len(json.loads(a.read_text())["joints"])
     assert f"{n} result(s) carried over" in r.output and "0 changed" in r.output
     assert _checks(a) == _checks(b)
     assert run("check", DEMO, "--json", a, "--since", a, "-q").exit_code == 2  # never an input
+    wrong = run("check", DEMO, "--since", DEMO, "-q")  # the model, not its results
+    assert wrong.exit_code == 3 and "an IFC model, not results" in wrong.output
 
 
 def test_bcf_written_over_the_last_issue_closes_only_what_went_away(revisions, tmp_path):
