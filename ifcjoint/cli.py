@@ -660,19 +660,8 @@ def check(
          "the earlier results (--since)": since},
         may_replace={"--ifc-out": "the model"} if in_place else None,
     )
-    previous = None
-    if since:
-        from ifcjoint.pipeline import PreviousRun
-
-        data = _guarded("reading the earlier results", debug, None, lambda: _read_results(since))
-        previous = PreviousRun(path=since, results=data)
+    previous, reads = _earlier_run(since, keep_reads, no_read_cache, debug)
     bar = _Bar(sys.stderr.isatty() and not quiet)
-    reads = None
-    if not no_read_cache and (previous is not None or keep_reads):
-        from ifcjoint.ifc.read_cache import ReadCache
-
-        reads = (ReadCache.load(previous.results.get("model", {}).get("sha256"))
-                 if previous is not None else ReadCache())
     result = _scan(model, bar, debug, reads=reads, **kw)
     table = None
     if demands_file:
@@ -710,6 +699,22 @@ def check(
         click.echo(f"ifcjoint: gate ({fail_on}) failed: {'; '.join(why)}", err=True)
         sys.exit(EXIT_GATE)
     sys.exit(EXIT_OK)
+
+
+def _earlier_run(since, keep_reads: bool, no_read_cache: bool, debug: bool):
+    """The earlier run's results (``--since``) and the element reads to reuse and keep."""
+    previous = reads = None
+    if since:
+        from ifcjoint.pipeline import PreviousRun
+
+        data = _guarded("reading the earlier results", debug, None, lambda: _read_results(since))
+        previous = PreviousRun(path=since, results=data)
+    if not no_read_cache and (previous is not None or keep_reads):
+        from ifcjoint.ifc.read_cache import ReadCache
+
+        reads = (ReadCache.load(previous.results.get("model", {}).get("sha256"))
+                 if previous is not None else ReadCache())
+    return previous, reads
 
 
 def _read_results(results_json: str) -> dict:

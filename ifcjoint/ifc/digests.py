@@ -14,7 +14,8 @@ instance graph, with entity numbers replaced by the digests of what they name):
   openings, aggregation, connections ...), each without the attribute that holds the element
   (a storey's list of a thousand elements does not make them all change together), the
   other attributes by their digests;
-* for its type object, the relationships naming the type in turn (its material);
+* for its type object, the relationships naming the type in turn (its material); for the
+  assembly it is a part of, the assembly's relationships (its storey, which the part takes);
 * for every material, the material property sets naming it (IFC4 ``IfcMaterialProperties``,
   IFC2X3 mechanical and other material properties).
 
@@ -103,6 +104,25 @@ class _Graph:
         self.memo[k] = d
         return d
 
+    def _above(self, rel: int, k: int) -> list[int]:
+        """What ``k`` takes data from through ``rel``.
+
+        Its type object, or the assembly it is a part of (a part takes the assembly's
+        storey); nothing for other relationships.
+        """
+        name = self.body[rel][0]
+        if name == b"IFCRELDEFINESBYTYPE":
+            return [t for t in map(int, set(_REF.findall(self.body[rel][1])))
+                    if t != k and self.body.get(t, (b"",))[0] in self.types]
+        if name in (b"IFCRELAGGREGATES", b"IFCRELNESTS"):
+            got = self._split(rel)
+            if got is None:
+                return []
+            refs = got[1]
+            if len(refs) > 5 and k in refs[5] and k not in refs[4]:
+                return sorted(refs[4])
+        return []
+
     def _split(self, rel: int):
         """A relationship's attributes and the instances each names (None: not split)."""
         got = self.split.get(rel, False)
@@ -134,19 +154,14 @@ class _Graph:
         return d
 
     def element(self, k: int) -> str:
-        """The digest of an element with its relationships (and its type's)."""
+        """The digest of an element with its relationships (and its type's, its assembly's)."""
         parts = [self.of(k)]
-        rels = sorted(self.relation(r, k) for r in self.naming.get(k, ()))
-        parts += rels
-        for r in self.naming.get(k, ()):
-            if self.body[r][0] != b"IFCRELDEFINESBYTYPE":
-                continue
-            for t in set(_REF.findall(self.body[r][1])):
-                t = int(t)
-                if t == k or self.body.get(t, (b"",))[0] not in self.types:
-                    continue
-                parts += sorted(self.relation(r2, t) for r2 in self.naming.get(t, ())
-                                if self.body[r2][0] != b"IFCRELDEFINESBYTYPE")
+        rels = self.naming.get(k, ())
+        parts += sorted(self.relation(r, k) for r in rels)
+        for r in rels:
+            for other in self._above(r, k):
+                parts += sorted(self.relation(r2, other) for r2 in self.naming.get(other, ())
+                                if r2 != r and self.body[r2][0] != b"IFCRELDEFINESBYTYPE")
         return hashlib.blake2b(b"|".join(parts), digest_size=16).hexdigest()
 
 

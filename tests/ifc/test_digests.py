@@ -169,3 +169,16 @@ def test_text_not_read_with_certainty_gives_no_digests(edit):
         raw = text.encode()
         names = (*g.entity_names(), 999999)  # ifcopenshell read one more than the text has
     assert element_digests(raw, g.schema, ids, names) is None
+
+
+def test_a_part_changes_with_its_assemblys_storey():
+    """A part takes its assembly's storey (ifc/relations.storey_names)."""
+    f, els = _model()
+    asm = ifcopenshell.api.root.create_entity(f, ifc_class="IfcElementAssembly", name="A1")
+    l0, l1 = sorted(f.by_type("IfcBuildingStorey"), key=lambda s: s.Name)
+    ifcopenshell.api.spatial.assign_container(f, products=[asm], relating_structure=l0)
+    part = ifcopenshell.api.root.create_entity(f, ifc_class="IfcPlate", name="P2")
+    ifcopenshell.api.aggregate.assign_object(f, products=[part], relating_object=asm)
+    before = _digests(f)
+    ifcopenshell.api.spatial.assign_container(f, products=[asm], relating_structure=l1)
+    assert _changed(before, _digests(f)) == {"A1", "P2"}
