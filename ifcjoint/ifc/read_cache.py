@@ -128,7 +128,9 @@ class ReadCache:
             for p in old[KEEP:]:
                 with contextlib.suppress(OSError):
                     p.unlink()
-        except OSError:
+        except (OSError, pickle.PicklingError, TypeError, AttributeError, RecursionError):
+            with contextlib.suppress(OSError, UnboundLocalError):
+                tmp.unlink()
             return None
         return path
 
