@@ -698,6 +698,9 @@ def write_check_summary(results: dict, out: TextIO, *, top: int = 10) -> None:
                   f"{c2['changed']} changed ({c2['now_failing']} now failing), {c2['new']} new, "
                   f"{c2['removed']} removed, {c2['unchanged']} unchanged; "
                   f"{c2['carried_over']} result(s) carried over, not re-checked\n")
+        if cmp["previous"].get("filtered"):
+            out.write(f"    the earlier results were filtered ({cmp['previous']['joints_listed']} "
+                      "joints listed): joints outside that filter count as new\n")
         moved = [r for r in cmp["joints"] if r["change"] != "unchanged"]
         for r in moved[:20]:
             what = f": {', '.join(r['what'])}" if r["what"] else ""

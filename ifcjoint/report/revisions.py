@@ -159,7 +159,10 @@ def comparison_section(path: str, before: dict, after: dict) -> dict:
         for p in new[r["id"]]["check"]["problems"]:
             p["guid"] = was.get(p["kind"], p["guid"])
     cmp["counts"]["carried_over"] = sum(1 for r in cmp["joints"] if r["carried_over"])
+    flt = before.get("check", {}).get("filter")
     return {"previous": {"path": path,
                          "checked": before.get("check", {}).get("created", ""),
-                         "tool_version": before.get("check", {}).get("tool_version", "")},
+                         "tool_version": before.get("check", {}).get("tool_version", ""),
+                         # a filtered file lists some joints only: the others count as new
+                         "filtered": bool(flt), "joints_listed": len(before.get("joints", ()))},
             **cmp}

@@ -223,3 +223,14 @@ def test_bcf_written_over_the_last_issue_closes_only_what_went_away(revisions, t
         assert not closed & now  # every problem found now is open
         assert len(doc.topics) == len(now | closed)  # no duplicate topics
         assert len(doc.topics) <= n_before + 1  # at most the changed joint's new problem
+
+
+def test_filtered_earlier_results_are_said_to_be(tmp_path):
+    a, b = tmp_path / "a.json", tmp_path / "b.json"
+    assert run("check", DEMO, "--json", a, "--storey", "Ground*", "--fail-on", "never",
+               "-q").exit_code == 0
+    r = run("check", DEMO, "--json", b, "--since", a, "--fail-on", "never")
+    assert r.exit_code == 0, r.output
+    prev = json.loads(b.read_text())["check"]["comparison"]["previous"]
+    assert prev["filtered"] and prev["joints_listed"] == len(json.loads(a.read_text())["joints"])
+    assert "joints outside that filter count as new" in r.output
