@@ -19,8 +19,9 @@ instance graph, with entity numbers replaced by the digests of what they name):
 * for every material, the material property sets naming it (IFC4 ``IfcMaterialProperties``,
   IFC2X3 mechanical and other material properties).
 
-Anything the parser does not recognise (comments in the data section, an entity count that
-differs from ifcopenshell's) makes :func:`element_digests` return None: nothing is reused.
+Comments in the data section are left out. Anything the parser does not recognise (an
+instance it cannot delimit, instances other than those ifcopenshell read) makes
+:func:`element_digests` return None: nothing is reused.
 """
 
 from __future__ import annotations
@@ -33,6 +34,8 @@ import sys
 _INSTANCE = re.compile(rb"#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\(((?:[^;']|'(?:[^']|'')*')*)\)\s*;",
                        re.S)
 _REF = re.compile(rb"#(\d+)")
+#: A string (kept) or a comment (dropped): strings first, so a "/*" in a string is text.
+_COMMENT = re.compile(rb"('(?:[^']|'')*')|/\*.*?\*/", re.S)
 #: One instance on one line (the usual layout): checked by quote parity and entity numbers.
 _LINE = re.compile(rb"(?ms)^[ \t]*#(\d+)\s*=\s*([A-Za-z0-9_]+)\s*\((.*?)\)[ \t]*;[ \t\r]*$")
 #: A line that ends an instance (or a string that would fool the one-line pattern).
@@ -211,8 +214,8 @@ def element_digests(raw: bytes, schema: str, ids: list[int], entity_ids
     if start < 0 or end < start:
         return None
     data = raw[start + 6:end]
-    if b"/*" in data:
-        return None  # comments may hold anything: not parsed here
+    if b"/*" in data:  # comments (outside strings) say nothing of the model: left out
+        data = _COMMENT.sub(lambda m: m.group(1) or b" ", data)
     wanted = set(entity_ids)
     body = None
     found = _LINE.findall(data)  # one instance a line, the usual way: fast
@@ -233,5 +236,5 @@ def element_digests(raw: bytes, schema: str, ids: list[int], entity_ids
             return {k: g.element(k) for k in ids}
         finally:
             sys.setrecursionlimit(old)
-    except (RecursionError, KeyError, ValueError):
+    except (RecursionError, KeyError, ValueError, RuntimeError):  # RuntimeError: no schema
         return None

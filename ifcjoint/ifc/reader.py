@@ -65,7 +65,11 @@ def read_model(
         ModelError: the file cannot be used (see :func:`open_model`), or it has no length unit.
     """
     rules = rules or load_rules()
-    f, sha, open_notes, raw = open_model_text(path)
+    if reads is None:  # the file's text is kept only to digest it
+        f, sha, open_notes = open_model(path)
+        raw = b""
+    else:
+        f, sha, open_notes, raw = open_model_text(path)
     where = str(path)
     scale, unit_source = _model_level(
         where, "the length unit", lambda: length_scale_to_mm(f, where, assume_length_unit))

@@ -108,3 +108,22 @@ def test_grid_placed_columns_are_read_where_the_beams_end(scan_cached):
     for b in (m for m in r.model.members if m.kind == "beam"):
         for e in (b.start, b.end):
             assert (round(e[0]), round(e[1])) in xy
+
+
+@pytest.mark.parametrize("path", FILES, ids=lambda p: p.name)
+def test_reads_taken_from_an_earlier_run_equal_fresh_reads(path: Path):
+    """The read cache (ifc/read_cache.py) on real exporters' files: digests are made (comments,
+    IFC4X3 and ifczip included), and a model read with the earlier reads offered is the model
+    read afresh."""
+    from ifcjoint.ifc.read_cache import ReadCache
+    from ifcjoint.ifc.reader import read_model
+
+    first = ReadCache()
+    read_model(path, reads=first, assume_length_unit="mm")
+    assert first.usable, first.why_not
+    again = ReadCache(offered=first.kept, asked=True)
+    reused = read_model(path, reads=again, assume_length_unit="mm")
+    fresh = read_model(path, assume_length_unit="mm")
+    assert again.reused == len(first.kept)
+    for key in ("members", "plates", "fasteners", "unreadable", "counts"):
+        assert getattr(reused, key) == getattr(fresh, key), key
