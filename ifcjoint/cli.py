@@ -725,6 +725,9 @@ def _read_results(results_json: str) -> dict:
     """
     import json
 
+    import orjson
+
+    from ifcjoint.fileio import no_cycle_collection
     from ifcjoint.report.results import READABLE_SCHEMA_VERSIONS
 
     try:
@@ -734,10 +737,11 @@ def _read_results(results_json: str) -> dict:
             raise ResultsFileError(
                 f"{results_json}: an IFC model, not results; give the results JSON that "
                 "`ifcjoint check --json` wrote for it")
-        data = json.loads(Path(results_json).read_text(encoding="utf-8"))
+        with no_cycle_collection():
+            data = orjson.loads(Path(results_json).read_bytes())  # strict JSON, UTF-8
     except OSError as exc:
         raise ResultsFileError(f"{results_json}: cannot read ({exc.strerror or exc})") from exc
-    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
+    except (UnicodeDecodeError, json.JSONDecodeError) as exc:  # orjson's error is one
         raise ResultsFileError(f"{results_json}: not JSON ({exc})") from exc
     if not isinstance(data, dict) or "results_schema_version" not in data:
         raise ResultsFileError(

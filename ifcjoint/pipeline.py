@@ -298,12 +298,16 @@ class PreviousRun:
 def _scan_digest(joint_record: dict) -> str:
     """A digest of a joint's scan description (the results record without its check).
 
-    A value that is not finite (null in the results file) makes the digests differ: such a
-    joint is checked again.
+    As the results file writes it: a value that is not finite reads as null there and
+    here (whether the engine saw a missing value or a NaN, the engine input's fingerprint
+    tells apart: :func:`fingerprint`).
     """
+    import orjson
+
     body = {k: v for k, v in joint_record.items() if k != "check"}
-    text = json.dumps(body, sort_keys=True, default=str)
-    return hashlib.sha256(text.encode()).hexdigest()
+    text = orjson.dumps(body, default=str, option=orjson.OPT_SORT_KEYS
+                        | orjson.OPT_NON_STR_KEYS | orjson.OPT_SERIALIZE_NUMPY)
+    return hashlib.sha256(text).hexdigest()
 
 
 def carry_over(j: Joint, a, members: dict, demands: tuple[Demand, ...], st: CheckSettings,

@@ -27,11 +27,14 @@ from dataclasses import dataclass, field, fields
 from pathlib import Path
 
 from ifcjoint import __version__
+from ifcjoint.fileio import no_cycle_collection
 
 #: Cache files kept (the newest; common practice, no source).
 KEEP = 8
 #: The file format: a file of another is ignored.
-FORMAT = 1
+FORMAT = 2
+#: Files a model's reads may be spread over (its own, then the earlier models' it adds to).
+MAX_CHAIN = 4
 
 
 def cache_folder() -> Path:
@@ -46,6 +49,39 @@ def cache_folder() -> Path:
 def cache_file(model_sha256: str) -> Path:
     """The cache file of the model with these bytes."""
     return cache_folder() / f"reads-{model_sha256[:32]}.pickle"
+
+
+#: The field names of each data class written to a cache file.
+_NAMES: dict[type, tuple[str, ...]] = {}
+
+
+def _names(cls: type) -> tuple[str, ...]:
+    got = _NAMES.get(cls)
+    if got is None:
+        got = _NAMES[cls] = tuple(f.name for f in fields(cls))
+    return got
+
+
+def _rebuild(cls: type, values: tuple):
+    """A data class instance from its field values, as written by :class:`_Pickler`."""
+    obj = object.__new__(cls)
+    for name, value in zip(_names(cls), values, strict=True):
+        object.__setattr__(obj, name, value)
+    return obj
+
+
+class _Pickler(pickle.Pickler):
+    """Writes data classes with ``__slots__`` as their field values.
+
+    The standard library's way re-reads every class's field list for every instance, which
+    made loading a large model's reads take seconds; this one reads it once per class.
+    """
+
+    def reducer_override(self, obj):
+        cls = type(obj)
+        if "__slots__" in cls.__dict__ and hasattr(cls, "__dataclass_fields__"):
+            return _rebuild, (cls, tuple(getattr(obj, n) for n in _names(cls)))
+        return NotImplemented
 
 
 @dataclass(frozen=True, slots=True)
@@ -76,6 +112,33 @@ def rules_key(rules) -> str:
     return hashlib.sha256(text.encode()).hexdigest()
 
 
+def _read_chain(path: Path) -> list[dict]:
+    """A cache file's content, then its earlier files' (newest first); [] when unusable.
+
+    Each file read is touched, so the newest-kept pruning keeps the files others build on.
+    """
+    chain: list[dict] = []
+    seen: set[Path] = set()
+    while path not in seen and len(chain) <= MAX_CHAIN:
+        seen.add(path)
+        try:
+            with path.open("rb") as fh, no_cycle_collection():
+                data = pickle.load(fh)  # the user's own cache folder (see the module)
+        except (OSError, pickle.UnpicklingError, EOFError, AttributeError, ImportError,
+                TypeError, ValueError):
+            break
+        if not (isinstance(data, dict) and data.get("format") == FORMAT
+                and data.get("tool_version") == __version__):
+            break
+        with contextlib.suppress(OSError):
+            os.utime(path)
+        chain.append(data)
+        if not data.get("base"):
+            break
+        path = path.with_name(str(data["base"]))
+    return chain
+
+
 @dataclass
 class ReadCache:
     """The reads offered by an earlier run, and the ones this run keeps for the next."""
@@ -92,36 +155,52 @@ class ReadCache:
     anatomy_offered: dict[str, tuple] = field(default_factory=dict)
     anatomy_kept: dict[str, tuple] = field(default_factory=dict)
     anatomy_reused: int = 0
+    depth: int = 0  # how many files the offered reads were read from
 
     @classmethod
     def load(cls, model_sha256: str | None) -> ReadCache:
-        """The reads kept for the model with these bytes (empty when there are none)."""
+        """The reads kept for the model with these bytes (empty when there are none).
+
+        A file that adds to an earlier model's (see :meth:`save`) is read with that file
+        first; a missing or foreign earlier file only means fewer reads offered.
+        """
         if not model_sha256:
             return cls(asked=True)
         path = cache_file(model_sha256)
-        try:
-            with path.open("rb") as fh:
-                data = pickle.load(fh)  # the user's own cache folder (see the module)
-        except (OSError, pickle.UnpicklingError, EOFError, AttributeError, ImportError,
-                TypeError, ValueError):
+        reads: dict = {}
+        anatomy: dict = {}
+        chain = _read_chain(path)
+        if not chain:
             return cls(asked=True)
-        if not (isinstance(data, dict) and data.get("format") == FORMAT
-                and data.get("tool_version") == __version__):
-            return cls(asked=True)
-        return cls(offered=data.get("reads", {}), anatomy_offered=data.get("anatomy", {}),
-                   source=str(path), asked=True)
+        for data in reversed(chain):  # the oldest first: a later file's entries win
+            reads.update(data.get("reads", {}))
+            anatomy.update(data.get("anatomy", {}))
+        return cls(offered=reads, anatomy_offered=anatomy, source=str(path), asked=True,
+                   depth=len(chain))
 
     def save(self, model_sha256: str) -> Path | None:
-        """Keep this run's reads for the next run (best effort: a cache never fails a run)."""
+        """Keep this run's reads for the next run (best effort: a cache never fails a run).
+
+        When this run was offered another model's reads and kept most of them (a revision),
+        only the reads it added are written, naming the earlier file to read first (at most
+        :data:`MAX_CHAIN` files deep; then everything is written again).
+        """
         folder = cache_folder()
         path = cache_file(model_sha256)
+        content = {"format": FORMAT, "tool_version": __version__, "base": None,
+                   "reads": self.kept, "anatomy": self.anatomy_kept}
+        base = Path(self.source) if self.source else None
+        if base is not None and base != path and self.depth < MAX_CHAIN:
+            reads = {k: v for k, v in self.kept.items() if self.offered.get(k) is not v}
+            anatomy = {k: v for k, v in self.anatomy_kept.items()
+                       if self.anatomy_offered.get(k) is not v}
+            if len(reads) + len(anatomy) < (len(self.kept) + len(self.anatomy_kept)) / 2:
+                content.update(base=base.name, reads=reads, anatomy=anatomy)
         try:
             folder.mkdir(parents=True, exist_ok=True)
             tmp = path.with_suffix(f".{os.getpid()}.tmp")  # two runs may keep one model
-            with tmp.open("wb") as fh:
-                pickle.dump({"format": FORMAT, "tool_version": __version__,
-                             "reads": self.kept, "anatomy": self.anatomy_kept}, fh,
-                            protocol=pickle.HIGHEST_PROTOCOL)
+            with tmp.open("wb") as fh, no_cycle_collection():
+                _Pickler(fh, protocol=pickle.HIGHEST_PROTOCOL).dump(content)
             tmp.replace(path)
             old = sorted(folder.glob("reads-*.pickle"), key=lambda p: p.stat().st_mtime,
                          reverse=True)

@@ -188,7 +188,7 @@ def _read_keys(f, raw: bytes, ctx: ReadContext, found: _Sorted, scale: float,
 
     els = [*found.members, *found.plates, *(el for el, _ in found.fasteners)]
     kinds = {el.id(): str(k) for el, k in found.fasteners}
-    digests = element_digests(raw, ctx.schema, [e.id() for e in els], f.entity_names())
+    digests = element_digests(raw, f, [e.id() for e in els])
     if digests is None:
         return None
     common = f"{__version__}|{ctx.schema}|{scale!r}|{unit_source}|{rules_key(rules)}"

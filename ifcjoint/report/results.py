@@ -25,7 +25,7 @@ from ifcjoint.engine.inputs import input_record
 from ifcjoint.engine.problems import Problem
 from ifcjoint.engine.results import CheckResult, Classification, ComponentResult
 from ifcjoint.engine.verify import Assumption, Utilisation
-from ifcjoint.fileio import atomic_write_text, safe_cell
+from ifcjoint.fileio import atomic_write_bytes, atomic_write_text, safe_cell
 from ifcjoint.model.codes import UNCHECKED, NotCheckedCode, ProblemKind, Status
 from ifcjoint.report.coverage import beam_end_coverage, coverage_line
 from ifcjoint.report.scan import CAUTION, build_scan
@@ -470,9 +470,15 @@ def cite(results: dict, clause: str) -> str:
 
 
 def write_results_json(results: dict, path: str | Path) -> dict[str, int]:
-    """Write the results JSON atomically (compact: one line, written by the C encoder)."""
-    text = json.dumps(results, separators=(",", ":"), default=float, allow_nan=False)
-    atomic_write_text(path, text + "\n")
+    """Write the results JSON atomically (compact: one line, UTF-8, by ``orjson``).
+
+    The results are strict JSON already (``finite_json``): nothing is left to replace.
+    """
+    import orjson
+
+    data = orjson.dumps(results, default=float,
+                        option=orjson.OPT_NON_STR_KEYS | orjson.OPT_SERIALIZE_NUMPY)
+    atomic_write_bytes(path, data + b"\n")
     return {}
 
 

@@ -18,8 +18,9 @@ import ifcopenshell.api.root
 import ifcopenshell.api.spatial
 import ifcopenshell.api.type
 import ifcopenshell.api.unit
+import numpy as np
 
-from ifcjoint.ifc.digests import element_digests
+from ifcjoint.ifc.digests import _parse_lines, _parse_records, element_digests
 
 
 def _model(schema: str = "IFC4"):
@@ -67,7 +68,7 @@ def _digests(f) -> dict[str, str]:
     text = f.to_string()
     g = ifcopenshell.file.from_string(text)
     els = [e for e in g.by_type("IfcElement")]
-    d = element_digests(text.encode(), g.schema, [e.id() for e in els], g.entity_names())
+    d = element_digests(text.encode(), g, [e.id() for e in els])
     assert d is not None
     return {e.Name: d[e.id()] for e in els}
 
@@ -160,8 +161,9 @@ def test_text_not_read_with_certainty_gives_no_digests():
     text = f.to_string()
     g = ifcopenshell.file.from_string(text)
     ids = [e.id() for e in g.by_type("IfcElement")]
-    names = (*g.entity_names(), 999999)  # ifcopenshell read one more than the text has
-    assert element_digests(text.encode(), g.schema, ids, names) is None
+    dropped = "\n".join(x for x in text.split("\n") if "IFCDIRECTION" not in x)
+    assert dropped != text  # the text lacks instances ifcopenshell read
+    assert element_digests(dropped.encode(), g, ids) is None
 
 
 def test_comments_are_left_out_and_strings_kept_whole():
@@ -170,13 +172,13 @@ def test_comments_are_left_out_and_strings_kept_whole():
     text = f.to_string()
     g = ifcopenshell.file.from_string(text)
     ids = [e.id() for e in g.by_type("IfcElement")]
-    plain = element_digests(text.encode(), g.schema, ids, g.entity_names())
+    plain = element_digests(text.encode(), g, ids)
     noted = text.replace("\nDATA;\n", "\nDATA;\n/* a comment; #1=IFCX(); */\n")
     noted = noted.replace(");\n", "); /* trailing; */\n", 3)
-    assert element_digests(noted.encode(), g.schema, ids, g.entity_names()) == plain
+    assert element_digests(noted.encode(), g, ids) == plain
     els["B1"].Description = "see /* not a comment, changed */ here"  # inside the string
     g2 = ifcopenshell.file.from_string(f.to_string())
-    changed = element_digests(f.to_string().encode(), g2.schema, ids, g2.entity_names())
+    changed = element_digests(f.to_string().encode(), g2, ids)
     b1 = next(e.id() for e in g.by_type("IfcElement") if e.Name == "B1")
     assert changed[b1] != plain[b1]
     assert {k: v for k, v in changed.items() if k != b1} == {
@@ -194,3 +196,40 @@ def test_a_part_changes_with_its_assemblys_storey():
     before = _digests(f)
     ifcopenshell.api.spatial.assign_container(f, products=[asm], relating_structure=l1)
     assert _changed(before, _digests(f)) == {"A1", "P2"}
+
+
+def test_both_parses_read_the_same_graph_and_wrapped_records_are_digested():
+    """One instance a line (the numpy parse) or records over lines (the careful parse)."""
+    f, els = _model()
+    text = f.to_string()
+    data = text[text.index("\nDATA;") + 6:text.rindex("ENDSEC;")].encode()
+    fast, careful = _parse_lines(data), _parse_records(data)
+    assert fast is not None and careful is not None
+    for name in ("ids", "tmpl", "parent", "child_ids", "position"):
+        assert np.array_equal(getattr(fast, name), getattr(careful, name)), name
+    wrapped = text.replace(",", ",\n  ", 40)  # records over lines, as some exporters write
+    assert _parse_lines(wrapped[wrapped.index("\nDATA;") + 6:].encode()) is None
+    g = ifcopenshell.file.from_string(text)
+    ids = [e.id() for e in g.by_type("IfcElement")]
+    before = element_digests(wrapped.encode(), g, ids)
+    assert before is not None
+    els["P1"].Name = "P1b"
+    edited = f.to_string()
+    g2 = ifcopenshell.file.from_string(edited)
+    after = element_digests(edited.replace(",", ",\n  ", 40).encode(), g2, ids)
+    p1 = next(e.id() for e in g.by_type("IfcElement") if e.Name == "P1")
+    assert {k for k in ids if after[k] != before[k]} == {p1}
+
+
+def test_a_reference_cycle_gives_no_digests():
+    f, _ = _model()
+    text = f.to_string()
+    g = ifcopenshell.file.from_string(text)
+    a = g.by_type("IfcCartesianPoint")[0].id()
+    placement = next(p for p in g.by_type("IfcAxis2Placement3D") if p.Location.id() == a)
+    # the point names the placement that names it: no level can be given
+    point = f"#{a}=IFCCARTESIANPOINT(("
+    looped = text.replace(point, f"{point}#{placement.id()},")
+    assert looped != text
+    ids = [e.id() for e in g.by_type("IfcElement")]
+    assert element_digests(looped.encode(), g, ids) is None

@@ -6,7 +6,6 @@ import hashlib
 import os
 import pickle
 
-from ifcjoint import __version__
 from ifcjoint.ifc import read_cache
 from ifcjoint.ifc.read_cache import KEEP, Outcome, ReadCache, cache_file
 
@@ -45,7 +44,6 @@ def test_only_the_newest_files_are_kept(tmp_path, monkeypatch):
     assert len(left) == KEEP and cache_file("f" * 64) in left
     assert cache_file(shas[0]) not in left  # the oldest went first
     assert cache_file(shas[-1]) in left
-    assert read_cache.FORMAT == 1 and __version__
 
 
 def test_check_keeps_reads_only_when_asked(tmp_path, monkeypatch):
@@ -65,3 +63,50 @@ def test_check_keeps_reads_only_when_asked(tmp_path, monkeypatch):
     assert not (tmp_path / "c").exists()
     assert run(main, ["check", model, "--fail-on", "never", "-q", "--keep-reads"]).exit_code == 0
     assert len(list((tmp_path / "c").glob("reads-*.pickle"))) == 1
+
+
+def test_a_revision_keeps_only_what_it_added_and_reads_the_earlier_file_first(
+        tmp_path, monkeypatch):
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path))
+    first = ReadCache()
+    first.kept = {f"k{i}": Outcome(plate_members=i) for i in range(10)}
+    first.save("a" * 64)
+    b = ReadCache.load("a" * 64)
+    b.kept = {k: b.offered[k] for k in list(b.offered)[:9]}  # one element removed ...
+    b.kept["new"] = Outcome(plate_members=99)  # ... one added
+    b.save("b" * 64)
+    with cache_file("b" * 64).open("rb") as fh:
+        written = pickle.load(fh)
+    assert written["base"] == cache_file("a" * 64).name
+    assert written["reads"] == {"new": Outcome(plate_members=99)}  # only what it added
+    again = ReadCache.load("b" * 64)
+    assert again.offered["new"] == Outcome(plate_members=99)
+    assert all(again.offered[k] == Outcome(plate_members=i) for i, k in
+               enumerate(f"k{i}" for i in range(9)))
+    assert again.depth == 2
+    # the earlier file gone (pruned, deleted): fewer reads offered, never an error
+    cache_file("a" * 64).unlink()
+    assert ReadCache.load("b" * 64).offered == {"new": Outcome(plate_members=99)}
+
+
+def test_a_chain_of_revisions_is_written_whole_again_at_its_longest(tmp_path, monkeypatch):
+    monkeypatch.setenv("IFCJOINT_CACHE_DIR", str(tmp_path))
+    rc = ReadCache()
+    rc.kept = {f"k{i}": Outcome(plate_members=i) for i in range(10)}
+    shas = [c * 64 for c in "abcdefg"]
+    rc.save(shas[0])
+    for prev, sha in zip(shas, shas[1:], strict=False):
+        nxt = ReadCache.load(prev)
+        nxt.kept = dict(nxt.offered)
+        nxt.kept[f"from-{sha[0]}"] = Outcome(plate_members=1)
+        nxt.save(sha)
+        assert nxt.depth <= read_cache.MAX_CHAIN
+        got = ReadCache.load(sha)
+        assert set(got.offered) == set(nxt.kept)  # every read offered again, however kept
+    with cache_file(shas[read_cache.MAX_CHAIN]).open("rb") as fh:
+        assert pickle.load(fh)["base"] is None  # the chain was at its longest: written whole
+    # the same model again: never a file naming itself
+    same = ReadCache.load(shas[-1])
+    same.kept = dict(same.offered)
+    same.save(shas[-1])
+    assert set(ReadCache.load(shas[-1]).offered) == set(same.kept)
