@@ -43,6 +43,7 @@ from ifcjoint.engine.settings import CheckSettings
 from ifcjoint.engine.verify import JointVerdict, detailing_utilisations, verify_joint
 from ifcjoint.errors import JointFileError, NoSteelError
 from ifcjoint.find import FinderSettings, find_joints
+from ifcjoint.find.parts import AttachMemo
 from ifcjoint.ifc.reader import MEMBER_CLASSES, read_model
 from ifcjoint.ifc.recognition import load_rules
 from ifcjoint.model.codes import (
@@ -92,7 +93,13 @@ def scan(
     rules = load_rules(rules_file)
     model = read_model(path, assume_length_unit=assume_length_unit, rules=rules,
                        progress=progress, reads=reads)
-    return describe_joints(find_joints(model, settings, progress=progress), anatomy, reads)
+    memo = None
+    if reads is not None and reads.usable:
+        memo = AttachMemo(keys=reads.guid_keys, offered=reads.attach_offered)
+    found = find_joints(model, settings, progress=progress, memo=memo)
+    if memo is not None:
+        reads.attach_kept, reads.attach_reused = memo.kept, memo.reused
+    return describe_joints(found, anatomy, reads)
 
 
 def describe_joints(result: ScanResult, settings: AnatomySettings | None = None,

@@ -21,7 +21,7 @@ import shapely
 
 from ifcjoint.find.frames import Frames, plan_boxes, unit
 from ifcjoint.find.labels import GridLabeller
-from ifcjoint.find.parts import attach_parts
+from ifcjoint.find.parts import AttachMemo, attach_parts
 from ifcjoint.find.settings import FinderSettings
 from ifcjoint.model.codes import Axis, EndKind, Face, MemberKind, SteelState, Support
 from ifcjoint.model.elements import Member, ModelContents, Progress
@@ -97,6 +97,7 @@ def find_joints(
     model: ModelContents,
     settings: FinderSettings | None = None,
     progress: Progress | None = None,
+    memo: AttachMemo | None = None,
 ) -> ScanResult:
     """Find every beam-to-column joint and classify every other beam end.
 
@@ -104,6 +105,8 @@ def find_joints(
         model: the members, plates, fasteners and links read from a model (mm).
         settings: finder tolerances; defaults when None.
         progress: optional callback ``(stage, done, total)``.
+        memo: an earlier run's part attachments, taken where nothing they depend on
+            changed; this run's are kept in it (``parts.AttachMemo``).
 
     Returns:
         The scan result: joints, other beam ends, and the model contents.
@@ -133,7 +136,8 @@ def find_joints(
     raw.extend(_splice_joints(ends, free, len(columns)))
     grid = GridLabeller(model)
     # the supports' frames: the columns, then the beams (a beam-to-beam joint's col_idx)
-    joints = _make_joints(raw, model, Frames.of([*columns, *beams]), st, grid, haunch_of)
+    joints = _make_joints(raw, model, Frames.of([*columns, *beams]), st, grid, haunch_of,
+                          memo)
     # an end checked by a joint of its own besides its kind: beam-to-beam, and both ends of
     # a splice (the joint is the first end's)
     by_end = {(j.beam, j.beam_end): j.id for j in joints if j.support != Support.COLUMN}
@@ -267,10 +271,11 @@ def _make_joints(
     st: FinderSettings,
     grid: GridLabeller,
     haunch_of: dict[int, list[str]],
+    memo: AttachMemo | None = None,
 ) -> list[Joint]:
     """Joints from the raw records: partners, parts and labels, sorted by label."""
     partners = _pair_double_sided(raw, st)
-    attached = attach_parts(model, raw, cf, st)
+    attached = attach_parts(model, raw, cf, st, memo)
     labels = grid.labels(
         [j["beam"].storey for j in raw],
         np.array([j["point"] for j in raw]).reshape(-1, 3),

@@ -7,8 +7,9 @@ relationships name, else to the one on whose side of the column it lies, then th
 
 from __future__ import annotations
 
+import hashlib
 from collections import defaultdict
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 import shapely
@@ -255,32 +256,112 @@ class _Matcher:
         return [], LinkSource.GEOMETRY
 
 
+@dataclass
+class AttachMemo:
+    """Part attachments of an earlier run, for parts and members that have not changed.
+
+    ``keys`` gives each element's content key (its read's, ``ifc.read_cache``): equal keys,
+    equal element. Common practice, no source: an attachment is a function of its inputs, so
+    it is taken from the earlier run only when every input is equal:
+
+    * every member and the finder settings (so every joint and its zone is the same): else
+      nothing is taken;
+    * a plate: its own key (its geometry and relationships);
+    * a fastener: its own key, and for every joint it was a candidate of, the same plates
+      (by key, role and relation) attached there.
+
+    ``offered`` is the earlier run's ``kept``; ``kept`` is filled for the next run.
+    """
+
+    keys: dict[str, str]
+    offered: dict = field(default_factory=dict)
+    kept: dict = field(default_factory=dict)
+    reused: int = 0
+
+    def signature(self, model: ModelContents, joints: list[dict], st: FinderSettings
+                  ) -> str | None:
+        """What every attachment depends on besides its part (None: an element has no key)."""
+        members = [(m.guid, self.keys.get(m.guid)) for m in model.members]
+        if any(k is None for _, k in members):
+            return None
+        text = repr((repr(st), members, [(j["k"], j["beam"].guid, j["column"].guid)
+                                         for j in joints]))
+        return hashlib.sha256(text.encode()).hexdigest()
+
+
 def attach_parts(
-    model: ModelContents, joints: list[dict], col_frames: Frames, st: FinderSettings
+    model: ModelContents, joints: list[dict], col_frames: Frames, st: FinderSettings,
+    memo: AttachMemo | None = None,
 ) -> dict[int, tuple[tuple[PartLink, ...], tuple[PartLink, ...]]]:
     """Attach plates and fasteners to joints: relations first, then geometry.
 
     Order: IfcRelConnectsWithRealizingElements, IfcElementAssembly aggregation,
     IfcRelConnectsElements, then geometry (plate near the beam end and column face; bolt whose
-    axis passes through an attached plate, or lying in the joint zone).
+    axis passes through an attached plate, or lying in the joint zone). With ``memo``, a
+    part whose attachment's inputs are all the earlier run's keeps its earlier attachment
+    (:class:`AttachMemo`).
     """
     if not joints:
         return {}
     mt = _Matcher(model, joints, st)
+    sig = memo.signature(model, joints, st) if memo is not None else None
+    earlier = memo.offered if memo is not None and sig is not None and \
+        memo.offered.get("signature") == sig else {}
+    keep = {"signature": sig, "plates": {}, "fasteners": {}, "joints": {}}
+    keys = memo.keys if memo is not None else {}
     plates_of: dict[int, list[PartLink]] = defaultdict(list)
-    plate_cands = mt.candidates_of(np.array([p.center for p in model.plates], dtype=float)
-                                   .reshape(-1, 3))
-    for p, cands in zip(model.plates, plate_cands, strict=True):
-        for k, link in _attach_plate(mt, p, col_frames, st, cands):
-            plates_of[k].append(link)
+    old_plates = earlier.get("plates", {})
+    todo = [p for p in model.plates if keys.get(p.guid) not in old_plates]
+    plate_cands = dict(zip((p.guid for p in todo), mt.candidates_of(
+        np.array([p.center for p in todo], dtype=float).reshape(-1, 3)), strict=True))
+    for p in model.plates:
+        key = keys.get(p.guid)
+        if p.guid in plate_cands:
+            got = tuple((k, link.role, link.source) for k, link in
+                        _attach_plate(mt, p, col_frames, st, plate_cands[p.guid]))
+        else:
+            got = old_plates[key]
+            memo.reused += 1
+        if key is not None:
+            keep["plates"][key] = got
+        for k, role, source in got:
+            plates_of[k].append(PartLink(guid=p.guid, source=source, role=role))
+    # a joint whose plates are another run's: its fasteners are attached anew
+    for k, links in plates_of.items():
+        keep["joints"][k] = tuple(sorted((keys.get(pl.guid) or "", pl.role.value,
+                                          pl.source.value) for pl in links))
+    old_joints = earlier.get("joints", {})
+    same = {k for k, v in keep["joints"].items()
+            if all(x[0] for x in v) and old_joints.get(k) == v}
+    same |= {j["k"] for j in joints if j["k"] not in plates_of and j["k"] not in old_joints}
     plate_by_guid = {p.guid: p for p in model.plates}
     bolts_of: dict[int, list[PartLink]] = defaultdict(list)
-    fastener_cands = mt.candidates_of(
-        np.array([f.center for f in model.fasteners], dtype=float).reshape(-1, 3))
-    for f, cands in zip(model.fasteners, fastener_cands, strict=True):
-        hit = _attach_fastener(mt, f, plates_of, plate_by_guid, cands)
-        if hit is not None:
-            bolts_of[hit[0]].append(hit[1])
+    old_fasteners = earlier.get("fasteners", {})
+
+    def reusable(f) -> bool:
+        got = old_fasteners.get(keys.get(f.guid))
+        return got is not None and all(k in same for k in got[0])
+
+    todo = [f for f in model.fasteners if not reusable(f)]
+    fastener_cands = dict(zip((f.guid for f in todo), mt.candidates_of(
+        np.array([f.center for f in todo], dtype=float).reshape(-1, 3)), strict=True))
+    for f in model.fasteners:
+        key = keys.get(f.guid)
+        if f.guid in fastener_cands:
+            cands = fastener_cands[f.guid]
+            hit = _attach_fastener(mt, f, plates_of, plate_by_guid, cands)
+            got = (tuple(sorted({k for k, _, _ in cands})),
+                   None if hit is None else (hit[0], hit[1].role, hit[1].source))
+        else:
+            got = old_fasteners[key]
+            memo.reused += 1
+        if key is not None:
+            keep["fasteners"][key] = got
+        if got[1] is not None:
+            k, role, source = got[1]
+            bolts_of[k].append(PartLink(guid=f.guid, source=source, role=role))
+    if memo is not None and sig is not None:
+        memo.kept = keep
     out = {}
     for j in joints:
         k = j["k"]

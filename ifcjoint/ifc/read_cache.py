@@ -156,6 +156,9 @@ class ReadCache:
     anatomy_kept: dict[str, tuple] = field(default_factory=dict)
     anatomy_reused: int = 0
     depth: int = 0  # how many files the offered reads were read from
+    attach_offered: dict = field(default_factory=dict)  # part attachments (find.parts)
+    attach_kept: dict = field(default_factory=dict)
+    attach_reused: int = 0
 
     @classmethod
     def load(cls, model_sha256: str | None) -> ReadCache:
@@ -176,7 +179,7 @@ class ReadCache:
             reads.update(data.get("reads", {}))
             anatomy.update(data.get("anatomy", {}))
         return cls(offered=reads, anatomy_offered=anatomy, source=str(path), asked=True,
-                   depth=len(chain))
+                   depth=len(chain), attach_offered=chain[0].get("attach") or {})
 
     def save(self, model_sha256: str) -> Path | None:
         """Keep this run's reads for the next run (best effort: a cache never fails a run).
@@ -188,7 +191,8 @@ class ReadCache:
         folder = cache_folder()
         path = cache_file(model_sha256)
         content = {"format": FORMAT, "tool_version": __version__, "base": None,
-                   "reads": self.kept, "anatomy": self.anatomy_kept}
+                   "reads": self.kept, "anatomy": self.anatomy_kept,
+                   "attach": self.attach_kept}  # the model's own, never spread
         base = Path(self.source) if self.source else None
         if base is not None and base != path and self.depth < MAX_CHAIN:
             reads = {k: v for k, v in self.kept.items() if self.offered.get(k) is not v}
@@ -220,5 +224,6 @@ class ReadCache:
         if not self.source:
             return "no earlier reads kept for the earlier run's model: every element read"
         return (f"{self.reused} element(s) unchanged since the earlier run taken from its "
-                f"reads, {self.read} read; {self.anatomy_reused} joint anatomies whose joint "
-                "and parts are unchanged taken from it")
+                f"reads, {self.read} read; {self.attach_reused} part attachment(s) and "
+                f"{self.anatomy_reused} joint anatomies whose inputs are unchanged taken "
+                "from it")
