@@ -328,8 +328,8 @@ def attach_parts(
             plates_of[k].append(PartLink(guid=p.guid, source=source, role=role))
     # a joint whose plates are another run's: its fasteners are attached anew
     for k, links in plates_of.items():
-        keep["joints"][k] = tuple(sorted((keys.get(pl.guid) or "", pl.role.value,
-                                          pl.source.value) for pl in links))
+        keep["joints"][k] = tuple(sorted((keys.get(pl.guid) or "", str(pl.role),
+                                          str(pl.source)) for pl in links))
     old_joints = earlier.get("joints", {})
     same = {k for k, v in keep["joints"].items()
             if all(x[0] for x in v) and old_joints.get(k) == v}
