@@ -124,6 +124,8 @@ class _Main(click.Group):
     def invoke(self, ctx):
         import signal
 
+        from ifcjoint.fileio import restore_collector
+
         with contextlib.suppress(ValueError):  # not the main thread: leave signals alone
             signal.signal(signal.SIGTERM, _terminated)
         try:
@@ -131,6 +133,8 @@ class _Main(click.Group):
         except KeyboardInterrupt:
             click.echo("\nifcjoint: interrupted; no output was changed", err=True)
             sys.exit(EXIT_INTERRUPTED)
+        finally:
+            restore_collector()  # what a command set aside (fileio.spare_collector)
 
 
 @click.group(
@@ -643,6 +647,7 @@ def check(
     """Check every joint of MODEL against the demands; write results, property sets and BCF."""
     import datetime as dt
 
+    from ifcjoint.fileio import spare_collector
     from ifcjoint.pipeline import check_scan, require_steel
     from ifcjoint.report.outputs import write_outputs
     from ifcjoint.report.results import write_check_summary
@@ -661,8 +666,10 @@ def check(
         may_replace={"--ifc-out": "the model"} if in_place else None,
     )
     previous, reads = _earlier_run(since, keep_reads, no_read_cache, debug)
+    spare_collector()  # the earlier results and reads live to the end of the run ...
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, reads=reads, **kw)
+    spare_collector()  # ... and so do the model's reads and joints (until _Main.invoke ends)
     table = None
     if demands_file:
         table = _guarded("reading the demands", debug, None,

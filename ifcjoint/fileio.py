@@ -231,3 +231,23 @@ def no_cycle_collection() -> Iterator[None]:
     finally:
         if was:
             gc.enable()
+
+
+def spare_collector() -> None:
+    """Keep every object alive now out of the cycle collector's later passes (``gc.freeze``).
+
+    For the long-lived data of a run (the model's reads, the earlier run's results): each
+    full pass of the collector visits every object alive, and a large model keeps millions;
+    set aside, they are not visited again (common practice, no source). Acyclic objects are
+    still freed when no longer used; :func:`restore_collector` ends it.
+    """
+    import gc
+
+    gc.freeze()
+
+
+def restore_collector() -> None:
+    """Let the collector see again what :func:`spare_collector` set aside (``gc.unfreeze``)."""
+    import gc
+
+    gc.unfreeze()
