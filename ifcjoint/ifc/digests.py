@@ -412,8 +412,10 @@ def element_digests(raw: bytes, f, ids: list[int]) -> dict[int, str] | None:
     data = raw[start + 6:end]
     if b"/*" in data:  # comments (outside strings) say nothing of the model: left out
         data = _COMMENT.sub(lambda m: m.group(1) or b" ", data)
-    p = _parse_lines(data) or _parse_records(data)
     wanted = np.sort(np.fromiter(f.entity_names(), dtype=np.int64))
+    p = _parse_lines(data)  # two records on a line read as one: the careful parse then
+    if p is None or not np.array_equal(p.sorted_ids, wanted):
+        p = _parse_records(data)
     if p is None or not np.array_equal(p.sorted_ids, wanted):
         return None
     with np.errstate(over="ignore"):

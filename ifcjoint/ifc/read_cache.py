@@ -3,16 +3,21 @@
 A run that is told of an earlier one (``check --since``) is offered that run's reads: an
 element whose digest (its record, everything it names, its relationships, its type's), the
 length unit, the recognition rules and the tool version are all the same is not read again,
-its earlier read is taken. A joint's anatomy is taken likewise when the joint the finder
-made is the same and every element its anatomy looked up is an unchanged read. Every element
+its earlier read is taken. A part's attachment to its joint is taken when nothing it
+depends on changed (``find.parts.AttachMemo``), and a joint's anatomy when the joint the
+finder made is the same and every element its anatomy looked up is an unchanged read. Every
+element
 read anew is read exactly as without a cache; reads that left a note or failed, and bodies
 that had to be tessellated, are never kept (their messages name entity numbers), so what a
 run reports never depends on the cache.
 
 The cache is a file per model (named by the SHA-256 of the model's bytes) in the user's cache
 folder: ``$IFCJOINT_CACHE_DIR``, else ``$XDG_CACHE_HOME/ifcjoint``, else
-``~/.cache/ifcjoint``; the newest :data:`KEEP` files are kept. The files are Python pickles:
-only the user's own folder is read, and a file of another format or tool version is ignored.
+``~/.cache/ifcjoint``; the newest :data:`KEEP` files are kept (a file read is touched, so
+the files later ones build on stay). A revision's file holds only the reads it added and
+names the earlier model's file to read first (:data:`MAX_CHAIN` files at most). The files are
+Python pickles: only the user's own folder is read, and a file of another format or tool
+version is ignored.
 """
 
 from __future__ import annotations
@@ -159,6 +164,8 @@ class ReadCache:
     attach_offered: dict = field(default_factory=dict)  # part attachments (find.parts)
     attach_kept: dict = field(default_factory=dict)
     attach_reused: int = 0
+    sort_offered: dict[str, str] = field(default_factory=dict)  # what an element is read as
+    sort_kept: dict[str, str] = field(default_factory=dict)
 
     @classmethod
     def load(cls, model_sha256: str | None) -> ReadCache:
@@ -172,14 +179,17 @@ class ReadCache:
         path = cache_file(model_sha256)
         reads: dict = {}
         anatomy: dict = {}
+        sorts: dict = {}
         chain = _read_chain(path)
         if not chain:
             return cls(asked=True)
         for data in reversed(chain):  # the oldest first: a later file's entries win
             reads.update(data.get("reads", {}))
             anatomy.update(data.get("anatomy", {}))
+            sorts.update(data.get("sorts", {}))
         return cls(offered=reads, anatomy_offered=anatomy, source=str(path), asked=True,
-                   depth=len(chain), attach_offered=chain[0].get("attach") or {})
+                   depth=len(chain), attach_offered=chain[0].get("attach") or {},
+                   sort_offered=sorts)
 
     def save(self, model_sha256: str) -> Path | None:
         """Keep this run's reads for the next run (best effort: a cache never fails a run).
@@ -191,15 +201,16 @@ class ReadCache:
         folder = cache_folder()
         path = cache_file(model_sha256)
         content = {"format": FORMAT, "tool_version": __version__, "base": None,
-                   "reads": self.kept, "anatomy": self.anatomy_kept,
+                   "reads": self.kept, "anatomy": self.anatomy_kept, "sorts": self.sort_kept,
                    "attach": self.attach_kept}  # the model's own, never spread
         base = Path(self.source) if self.source else None
         if base is not None and base != path and self.depth < MAX_CHAIN:
             reads = {k: v for k, v in self.kept.items() if self.offered.get(k) is not v}
             anatomy = {k: v for k, v in self.anatomy_kept.items()
                        if self.anatomy_offered.get(k) is not v}
+            sorts = {k: v for k, v in self.sort_kept.items() if self.sort_offered.get(k) != v}
             if len(reads) + len(anatomy) < (len(self.kept) + len(self.anatomy_kept)) / 2:
-                content.update(base=base.name, reads=reads, anatomy=anatomy)
+                content.update(base=base.name, reads=reads, anatomy=anatomy, sorts=sorts)
         try:
             folder.mkdir(parents=True, exist_ok=True)
             tmp = path.with_suffix(f".{os.getpid()}.tmp")  # two runs may keep one model

@@ -79,15 +79,17 @@ def read_model(
     ctx = ReadContext(f)
     r = _model_level(where, "types, materials and storeys",
                      lambda: ElementReader(ctx, scale, rules))
-    found = _model_level(where, "the elements' classes and names",
-                         lambda: _sort_elements(ctx, r, rules))
-    keys = None
+    content = None
     if reads is not None:
-        keys = _read_keys(f, raw, ctx, found, scale, unit_source, rules)
-        if keys is None:
+        content = _content_keys(f, raw, ctx, scale, unit_source, rules)
+        if content is None:
             reads.usable = False
             reads.why_not = "the model's text was not parsed with certainty"
     del raw
+    memo = (reads.sort_offered, reads.sort_kept, content) if content is not None else None
+    found = _model_level(where, "the elements' classes and names",
+                         lambda: _sort_elements(ctx, r, rules, memo))
+    keys = _read_keys(ctx, found, content) if content is not None else None
     _read_elements(r, found, progress, reads, keys)
     member_ids = {m.guid for m in r.members}
     part_ids = {p.guid for p in r.plates} | {x.guid for x in r.fasteners}
@@ -135,15 +137,13 @@ def _model_level(path: str, what: str, fn):
                          f"{exc})", "a valid IFC file; if it is one, please report this") from exc
 
 
-def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
-    """Members by class; plates and fasteners by class, by their texts, or by their shape."""
-    f = ctx.file
-    out = _Sorted()
-    for cls in MEMBER_CLASSES:
-        out.members.extend(f.by_type(cls))
-    out.plates = list(f.by_type("IfcPlate"))
-    plate_ids = {p.id() for p in out.plates}
-    seen = set()
+def _sort_candidates(f, rules: Rules) -> tuple[list, list, list]:
+    """The elements sorting looks at: members by class, IfcPlates, other part classes."""
+    members = [el for cls in MEMBER_CLASSES for el in f.by_type(cls)]
+    plates = list(f.by_type("IfcPlate"))
+    plate_ids = {p.id() for p in plates}
+    seen: set[int] = set()
+    others = []
     for cls in sorted(rules.fastener_classes | rules.plate_classes):
         try:
             els = f.by_type(cls)
@@ -153,19 +153,37 @@ def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
             if el.id() in seen or el.id() in plate_ids or el.is_a("IfcPlate"):
                 continue
             seen.add(el.id())
-            texts = r.lookups.texts(el)
-            kind = rules.fastener_kind(el.is_a(), texts)
-            if kind not in (None, FastenerKind.OTHER):
-                out.fasteners.append((el, kind))
-            elif rules.is_plate(el.is_a(), texts):
-                out.plates.append(el)
-            elif r.bolt_shaped(el):
-                out.fasteners.append((el, FastenerKind.BOLT))
-                r.notes.append(f"{ctx.key(el)} ({el.is_a()}): taken as a bolt by its shape")
-            elif kind == FastenerKind.OTHER:
-                out.fasteners.append((el, kind))
-            else:
-                out.ignored[el.is_a()] += 1
+            others.append(el)
+    return members, plates, others
+
+
+def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules,
+                   memo: tuple[dict, dict, dict[int, str]] | None = None) -> _Sorted:
+    """Members by class; plates and fasteners by class, by their texts, or by their shape.
+
+    ``memo``: (decisions offered by an earlier run, decisions kept for the next, each
+    element's content key); an unchanged element takes its earlier decision.
+    """
+    out = _Sorted()
+    out.members, out.plates, others = _sort_candidates(ctx.file, rules)
+    offered, kept, keys = memo if memo is not None else ({}, {}, {})
+    for el in others:
+        key = keys.get(el.id())
+        decision = offered.get(key) if key is not None else None
+        if decision is None:
+            decision = _sort_decision(el, r, rules)
+        if key is not None:
+            kept[key] = decision
+        what, _, kind = decision.partition(":")
+        if what == "fastener":
+            out.fasteners.append((el, FastenerKind(kind)))
+        elif what == "plate":
+            out.plates.append(el)
+        elif what == "shape":
+            out.fasteners.append((el, FastenerKind.BOLT))
+            r.notes.append(f"{ctx.key(el)} ({el.is_a()}): taken as a bolt by its shape")
+        else:
+            out.ignored[el.is_a()] += 1
     ctx.register([*out.members, *out.plates, *(el for el, _ in out.fasteners)])
     for gid, ids in sorted(ctx.duplicates.items()):
         r.notes.append(
@@ -175,26 +193,52 @@ def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules) -> _Sorted:
     return out
 
 
-def _read_keys(f, raw: bytes, ctx: ReadContext, found: _Sorted, scale: float,
-               unit_source: str, rules: Rules) -> dict[int, str] | None:
-    """Each sorted element's cache key; None when the text gives no digests.
+def _sort_decision(el, r: ElementReader, rules: Rules) -> str:
+    """What one element of a part class is read as.
 
-    Its content digest with everything else its read depends on: its key in the results,
-    the unit, the rules, the tool.
+    ``fastener:<kind>``, ``plate``, ``shape`` (a bolt by its shape) or ``ignored``.
+    """
+    texts = r.lookups.texts(el)
+    kind = rules.fastener_kind(el.is_a(), texts)
+    if kind not in (None, FastenerKind.OTHER):
+        return f"fastener:{kind.value}"
+    if rules.is_plate(el.is_a(), texts):
+        return "plate"
+    if r.bolt_shaped(el):
+        return "shape"
+    if kind == FastenerKind.OTHER:
+        return f"fastener:{kind.value}"
+    return "ignored"
+
+
+def _content_keys(f, raw: bytes, ctx: ReadContext, scale: float, unit_source: str,
+                  rules: Rules) -> dict[int, str] | None:
+    """The content key of each element sorting looks at (None: the text gives no digests).
+
+    Its content digest with everything else its reading depends on: the unit, the rules,
+    the tool.
     """
     import hashlib
 
     from ifcjoint import __version__
 
-    els = [*found.members, *found.plates, *(el for el, _ in found.fasteners)]
-    kinds = {el.id(): str(k) for el, k in found.fasteners}
+    els = [el for group in _sort_candidates(f, rules) for el in group]
     digests = element_digests(raw, f, [e.id() for e in els])
     if digests is None:
         return None
     common = f"{__version__}|{ctx.schema}|{scale!r}|{unit_source}|{rules_key(rules)}"
+    return {e.id(): hashlib.sha256(f"{common}|{digests[e.id()]}|{e.is_a()}".encode()
+                                   ).hexdigest() for e in els}
+
+
+def _read_keys(ctx: ReadContext, found: _Sorted, content: dict[int, str]) -> dict[int, str]:
+    """Each sorted element's cache key: its content key, its key in the results, its kind."""
+    import hashlib
+
+    kinds = {el.id(): str(k) for el, k in found.fasteners}
     return {e.id(): hashlib.sha256(
-        f"{common}|{digests[e.id()]}|{ctx.key(e)}|{e.is_a()}|{kinds.get(e.id(), '')}".encode()
-    ).hexdigest() for e in els}
+        f"{content[e.id()]}|{ctx.key(e)}|{kinds.get(e.id(), '')}".encode()).hexdigest()
+        for e in (*found.members, *found.plates, *(el for el, _ in found.fasteners))}
 
 
 def _read_elements(r: ElementReader, found: _Sorted, progress: Progress | None,
