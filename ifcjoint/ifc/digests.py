@@ -416,7 +416,7 @@ def element_digests(raw: bytes, f, ids: list[int]) -> dict[int, str] | None:
     p = _parse_lines(data)  # two records on a line read as one: the careful parse then
     if p is None or not np.array_equal(p.sorted_ids, wanted):
         p = _parse_records(data)
-    if p is None or not np.array_equal(p.sorted_ids, wanted):
+    if p is None or not len(p.ids) or not np.array_equal(p.sorted_ids, wanted):
         return None
     with np.errstate(over="ignore"):
         h = _instance_hashes(p, p.index(np.array(_ids(f, "IfcOwnerHistory"), dtype=np.int64)),
