@@ -200,12 +200,17 @@ def _model_options(func):
 
 
 def _scan(model, bar, debug, reads=None, **kw):
-    """Scan MODEL with the options every command shares."""
+    """Scan MODEL with the options every command shares.
+
+    The scan lives to the end of the command: it is set aside from the cycle collector's
+    later passes (``fileio.spare_collector``; ``_Main.invoke`` restores it).
+    """
     from ifcjoint.anatomy import AnatomySettings
+    from ifcjoint.fileio import spare_collector
     from ifcjoint.find import FinderSettings
     from ifcjoint.pipeline import scan
 
-    return _guarded(
+    result = _guarded(
         "scanning",
         debug,
         bar,
@@ -221,6 +226,8 @@ def _scan(model, bar, debug, reads=None, **kw):
             reads=reads,
         ),
     )
+    spare_collector()
+    return result
 
 
 def _outputs_ok(outputs: dict, inputs: dict, may_replace: dict | None = None) -> None:
@@ -647,7 +654,6 @@ def check(
     """Check every joint of MODEL against the demands; write results, property sets and BCF."""
     import datetime as dt
 
-    from ifcjoint.fileio import spare_collector
     from ifcjoint.pipeline import check_scan, require_steel
     from ifcjoint.report.outputs import write_outputs
     from ifcjoint.report.results import write_check_summary
@@ -666,10 +672,8 @@ def check(
         may_replace={"--ifc-out": "the model"} if in_place else None,
     )
     previous, reads = _earlier_run(since, keep_reads, no_read_cache, debug)
-    spare_collector()  # the earlier results and reads live to the end of the run ...
     bar = _Bar(sys.stderr.isatty() and not quiet)
     result = _scan(model, bar, debug, reads=reads, **kw)
-    spare_collector()  # ... and so do the model's reads and joints (until _Main.invoke ends)
     table = None
     if demands_file:
         table = _guarded("reading the demands", debug, None,
@@ -721,6 +725,10 @@ def _earlier_run(since, keep_reads: bool, no_read_cache: bool, debug: bool):
 
         reads = (ReadCache.load(previous.results.get("model", {}).get("sha256"))
                  if previous is not None else ReadCache())
+    if previous is not None:
+        from ifcjoint.fileio import spare_collector
+
+        spare_collector()  # they live to the end of the run (until _Main.invoke ends)
     return previous, reads
 
 

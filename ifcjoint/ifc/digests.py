@@ -118,6 +118,24 @@ _BLANK[[32, 9, 13]] = True
 _MAX_OTHER_LINES = 100_000
 
 
+def _numbers_after(padded: np.ndarray, at: np.ndarray) -> tuple[np.ndarray, np.ndarray] | None:
+    """The number written after each position (``#123``: 123) and its count of digits.
+
+    ``padded`` ends in non-digits. None when a number has 18 digits or more.
+    """
+    value = np.zeros(len(at), dtype=np.int64)
+    digits = np.zeros(len(at), dtype=np.int64)
+    active = np.ones(len(at), dtype=bool)
+    for k in range(1, 19):
+        c = padded[at + k] - np.uint8(48)  # a digit: 0-9 (wrapping below '0')
+        active &= c < 10
+        if not active.any():
+            return value, digits
+        value = np.where(active, value * 10 + c, value)
+        digits += active
+    return None
+
+
 def _parse_lines(data: bytes) -> _Parsed | None:
     """The usual layout, with numpy: one instance a line, ``#N=NAME(...);``, blank lines.
 
@@ -157,18 +175,10 @@ def _parse_lines(data: bytes) -> _Parsed | None:
                                           minlength=len(starts)) % 2):
         return None  # a string spans lines
     hashes = np.flatnonzero(buf == 35)
-    value = np.zeros(len(hashes), dtype=np.int64)
-    digits = np.zeros(len(hashes), dtype=np.int64)
-    active = np.ones(len(hashes), dtype=bool)
-    for k in range(1, 19):
-        c = padded[hashes + k] - np.uint8(48)  # a digit: 0-9 (wrapping below '0')
-        active &= c < 10
-        if not active.any():
-            break
-        value = np.where(active, value * 10 + c, value)
-        digits += active
-    else:
-        return None  # a number of 18 digits or more
+    got = _numbers_after(padded, hashes)
+    if got is None:
+        return None
+    value, digits = got
     at = np.searchsorted(hashes, s)  # every instance line starts with its '#'
     defining = np.zeros(len(hashes), dtype=bool)
     defining[at] = True
