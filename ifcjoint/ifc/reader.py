@@ -79,16 +79,18 @@ def read_model(
     ctx = ReadContext(f)
     r = _model_level(where, "types, materials and storeys",
                      lambda: ElementReader(ctx, scale, rules))
+    candidates = _model_level(where, "the elements' classes and names",
+                              lambda: _sort_candidates(f, rules))
     content = None
     if reads is not None:
-        content = _content_keys(f, raw, ctx, scale, unit_source, rules)
+        content = _content_keys(f, raw, ctx, candidates, scale, unit_source, rules)
         if content is None:
             reads.usable = False
             reads.why_not = "the model's text was not parsed with certainty"
     del raw
     memo = (reads.sort_offered, reads.sort_kept, content) if content is not None else None
     found = _model_level(where, "the elements' classes and names",
-                         lambda: _sort_elements(ctx, r, rules, memo))
+                         lambda: _sort_elements(ctx, r, rules, candidates, memo))
     keys = _read_keys(ctx, found, content) if content is not None else None
     _read_elements(r, found, progress, reads, keys)
     member_ids = {m.guid for m in r.members}
@@ -158,14 +160,17 @@ def _sort_candidates(f, rules: Rules) -> tuple[list, list, list]:
 
 
 def _sort_elements(ctx: ReadContext, r: ElementReader, rules: Rules,
+                   candidates: tuple[list, list, list],
                    memo: tuple[dict, dict, dict[int, str]] | None = None) -> _Sorted:
     """Members by class; plates and fasteners by class, by their texts, or by their shape.
 
-    ``memo``: (decisions offered by an earlier run, decisions kept for the next, each
-    element's content key); an unchanged element takes its earlier decision.
+    ``candidates``: what :func:`_sort_candidates` found. ``memo``: (decisions offered by an
+    earlier run, decisions kept for the next, each element's content key); an unchanged
+    element takes its earlier decision.
     """
     out = _Sorted()
-    out.members, out.plates, others = _sort_candidates(ctx.file, rules)
+    members, plates, others = candidates
+    out.members, out.plates = list(members), list(plates)
     offered, kept, keys = memo if memo is not None else ({}, {}, {})
     for el in others:
         key = keys.get(el.id())
@@ -211,8 +216,8 @@ def _sort_decision(el, r: ElementReader, rules: Rules) -> str:
     return "ignored"
 
 
-def _content_keys(f, raw: bytes, ctx: ReadContext, scale: float, unit_source: str,
-                  rules: Rules) -> dict[int, str] | None:
+def _content_keys(f, raw: bytes, ctx: ReadContext, candidates: tuple[list, list, list],
+                  scale: float, unit_source: str, rules: Rules) -> dict[int, str] | None:
     """The content key of each element sorting looks at (None: the text gives no digests).
 
     Its content digest with everything else its reading depends on: the unit, the rules,
@@ -222,7 +227,7 @@ def _content_keys(f, raw: bytes, ctx: ReadContext, scale: float, unit_source: st
 
     from ifcjoint import __version__
 
-    els = [el for group in _sort_candidates(f, rules) for el in group]
+    els = [el for group in candidates for el in group]
     digests = element_digests(raw, f, [e.id() for e in els])
     if digests is None:
         return None
